@@ -61,31 +61,65 @@ public static class FlowWorth
         return sum;
     }
 
-    /// <summary>d/di of <see cref="ScaledWorth"/>, used to find where the worth turns without crossing zero.</summary>
-    internal static double ScaledWorthSlope(ReadOnlySpan<double> flows, double i)
+    /// <summary>
+    /// <see cref="ScaledWorth"/> divided by <see cref="ScaledGross"/>: same sign and roots, always within [−1, 1], so
+    /// that a root finder's test |f| &lt; ε means the same thing for flows of any size.
+    /// </summary>
+    public static double NormalizedWorth(ReadOnlySpan<double> flows, double i)
     {
-        int n = flows.Length - 1;
+        double sum = 0.0;
+        double gross = 0.0;
         if (i >= 0.0)
         {
-            // d/di Σ F_t v^t = −Σ t F_t v^(t+1).
             double v = 1.0 / (1.0 + i);
-            double sum = 0.0;
+            for (int t = flows.Length - 1; t >= 0; t--)
+            {
+                sum = sum * v + flows[t];
+                gross = gross * v + Math.Abs(flows[t]);
+            }
+        }
+        else
+        {
+            double x = 1.0 + i;
+            for (int t = 0; t < flows.Length; t++)
+            {
+                sum = sum * x + flows[t];
+                gross = gross * x + Math.Abs(flows[t]);
+            }
+        }
+        return gross == 0.0 ? 0.0 : sum / gross;
+    }
+
+    /// <summary>
+    /// The sign-carrying slope d/di of <see cref="ScaledWorth"/>, divided by its gross counterpart (|F_t| in place of
+    /// F_t): used to find where the worth turns without crossing zero.
+    /// </summary>
+    internal static double NormalizedSlope(ReadOnlySpan<double> flows, double i)
+    {
+        int n = flows.Length - 1;
+        double sum = 0.0;
+        double gross = 0.0;
+        if (i >= 0.0)
+        {
+            // d/di Σ F_t v^t = −v² Σ t F_t v^(t−1).
+            double v = 1.0 / (1.0 + i);
             for (int t = n; t >= 1; t--)
             {
                 sum = sum * v + t * flows[t];
+                gross = gross * v + t * Math.Abs(flows[t]);
             }
-            return -sum * v * v;
+            sum = -sum;
         }
         else
         {
             // d/di Σ F_t x^(n−t) = Σ (n − t) F_t x^(n−t−1).
             double x = 1.0 + i;
-            double sum = 0.0;
             for (int t = 0; t < n; t++)
             {
                 sum = sum * x + (n - t) * flows[t];
+                gross = gross * x + (n - t) * Math.Abs(flows[t]);
             }
-            return sum;
         }
+        return gross == 0.0 ? 0.0 : sum / gross;
     }
 }

@@ -71,7 +71,7 @@ public static class RateOfReturnSearch
 
     private static void SearchSide(double[] flows, double from, double to, int bound, bool zeroIsRoot, List<double> roots)
     {
-        double Worth(double i) => FlowWorth.ScaledWorth(flows, i);
+        double Worth(double i) => FlowWorth.NormalizedWorth(flows, i);
 
         if (bound == 1)
         {
@@ -88,12 +88,12 @@ public static class RateOfReturnSearch
         double[] grid = Grid(from, to);
         double previousRate = grid[0];
         double previousWorth = Worth(previousRate);
-        double previousSlope = FlowWorth.ScaledWorthSlope(flows, previousRate);
+        double previousSlope = FlowWorth.NormalizedSlope(flows, previousRate);
         for (int k = 1; k < grid.Length; k++)
         {
             double rate = grid[k];
             double worth = Worth(rate);
-            double slope = FlowWorth.ScaledWorthSlope(flows, rate);
+            double slope = FlowWorth.NormalizedSlope(flows, rate);
             if (worth == 0.0)
             {
                 roots.Add(rate);
@@ -115,8 +115,8 @@ public static class RateOfReturnSearch
     /// <summary>The worth turns between a and b without changing sign at the ends: it may dip across zero twice, or touch it.</summary>
     private static void RefineTurningPoint(double[] flows, double a, double b, double worthAtA, List<double> roots)
     {
-        double Worth(double i) => FlowWorth.ScaledWorth(flows, i);
-        double Slope(double i) => FlowWorth.ScaledWorthSlope(flows, i);
+        double Worth(double i) => FlowWorth.NormalizedWorth(flows, i);
+        double Slope(double i) => FlowWorth.NormalizedSlope(flows, i);
 
         double turn = Refine(Slope, a, b);
         double worthAtTurn = Worth(turn);
@@ -125,7 +125,7 @@ public static class RateOfReturnSearch
             roots.Add(Refine(Worth, a, turn));
             roots.Add(Refine(Worth, turn, b));
         }
-        else if (Math.Abs(worthAtTurn) <= ZeroTolerance * FlowWorth.ScaledGross(flows, turn))
+        else if (Math.Abs(worthAtTurn) <= ZeroTolerance)
         {
             roots.Add(turn);
         }
