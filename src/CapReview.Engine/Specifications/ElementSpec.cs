@@ -1,0 +1,37 @@
+using CapReview.Engine.CashFlows;
+
+namespace CapReview.Engine.Specifications;
+
+/// <summary>
+/// A cash-flow element as entered or stored: every field optional, so that a missing one can be named rather than
+/// defaulted. Which fields an element needs depends on its <see cref="Type"/>.
+/// </summary>
+public sealed record ElementSpec
+{
+    public ElementKind? Type { get; init; }
+
+    public string? Label { get; init; }
+
+    public CashFlowCategory? Category { get; init; }
+
+    /// <summary>The period of a single amount.</summary>
+    public int? Period { get; init; }
+
+    /// <summary>The first period of a series.</summary>
+    public int? First { get; init; }
+
+    /// <summary>The last period of a series.</summary>
+    public int? Last { get; init; }
+
+    /// <summary>The interval of a recurring amount, in periods.</summary>
+    public int? Every { get; init; }
+
+    /// <summary>The flow at <see cref="Period"/> or at <see cref="First"/>: positive received, negative paid.</summary>
+    public double? Amount { get; init; }
+
+    /// <summary>The change per period of an arithmetic gradient.</summary>
+    public double? Step { get; init; }
+
+    /// <summary>The growth per period of a geometric gradient, as a fraction.</summary>
+    public double? Growth { get; init; }
+}

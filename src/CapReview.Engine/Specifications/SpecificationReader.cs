@@ -1,0 +1,134 @@
+using CapReview.Engine.CashFlows;
+using CapReview.Engine.Evaluation;
+using CapReview.Engine.Rates;
+using CapReview.Engine.Validation;
+
+namespace CapReview.Engine.Specifications;
+
+/// <summary>Turns an entered <see cref="ModelSpec"/> into a validated model and rate, naming every missing or bad field.</summary>
+public static class SpecificationReader
+{
+    /// <summary>The model and its evaluation options, or every error at once.</summary>
+    public static Outcome<ReadSpecification> Read(ModelSpec spec)
+    {
+        ArgumentNullException.ThrowIfNull(spec);
+        var errors = new List<InputError>();
+        AnnualRate? rate = ReadRate(spec.Rate, errors);
+        if (spec.Horizon is null)
+        {
+            errors.Add(new("horizon", "Give the horizon: the last period of the model."));
+        }
+        int periodsPerYear = spec.PeriodsPerYear ?? 1;
+        var elements = new List<CashFlowElement>();
+        if (spec.Elements is null)
+        {
+            errors.Add(new("elements", "Add at least one cash-flow element."));
+        }
+        else
+        {
+            for (int e = 0; e < spec.Elements.Count; e++)
+            {
+                CashFlowElement? element = ReadElement(spec.Elements[e], $"elements[{e}]", errors);
+                if (element is not null)
+                {
+                    elements.Add(element);
+                }
+            }
+        }
+        if (errors.Count > 0)
+        {
+            return Outcome.Failure<ReadSpecification>(errors);
+        }
+        Outcome<CashFlowModel> model = CashFlowModel.Create(spec.Horizon!.Value, periodsPerYear, elements);
+        if (!model.IsValid)
+        {
+            return Outcome.Failure<ReadSpecification>(model.Errors);
+        }
+        return Outcome.Success(new ReadSpecification(model.Value!, new EvaluationOptions(rate!.Value)));
+    }
+
+    private static AnnualRate? ReadRate(RateSpec? spec, List<InputError> errors)
+    {
+        if (spec?.Value is not double value)
+        {
+            errors.Add(new("rate.value", "Give the MARR as an annual rate, e.g. 0.10 for 10%."));
+            return null;
+        }
+        RateBasis basis = spec.Basis ?? RateBasis.Effective;
+        int m = spec.CompoundingsPerYear ?? (basis == RateBasis.Nominal ? 0 : 1);
+        if (basis == RateBasis.Nominal && spec.CompoundingsPerYear is null)
+        {
+            errors.Add(new("rate.compoundingsPerYear", "A nominal rate needs its compoundings per year."));
+            return null;
+        }
+        IReadOnlyList<InputError> rateErrors = AnnualRate.Check(value, basis, m, "rate");
+        if (rateErrors.Count > 0)
+        {
+            errors.AddRange(rateErrors);
+            return null;
+        }
+        return AnnualRate.Create(value, basis, m);
+    }
+
+    private static CashFlowElement? ReadElement(ElementSpec? spec, string path, List<InputError> errors)
+    {
+        if (spec is null)
+        {
+            errors.Add(new(path, "The element is missing."));
+            return null;
+        }
+        int before = errors.Count;
+        if (spec.Type is null)
+        {
+            errors.Add(new($"{path}.type", "Choose the element type: single, uniform, arithmetic, geometric or recurring."));
+            return null;
+        }
+        if (spec.Category is null)
+        {
+            errors.Add(new($"{path}.category", "Choose the category: capital, operating, revenue, salvage or tax."));
+        }
+        ElementKind kind = spec.Type.Value;
+        double amount = Required(spec.Amount, "amount", path, errors);
+        int first = kind == ElementKind.Single ? 0 : Required(spec.First, "first", path, errors);
+        int last = kind == ElementKind.Single ? 0 : Required(spec.Last, "last", path, errors);
+        int period = kind == ElementKind.Single ? Required(spec.Period, "period", path, errors) : 0;
+        double step = kind == ElementKind.Arithmetic ? Required(spec.Step, "step", path, errors) : 0;
+        double growth = kind == ElementKind.Geometric ? Required(spec.Growth, "growth", path, errors) : 0;
+        int every = kind == ElementKind.Recurring ? Required(spec.Every, "every", path, errors) : 0;
+        if (errors.Count > before)
+        {
+            return null;
+        }
+        string label = spec.Label ?? "";
+        CashFlowCategory category = spec.Category!.Value;
+        return kind switch
+        {
+            ElementKind.Single => new SingleAmount(label, category, period, amount),
+            ElementKind.Uniform => new UniformSeries(label, category, first, last, amount),
+            ElementKind.Arithmetic => new ArithmeticGradientSeries(label, category, first, last, amount, step),
+            ElementKind.Geometric => new GeometricGradientSeries(label, category, first, last, amount, growth),
+            ElementKind.Recurring => new RecurringAmount(label, category, first, last, every, amount),
+            _ => Unknown(path, errors),
+        };
+    }
+
+    private static CashFlowElement? Unknown(string path, List<InputError> errors)
+    {
+        errors.Add(new($"{path}.type", "Choose the element type: single, uniform, arithmetic, geometric or recurring."));
+        return null;
+    }
+
+    private static T Required<T>(T? value, string field, string path, List<InputError> errors)
+        where T : struct
+    {
+        if (value is null)
+        {
+            errors.Add(new($"{path}.{field}", $"Give the {field} of this element."));
+            return default;
+        }
+        return value.Value;
+    }
+}
+
+/// <summary>A validated model with the options to evaluate it at.</summary>
+public sealed record ReadSpecification(CashFlowModel Model, EvaluationOptions Options);
