@@ -101,6 +101,14 @@ public readonly record struct AnnualRate
         {
             throw new ArgumentOutOfRangeException(nameof(periodsPerYear), periodsPerYear, "Periods per year must be between 1 and 8760.");
         }
+        if (periodsPerYear == 1 && Basis == RateBasis.Effective)
+        {
+            return Value;
+        }
+        if (Basis == RateBasis.Nominal && periodsPerYear == CompoundingsPerYear)
+        {
+            return Value / CompoundingsPerYear;
+        }
         return StableMath.Expm1(ContinuousEquivalent() / periodsPerYear);
     }
 

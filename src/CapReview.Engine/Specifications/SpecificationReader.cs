@@ -35,16 +35,20 @@ public static class SpecificationReader
                 }
             }
         }
+        bool elementsRead = spec.Elements is not null && elements.Count == spec.Elements.Count;
+        Outcome<CashFlowModel>? model = spec.Horizon is int horizon && elementsRead
+            ? CashFlowModel.Create(horizon, periodsPerYear, elements)
+            : null;
+        if (model is { IsValid: false })
+        {
+            // Report the model's problems beside the rate's, so that one round trip shows them all.
+            errors.AddRange(model.Errors);
+        }
         if (errors.Count > 0)
         {
             return Outcome.Failure<ReadSpecification>(errors);
         }
-        Outcome<CashFlowModel> model = CashFlowModel.Create(spec.Horizon!.Value, periodsPerYear, elements);
-        if (!model.IsValid)
-        {
-            return Outcome.Failure<ReadSpecification>(model.Errors);
-        }
-        return Outcome.Success(new ReadSpecification(model.Value!, new EvaluationOptions(rate!.Value)));
+        return Outcome.Success(new ReadSpecification(model!.Value!, new EvaluationOptions(rate!.Value)));
     }
 
     private static AnnualRate? ReadRate(RateSpec? spec, List<InputError> errors)

@@ -1,0 +1,18 @@
+using CapReview.Reviews.Organisation;
+using CapReview.Reviews.Storage;
+using Microsoft.EntityFrameworkCore;
+using Microsoft.Extensions.DependencyInjection;
+
+namespace CapReview.Reviews;
+
+/// <summary>Registers the domain services and the database on SQLite.</summary>
+public static class ReviewsServiceCollectionExtensions
+{
+    public static IServiceCollection AddReviews(this IServiceCollection services, string sqliteConnectionString)
+    {
+        services.AddDbContextFactory<CapReviewDbContext>(options => options.UseSqlite(sqliteConnectionString));
+        services.AddSingleton<DatabaseInitializer>();
+        services.AddSingleton<OrganisationQueries>();
+        return services;
+    }
+}

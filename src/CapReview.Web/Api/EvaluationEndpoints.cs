@@ -1,0 +1,68 @@
+using System.Text.Json;
+using CapReview.Engine.Evaluation;
+using CapReview.Engine.Specifications;
+using CapReview.Engine.Validation;
+
+namespace CapReview.Web.Api;
+
+/// <summary>POST /api/v1/evaluations: evaluates a model and stores nothing.</summary>
+public static class EvaluationEndpoints
+{
+    /// <summary>Largest request body accepted: enough for the largest model.</summary>
+    public const long MaxRequestBytes = 1_000_000;
+
+    public static IEndpointRouteBuilder MapEvaluationEndpoints(this IEndpointRouteBuilder routes)
+    {
+        routes.MapPost("/api/v1/evaluations", EvaluateAsync)
+            .WithName("CreateEvaluation")
+            .WithSummary("Evaluate a cash-flow model at a MARR")
+            .WithDescription("Returns every measure of worth. Stores nothing. Invalid input returns RFC 9457 problem details naming each bad field.")
+            .Accepts<ModelSpec>("application/json")
+            .Produces<EvaluationResponse>()
+            .ProducesValidationProblem()
+            .DisableAntiforgery();
+        return routes;
+    }
+
+    private static async Task<IResult> EvaluateAsync(HttpRequest request, CancellationToken cancellationToken)
+    {
+        if (request.ContentLength > MaxRequestBytes)
+        {
+            return Problem("body", $"The request is larger than {MaxRequestBytes:N0} bytes.");
+        }
+        if (!request.HasJsonContentType())
+        {
+            return Problem("body", "Send the model as application/json.");
+        }
+        ModelSpec? spec;
+        try
+        {
+            spec = await JsonSerializer.DeserializeAsync<ModelSpec>(request.Body, ApiJson.Options, cancellationToken).ConfigureAwait(false);
+        }
+        catch (JsonException ex)
+        {
+            return Problem(FieldOf(ex.Path), "This value is not valid here: check its type and spelling.");
+        }
+        if (spec is null)
+        {
+            return Problem("body", "Send a model object.");
+        }
+        Outcome<Evaluation> outcome = Evaluator.Evaluate(spec);
+        if (!outcome.IsValid)
+        {
+            return Results.ValidationProblem(
+                outcome.Errors.GroupBy(e => e.Field).ToDictionary(g => g.Key, g => g.Select(e => e.Message).ToArray()),
+                title: "The model has invalid input.");
+        }
+        return Results.Ok(EvaluationResponse.From(outcome.Value!));
+    }
+
+    private static IResult Problem(string field, string message) =>
+        Results.ValidationProblem(
+            new Dictionary<string, string[]> { [field] = [message] },
+            title: "The request could not be read.");
+
+    /// <summary>"$.elements[2].amount" → "elements[2].amount".</summary>
+    internal static string FieldOf(string? jsonPath) =>
+        string.IsNullOrEmpty(jsonPath) || jsonPath == "$" ? "body" : jsonPath.TrimStart('$').TrimStart('.');
+}

@@ -1,0 +1,41 @@
+using System.Globalization;
+using CapReview.Web.Hosting;
+
+namespace CapReview.Web.Formatting;
+
+/// <summary>
+/// The one rounding rule for screens: money to whole currency units, rates to two decimals of a percent, periods to
+/// two decimals, each rounded half away from zero, in the organisation's culture. The engine keeps full precision.
+/// </summary>
+public sealed class DisplayFormat
+{
+    private readonly CultureInfo _culture;
+    private readonly string _currency;
+
+    public DisplayFormat(OrganisationOptions organisation)
+    {
+        ArgumentNullException.ThrowIfNull(organisation);
+        _culture = organisation.Culture();
+        _currency = organisation.CurrencyCode;
+    }
+
+    public CultureInfo Culture => _culture;
+
+    public string CurrencyCode => _currency;
+
+    public string Money(double value) =>
+        Math.Round(value, 0, MidpointRounding.AwayFromZero).ToString("#,##0;−#,##0;0", _culture);
+
+    public string Money(double? value, string absent) => value is double v ? Money(v) : absent;
+
+    public string Percent(double fraction) =>
+        (Math.Round(fraction * 100, 2, MidpointRounding.AwayFromZero)).ToString("#,##0.00;−#,##0.00;0.00", _culture) + " %";
+
+    public string Percent(double? fraction, string absent) => fraction is double f ? Percent(f) : absent;
+
+    public string Number(double value, int decimals) =>
+        Math.Round(value, decimals, MidpointRounding.AwayFromZero).ToString("N" + decimals.ToString(CultureInfo.InvariantCulture), _culture);
+
+    /// <summary>An amount as typed into an input: no thousands separators, so it parses back unchanged.</summary>
+    public string Editable(double value) => value.ToString("0.############", _culture);
+}

@@ -1,0 +1,60 @@
+using System.Text.Json;
+using System.Text.Json.Serialization;
+using CapReview.Reviews;
+using CapReview.Reviews.Storage;
+using CapReview.Web.Api;
+using CapReview.Web.Components;
+using CapReview.Web.Formatting;
+using Microsoft.Extensions.Options;
+
+namespace CapReview.Web.Hosting;
+
+/// <summary>The composition root: what the web host registers and how its pipeline runs.</summary>
+public static class CapReviewHosting
+{
+    public static WebApplicationBuilder AddCapReview(this WebApplicationBuilder builder)
+    {
+        ArgumentNullException.ThrowIfNull(builder);
+        IServiceCollection services = builder.Services;
+        var storage = builder.Configuration.GetSection("Storage").Get<StorageOptions>() ?? new StorageOptions();
+        services.Configure<OrganisationOptions>(builder.Configuration.GetSection("Organisation"));
+        services.AddReviews(storage.SqliteConnectionString(builder.Configuration.GetConnectionString("CapReview"), builder.Environment.ContentRootPath));
+
+        services.AddRazorComponents().AddInteractiveServerComponents();
+        services.AddProblemDetails();
+        services.ConfigureHttpJsonOptions(options => ApiJson.Configure(options.SerializerOptions));
+        services.AddOpenApi("v1", options => options.AddDocumentTransformer((document, _, _) =>
+        {
+            document.Info.Title = "CapReview API";
+            document.Info.Description = "Evaluations of capital-budget cash-flow models. Results are estimates, not financial or tax advice.";
+            return Task.CompletedTask;
+        }));
+        services.AddSingleton(sp => new DisplayFormat(sp.GetRequiredService<IOptions<OrganisationOptions>>().Value));
+        return builder;
+    }
+
+    public static async Task InitializeDatabaseAsync(this WebApplication app)
+    {
+        ArgumentNullException.ThrowIfNull(app);
+        var organisation = app.Services.GetRequiredService<IOptions<OrganisationOptions>>().Value;
+        await app.Services.GetRequiredService<DatabaseInitializer>()
+            .InitializeAsync(organisation.ToProfile(), app.Lifetime.ApplicationStopping)
+            .ConfigureAwait(false);
+    }
+
+    public static WebApplication UseCapReview(this WebApplication app)
+    {
+        ArgumentNullException.ThrowIfNull(app);
+        if (!app.Environment.IsDevelopment())
+        {
+            app.UseExceptionHandler("/error", createScopeForErrors: true);
+        }
+        app.UseStatusCodePagesWithReExecute("/not-found", createScopeForStatusCodePages: true);
+        app.UseAntiforgery();
+        app.MapStaticAssets();
+        app.MapOpenApi("/openapi/{documentName}.json");
+        app.MapEvaluationEndpoints();
+        app.MapRazorComponents<App>().AddInteractiveServerRenderMode();
+        return app;
+    }
+}

@@ -1,0 +1,96 @@
+using System.Globalization;
+using CapReview.Engine.CashFlows;
+using CapReview.Engine.Rates;
+using CapReview.Engine.Specifications;
+using CapReview.Engine.Validation;
+
+namespace CapReview.Web.QuickEvaluation;
+
+/// <summary>The quick evaluation's model as typed: settings and element rows, read into a specification on demand.</summary>
+public sealed class ModelDraft
+{
+    public string Horizon { get; set; } = "10";
+
+    public int PeriodsPerYear { get; set; } = 1;
+
+    /// <summary>The MARR in percent.</summary>
+    public string MarrPercent { get; set; } = "10";
+
+    public RateBasis Basis { get; set; } = RateBasis.Effective;
+
+    public string CompoundingsPerYear { get; set; } = "12";
+
+    public List<ElementDraft> Elements { get; } = [];
+
+    public void Move(int index, int offset)
+    {
+        int target = index + offset;
+        if (index < 0 || index >= Elements.Count || target < 0 || target >= Elements.Count)
+        {
+            return;
+        }
+        (Elements[index], Elements[target]) = (Elements[target], Elements[index]);
+    }
+
+    /// <summary>Reads the typed text in <paramref name="culture"/>; a field that does not parse is named and left out.</summary>
+    public DraftReading Read(CultureInfo culture)
+    {
+        var errors = new List<InputError>();
+        var elements = new List<ElementSpec>();
+        for (int e = 0; e < Elements.Count; e++)
+        {
+            ElementDraft row = Elements[e];
+            string path = $"elements[{e}]";
+            elements.Add(new ElementSpec
+            {
+                Type = row.Type,
+                Label = row.Label,
+                Category = row.Category,
+                Period = row.Uses("period") ? Whole(row.Period, $"{path}.period", culture, errors) : null,
+                First = row.Uses("first") ? Whole(row.First, $"{path}.first", culture, errors) : null,
+                Last = row.Uses("last") ? Whole(row.Last, $"{path}.last", culture, errors) : null,
+                Every = row.Uses("every") ? Whole(row.Every, $"{path}.every", culture, errors) : null,
+                Amount = Real(row.Amount, $"{path}.amount", culture, errors),
+                Step = row.Uses("step") ? Real(row.Step, $"{path}.step", culture, errors) : null,
+                Growth = row.Uses("growth") ? Real(row.GrowthPercent, $"{path}.growth", culture, errors) / 100.0 : null,
+            });
+        }
+        var spec = new ModelSpec
+        {
+            Horizon = Whole(Horizon, "horizon", culture, errors),
+            PeriodsPerYear = PeriodsPerYear,
+            Rate = new RateSpec
+            {
+                Value = Real(MarrPercent, "rate.value", culture, errors) / 100.0,
+                Basis = Basis,
+                CompoundingsPerYear = Basis == RateBasis.Nominal ? Whole(CompoundingsPerYear, "rate.compoundingsPerYear", culture, errors) : null,
+            },
+            Elements = elements,
+        };
+        return new DraftReading(spec, errors);
+    }
+
+    private static int? Whole(string text, string field, CultureInfo culture, List<InputError> errors)
+    {
+        if (int.TryParse(text.Trim(), NumberStyles.AllowLeadingSign, culture, out int value))
+        {
+            return value;
+        }
+        errors.Add(new(field, string.IsNullOrWhiteSpace(text) ? "Enter a whole number of periods." : $"“{text.Trim()}” is not a whole number."));
+        return null;
+    }
+
+    private static double? Real(string text, string field, CultureInfo culture, List<InputError> errors)
+    {
+        string trimmed = text.Trim().Replace('−', '-');
+        if (double.TryParse(trimmed, NumberStyles.Float | NumberStyles.AllowThousands, culture, out double value) && double.IsFinite(value))
+        {
+            return value;
+        }
+        errors.Add(new(field, string.IsNullOrWhiteSpace(text) ? "Enter a number." : $"“{text.Trim()}” is not a number."));
+        return null;
+    }
+}
+
+/// <summary>What the typed draft says: a specification with unreadable fields left empty, and the reading errors.</summary>
+public sealed record DraftReading(ModelSpec Spec, IReadOnlyList<InputError> Errors);
