@@ -1,0 +1,67 @@
+using Microsoft.Playwright;
+
+namespace CapReview.Browser.Tests;
+
+/// <summary>
+/// One app and one headless Debian Chromium for the test class. Chromium is started with no outside lookups so that it
+/// talks only to the app on loopback. Set CAPREVIEW_SCREENSHOTS to a folder to keep screenshots.
+/// </summary>
+public sealed class BrowserFixture : IAsyncLifetime
+{
+    private IPlaywright? _playwright;
+    private string _profile = "";
+
+    public AppHost App { get; } = new();
+
+    public IBrowserContext Browser { get; private set; } = null!;
+
+    public static string ChromiumPath => Environment.GetEnvironmentVariable("CHROMIUM_PATH") ?? "/usr/bin/chromium";
+
+    public async Task InitializeAsync()
+    {
+        if (!File.Exists(ChromiumPath))
+        {
+            throw new InvalidOperationException($"Chromium is not at {ChromiumPath}: install Debian's chromium package (see README) or set CHROMIUM_PATH.");
+        }
+        App.Start();
+        _playwright = await Playwright.CreateAsync();
+        _profile = Directory.CreateTempSubdirectory("capreview-chromium-").FullName;
+        Browser = await _playwright.Chromium.LaunchPersistentContextAsync(_profile, new BrowserTypeLaunchPersistentContextOptions
+        {
+            ExecutablePath = ChromiumPath,
+            Headless = true,
+            ViewportSize = new ViewportSize { Width = 1280, Height = 900 },
+            Args =
+            [
+                "--no-sandbox", "--disable-gpu", "--disable-quic", "--no-first-run", "--disable-background-networking",
+                "--disable-component-update", "--disable-sync", "--host-resolver-rules=MAP * ~NOTFOUND , EXCLUDE 127.0.0.1",
+            ],
+        });
+    }
+
+    public async Task DisposeAsync()
+    {
+        await Browser.CloseAsync();
+        _playwright?.Dispose();
+        await App.DisposeAsync();
+        try
+        {
+            Directory.Delete(_profile, recursive: true);
+        }
+        catch (IOException)
+        {
+            // Chromium may still be writing its profile as it exits.
+        }
+    }
+
+    public static async Task ScreenshotAsync(IPage page, string name)
+    {
+        string? folder = Environment.GetEnvironmentVariable("CAPREVIEW_SCREENSHOTS");
+        if (string.IsNullOrEmpty(folder))
+        {
+            return;
+        }
+        Directory.CreateDirectory(folder);
+        await page.ScreenshotAsync(new PageScreenshotOptions { Path = Path.Combine(folder, name + ".png"), FullPage = true });
+    }
+}
