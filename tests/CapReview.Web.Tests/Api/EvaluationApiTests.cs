@@ -1,0 +1,185 @@
+using System.Net;
+using System.Net.Http.Json;
+using System.Text;
+using System.Text.Json;
+using Microsoft.VisualBasic;
+
+namespace CapReview.Web.Tests.Api;
+
+public sealed class EvaluationApiTests(ApiFactory factory) : IClassFixture<ApiFactory>
+{
+    private const string Example = """
+        {"periodsPerYear": 1, "horizon": 10, "rate": {"value": 0.10, "basis": "effective"},
+         "elements": [
+           {"type": "single", "label": "Press brake", "category": "capital", "period": 0, "amount": -10000},
+           {"type": "uniform", "label": "Labour saved", "category": "revenue", "first": 1, "last": 10, "amount": 2000},
+           {"type": "arithmetic", "label": "Upkeep", "category": "operating", "first": 1, "last": 10, "amount": -100, "step": -10},
+           {"type": "geometric", "label": "Scrap resale", "category": "revenue", "first": 1, "last": 10, "amount": 150, "growth": 0.03},
+           {"type": "recurring", "label": "Tooling refit", "category": "capital", "first": 4, "last": 8, "every": 4, "amount": -600}
+         ]}
+        """;
+
+    private async Task<(HttpStatusCode Status, JsonElement Body, string? MediaType)> PostAsync(string json)
+    {
+        using HttpClient client = factory.CreateClient();
+        using var content = new StringContent(json, Encoding.UTF8, "application/json");
+        using HttpResponseMessage response = await client.PostAsync("/api/v1/evaluations", content);
+        string text = await response.Content.ReadAsStringAsync();
+        return (response.StatusCode, JsonDocument.Parse(text).RootElement.Clone(), response.Content.Headers.ContentType?.MediaType);
+    }
+
+    [Fact]
+    public async Task Evaluates_a_model_and_matches_VisualBasic_Financial()
+    {
+        var (status, body, _) = await PostAsync(Example);
+        Assert.Equal(HttpStatusCode.OK, status);
+        double[] flows = body.GetProperty("netFlows").EnumerateArray().Select(e => e.GetDouble()).ToArray();
+        Assert.Equal(11, flows.Length);
+        Assert.Equal(-10000, flows[0]);
+        Assert.Equal(2000 + (-100 - 3 * 10) + 150 * Math.Pow(1.03, 3) - 600, flows[4], 9);
+
+        double[] later = flows.Skip(1).ToArray();
+        double pw = flows[0] + Financial.NPV(0.10, ref later);
+        Assert.Equal(pw, body.GetProperty("presentWorth").GetDouble(), 8);
+        Assert.Equal(-Financial.Pmt(0.10, 10, pw), body.GetProperty("annualWorth").GetDouble(), 8);
+        Assert.Equal(-Financial.FV(0.10, 10, 0, pw), body.GetProperty("futureWorth").GetDouble(), 7);
+
+        JsonElement ror = body.GetProperty("rateOfReturn");
+        double[] copy = [.. flows];
+        Assert.Equal(Financial.IRR(ref copy, 0.1), ror.GetProperty("roots")[0].GetDouble(), 9);
+        Assert.True(ror.GetProperty("unique").GetBoolean());
+        Assert.Equal(1, ror.GetProperty("signChanges").GetInt32());
+        copy = [.. flows];
+        Assert.Equal(Financial.MIRR(ref copy, 0.10, 0.10), body.GetProperty("externalRate").GetDouble(), 12);
+        Assert.True(body.GetProperty("payback").GetProperty("simple").GetDouble() > 5);
+        Assert.True(body.GetProperty("benefitCostRatio").GetProperty("conventional").GetDouble() > 1);
+    }
+
+    [Fact]
+    public async Task Stores_nothing()
+    {
+        long before = new FileInfo(factory.DatabaseFile).Exists ? new FileInfo(factory.DatabaseFile).Length : 0;
+        var (status, _, _) = await PostAsync(Example);
+        Assert.Equal(HttpStatusCode.OK, status);
+        using var connection = new Microsoft.Data.Sqlite.SqliteConnection($"Data Source={factory.DatabaseFile};Pooling=False");
+        await connection.OpenAsync();
+        using var command = connection.CreateCommand();
+        command.CommandText = "SELECT name FROM sqlite_master WHERE type = 'table' AND name NOT LIKE '\\_%' ESCAPE '\\' AND name NOT LIKE 'sqlite%' ORDER BY name";
+        var tables = new List<string>();
+        using (var reader = await command.ExecuteReaderAsync())
+        {
+            while (await reader.ReadAsync())
+            {
+                tables.Add(reader.GetString(0));
+            }
+        }
+        Assert.Equal(["organisation"], tables);
+        Assert.True(before >= 0);
+    }
+
+    [Fact]
+    public async Task Invalid_fields_are_named_in_problem_details()
+    {
+        var (status, body, mediaType) = await PostAsync("""
+            {"horizon": 0, "rate": {"value": 0.1, "basis": "nominal"},
+             "elements": [{"type": "uniform", "label": "", "category": "operating", "first": 5, "last": 3, "amount": 1}]}
+            """);
+        Assert.Equal(HttpStatusCode.BadRequest, status);
+        Assert.Equal("application/problem+json", mediaType);
+        Assert.Equal(400, body.GetProperty("status").GetInt32());
+        var fields = body.GetProperty("errors").EnumerateObject().Select(p => p.Name).ToArray();
+        Assert.Equal(["rate.compoundingsPerYear", "horizon"], fields);
+
+        (status, body, _) = await PostAsync("""
+            {"horizon": 0, "rate": {"value": 0.1},
+             "elements": [{"type": "uniform", "label": "", "category": "operating", "first": 5, "last": 3, "amount": 1}]}
+            """);
+        fields = body.GetProperty("errors").EnumerateObject().Select(p => p.Name).ToArray();
+        Assert.Equal(["horizon"], fields);
+
+        (status, body, _) = await PostAsync("""
+            {"horizon": 10, "rate": {"value": 0.1},
+             "elements": [{"type": "uniform", "label": "", "category": "operating", "first": 5, "last": 3, "amount": 1}]}
+            """);
+        fields = body.GetProperty("errors").EnumerateObject().Select(p => p.Name).ToArray();
+        Assert.Equal(["elements[0].label", "elements[0].last"], fields);
+        Assert.Contains("before the first", body.GetProperty("errors").GetProperty("elements[0].last")[0].GetString());
+    }
+
+    [Theory]
+    [InlineData("""{"horizon": 10, "rate": {"value": 0.1, "basis": "sideways"}, "elements": []}""", "rate.basis")]
+    [InlineData("""{"horizon": "ten", "rate": {"value": 0.1}, "elements": []}""", "horizon")]
+    [InlineData("""{"horizon": 10, "rate": {"value": 0.1}, "elements": [{"type": "lump"}]}""", "elements[0].type")]
+    [InlineData("""{"horizon": 10, """, "body")]
+    [InlineData("""[]""", "body")]
+    public async Task Unreadable_json_names_the_field(string json, string field)
+    {
+        var (status, body, _) = await PostAsync(json);
+        Assert.Equal(HttpStatusCode.BadRequest, status);
+        Assert.Equal([field], body.GetProperty("errors").EnumerateObject().Select(p => p.Name).ToArray());
+    }
+
+    [Fact]
+    public async Task An_amount_beyond_the_number_range_is_named()
+    {
+        var (status, body, _) = await PostAsync("""
+            {"horizon": 10, "rate": {"value": 0.1},
+             "elements": [{"type": "single", "label": "a", "category": "capital", "period": 0, "amount": 1e999}]}
+            """);
+        Assert.Equal(HttpStatusCode.BadRequest, status);
+        Assert.Equal("Enter a finite number.", body.GetProperty("errors").GetProperty("elements[0].amount")[0].GetString());
+    }
+
+    [Fact]
+    public async Task A_model_with_several_rates_of_return_reports_them_all()
+    {
+        var (status, body, _) = await PostAsync("""
+            {"horizon": 3, "rate": {"value": 0.15},
+             "elements": [
+               {"type": "single", "label": "a", "category": "capital", "period": 0, "amount": -1000},
+               {"type": "single", "label": "b", "category": "revenue", "period": 1, "amount": 3600},
+               {"type": "single", "label": "c", "category": "operating", "period": 2, "amount": -4310},
+               {"type": "single", "label": "d", "category": "revenue", "period": 3, "amount": 1716}]}
+            """);
+        Assert.Equal(HttpStatusCode.OK, status);
+        JsonElement ror = body.GetProperty("rateOfReturn");
+        Assert.False(ror.GetProperty("unique").GetBoolean());
+        Assert.Equal("several", ror.GetProperty("kind").GetString());
+        Assert.Equal([0.1, 0.2, 0.3], ror.GetProperty("roots").EnumerateArray().Select(r => Math.Round(r.GetDouble(), 10)).ToArray());
+    }
+
+    [Fact]
+    public async Task Never_recovered_payback_is_null()
+    {
+        var (_, body, _) = await PostAsync("""
+            {"horizon": 2, "rate": {"value": 0.1},
+             "elements": [
+               {"type": "single", "label": "a", "category": "capital", "period": 0, "amount": -1000},
+               {"type": "uniform", "label": "b", "category": "revenue", "first": 1, "last": 2, "amount": 100}]}
+            """);
+        Assert.Equal(JsonValueKind.Null, body.GetProperty("payback").GetProperty("simple").ValueKind);
+        Assert.Equal(JsonValueKind.Null, body.GetProperty("payback").GetProperty("discounted").ValueKind);
+    }
+
+    [Fact]
+    public async Task Serves_an_OpenAPI_document_describing_the_endpoint()
+    {
+        using HttpClient client = factory.CreateClient();
+        var document = await client.GetFromJsonAsync<JsonElement>("/openapi/v1.json");
+        JsonElement post = document.GetProperty("paths").GetProperty("/api/v1/evaluations").GetProperty("post");
+        Assert.Equal("CreateEvaluation", post.GetProperty("operationId").GetString());
+        Assert.True(post.GetProperty("responses").TryGetProperty("400", out _));
+        Assert.True(document.GetProperty("components").GetProperty("schemas").TryGetProperty("EvaluationResponse", out _));
+    }
+
+    [Fact]
+    public async Task The_database_is_created_and_migrated_on_first_start()
+    {
+        using HttpClient client = factory.CreateClient();
+        using HttpResponseMessage page = await client.GetAsync("/evaluate");
+        Assert.Equal(HttpStatusCode.OK, page.StatusCode);
+        Assert.True(File.Exists(factory.DatabaseFile));
+        string html = await page.Content.ReadAsStringAsync();
+        Assert.Contains("Tarnby Components Ltd", html);
+    }
+}
