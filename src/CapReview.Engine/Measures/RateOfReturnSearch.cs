@@ -34,56 +34,50 @@ public static class RateOfReturnSearch
         {
             throw new ArgumentOutOfRangeException(nameof(lowest), "The search range must lie above -100% and be non-empty.");
         }
-        double[] flows = [.. netFlows];
-        int signChanges = SignChanges(flows, forward: true, cumulative: false);
-        int positiveBound = SignChanges(flows, forward: true, cumulative: true);
-        int negativeBound = SignChanges(flows, forward: false, cumulative: true);
-        bool cumulativeTest = CumulativeTest(flows);
+        double[] flows = netFlows as double[] ?? [.. netFlows];
+        var signs = FlowSigns.Of(flows);
 
-        var roots = new List<double>();
-        if (signChanges > 0)
+        var roots = new List<double>(2);
+        if (signs.FlowChanges > 0)
         {
-            double gross = 0.0;
-            double total = 0.0;
-            foreach (double f in flows)
-            {
-                gross += Math.Abs(f);
-                total += f;
-            }
-            bool zeroIsRoot = Math.Abs(total) <= ZeroTolerance * gross;
+            bool zeroIsRoot = Math.Abs(signs.Total) <= ZeroTolerance * signs.Gross;
             if (zeroIsRoot && lowest <= 0.0 && highest >= 0.0)
             {
                 roots.Add(0.0);
             }
-            if (highest > 0.0 && positiveBound > 0)
+            if (highest > 0.0 && signs.ForwardCumulativeChanges > 0)
             {
-                SearchSide(flows, Math.Max(lowest, 0.0), highest, positiveBound, zeroIsRoot, roots);
+                SearchSide(flows, Math.Max(lowest, 0.0), highest, signs.ForwardCumulativeChanges, zeroIsRoot, signs, roots);
             }
-            if (lowest < 0.0 && negativeBound > 0)
+            if (lowest < 0.0 && signs.BackwardCumulativeChanges > 0)
             {
-                SearchSide(flows, lowest, Math.Min(highest, 0.0), negativeBound, zeroIsRoot, roots);
+                SearchSide(flows, lowest, Math.Min(highest, 0.0), signs.BackwardCumulativeChanges, zeroIsRoot, signs, roots);
             }
             roots.Sort();
             RemoveNearDuplicates(roots);
         }
-        return new RateOfReturnResult(roots, signChanges, positiveBound, cumulativeTest);
+        return new RateOfReturnResult(roots, signs.FlowChanges, signs.ForwardCumulativeChanges, signs.CumulativeTestPassed);
     }
 
-    private static void SearchSide(double[] flows, double from, double to, int bound, bool zeroIsRoot, List<double> roots)
+    private static void SearchSide(double[] flows, double from, double to, int bound, bool zeroIsRoot, FlowSigns signs, List<double> roots)
     {
-        double Worth(double i) => FlowWorth.NormalizedWorth(flows, i);
-
         if (bound == 1)
         {
-            // At most one root here, and a single root must cross: compare the ends, stepping off a root at zero.
-            double a = from == 0.0 && zeroIsRoot ? 1e-9 : from;
-            double b = to == 0.0 && zeroIsRoot ? -1e-9 : to;
-            if (a < b && Math.Sign(Worth(a)) * Math.Sign(Worth(b)) < 0)
+            // At most one root here, and a single root must cross: it is found exactly when the worth differs in sign
+            // between the ends. The worth at i = 0 is the plain total; a root at zero is stepped off.
+            bool positiveSide = from >= 0.0;
+            double zeroEnd = positiveSide ? (zeroIsRoot ? 1e-9 : 0.0) : (zeroIsRoot ? -1e-9 : 0.0);
+            double farEnd = positiveSide ? to : from;
+            double? worthAtZero = zeroIsRoot ? null : signs.Total;
+            double guess = Math.Exp(Math.Log(signs.Receipts / signs.Payments) / signs.MeanTimeGap) - 1.0;
+            if (Math.Abs(farEnd - zeroEnd) > 0.0 && SafeguardedNewton.TryFindRoot(flows, zeroEnd, worthAtZero, farEnd, guess, out double root))
             {
-                roots.Add(Refine(Worth, a, b));
+                roots.Add(root);
             }
             return;
         }
+
+        double Worth(double i) => FlowWorth.NormalizedWorth(flows, i);
 
         double[] grid = Grid(from, to);
         double previousRate = grid[0];
@@ -165,51 +159,5 @@ public static class RateOfReturnSearch
                 sorted.RemoveAt(k);
             }
         }
-    }
-
-    /// <summary>Sign changes of the flows or of their running sums, from the start or from the end; zeros are skipped.</summary>
-    internal static int SignChanges(ReadOnlySpan<double> flows, bool forward, bool cumulative)
-    {
-        int changes = 0;
-        int lastSign = 0;
-        double running = 0.0;
-        double gross = 0.0;
-        foreach (double f in flows)
-        {
-            gross += Math.Abs(f);
-        }
-        double negligible = 1e-12 * gross;
-        for (int k = 0; k < flows.Length; k++)
-        {
-            double f = flows[forward ? k : flows.Length - 1 - k];
-            running = cumulative ? running + f : f;
-            int sign = Math.Abs(running) <= negligible ? 0 : Math.Sign(running);
-            if (sign == 0)
-            {
-                continue;
-            }
-            if (lastSign != 0 && sign != lastSign)
-            {
-                changes++;
-            }
-            lastSign = sign;
-        }
-        return changes;
-    }
-
-    /// <summary>Norström (1972): cumulative flows that start negative, change sign once and end non-zero.</summary>
-    private static bool CumulativeTest(ReadOnlySpan<double> flows)
-    {
-        double running = 0.0;
-        int first = 0;
-        foreach (double f in flows)
-        {
-            running += f;
-            if (first == 0 && running != 0.0)
-            {
-                first = Math.Sign(running);
-            }
-        }
-        return first < 0 && running != 0.0 && SignChanges(flows, forward: true, cumulative: true) == 1;
     }
 }

@@ -1,0 +1,96 @@
+using System.Globalization;
+using System.Net.Http.Headers;
+using System.Text;
+using System.Text.Json;
+using System.Text.RegularExpressions;
+
+namespace CapReview.Web.Tests.Api;
+
+/// <summary>Every example in docs/api.md is sent to the real app and must get the response the document shows.</summary>
+public sealed partial class DocumentedExamples(ApiFactory factory) : IClassFixture<ApiFactory>
+{
+    public static TheoryData<string> Names()
+    {
+        var names = new TheoryData<string>();
+        foreach (Match m in ExampleMarker().Matches(ApiDocument()))
+        {
+            names.Add(m.Groups[1].Value);
+        }
+        return names;
+    }
+
+    [Theory]
+    [MemberData(nameof(Names))]
+    public async Task Example_gets_the_documented_response(string name)
+    {
+        string document = ApiDocument();
+        int start = document.IndexOf($"<!-- example: {name} -->", StringComparison.Ordinal);
+        Match request = HttpBlock().Match(document, start);
+        Match response = JsonBlock().Match(document, request.Index + request.Length);
+        Assert.True(request.Success && response.Success, $"example {name} needs an http block and a json block");
+
+        string[] lines = request.Groups[1].Value.Split('\n');
+        string[] requestLine = lines[0].Split(' ');
+        string body = request.Groups[1].Value[(request.Groups[1].Value.IndexOf("\n\n", StringComparison.Ordinal) + 2)..];
+
+        using HttpClient client = factory.CreateClient();
+        using var content = new StringContent(body, Encoding.UTF8);
+        content.Headers.ContentType = new MediaTypeHeaderValue("application/json");
+        using var message = new HttpRequestMessage(new HttpMethod(requestLine[0]), requestLine[1]) { Content = content };
+        using HttpResponseMessage actual = await client.SendAsync(message);
+
+        JsonElement expected = JsonDocument.Parse(response.Groups[1].Value).RootElement;
+        int status = expected.TryGetProperty("status", out JsonElement s) ? s.GetInt32() : 200;
+        Assert.Equal(status, (int)actual.StatusCode);
+        JsonElement got = JsonDocument.Parse(await actual.Content.ReadAsStringAsync()).RootElement;
+        AssertMatches(expected, got, "$");
+    }
+
+    private static void AssertMatches(JsonElement expected, JsonElement actual, string path)
+    {
+        switch (expected.ValueKind)
+        {
+            case JsonValueKind.Object:
+                foreach (JsonProperty property in expected.EnumerateObject())
+                {
+                    Assert.True(actual.TryGetProperty(property.Name, out JsonElement value), $"{path}.{property.Name} is missing");
+                    AssertMatches(property.Value, value, $"{path}.{property.Name}");
+                }
+                break;
+            case JsonValueKind.Array:
+                Assert.Equal(expected.GetArrayLength(), actual.GetArrayLength());
+                for (int k = 0; k < expected.GetArrayLength(); k++)
+                {
+                    AssertMatches(expected[k], actual[k], $"{path}[{k}]");
+                }
+                break;
+            case JsonValueKind.Number:
+                double e = expected.GetDouble(), a = actual.GetDouble();
+                Assert.True(Math.Abs(e - a) <= 1e-9 * Math.Max(1.0, Math.Abs(e)), string.Create(CultureInfo.InvariantCulture, $"{path}: documented {e:R}, got {a:R}"));
+                break;
+            default:
+                Assert.Equal(expected.ToString(), actual.ToString());
+                break;
+        }
+    }
+
+    private static string ApiDocument()
+    {
+        var folder = new DirectoryInfo(AppContext.BaseDirectory);
+        while (folder is not null && !File.Exists(Path.Combine(folder.FullName, "CapReview.sln")))
+        {
+            folder = folder.Parent;
+        }
+        Assert.NotNull(folder);
+        return File.ReadAllText(Path.Combine(folder.FullName, "docs", "api.md")).Replace("\r\n", "\n", StringComparison.Ordinal);
+    }
+
+    [GeneratedRegex(@"<!-- example: ([\w-]+) -->")]
+    private static partial Regex ExampleMarker();
+
+    [GeneratedRegex(@"```http\n(.*?)\n```", RegexOptions.Singleline)]
+    private static partial Regex HttpBlock();
+
+    [GeneratedRegex(@"```json\n(.*?)\n```", RegexOptions.Singleline)]
+    private static partial Regex JsonBlock();
+}
