@@ -8,8 +8,9 @@ namespace CapReview.Engine.Measures;
 /// The range is split at i = 0. On each side the number of roots is bounded by the sign changes of the cumulative
 /// flows (forward for i &gt; 0, from the end for i &lt; 0; Descartes' rule of signs applied to PW(i)/(1 − v), after
 /// Pratt and Hammond, 1979). A side with bound 0 has no root; a side with bound 1 has one exactly when the worth
-/// differs in sign at its ends, found by Brent's method; a side with a larger bound is scanned on a fine grid in
-/// ln(1 + i), and every bracket and every turning point of the worth (where two close roots can hide) is refined.
+/// differs in sign at its ends, found by a safeguarded Halley iteration; a side with a larger bound is scanned on a fine
+/// grid in ln(1 + i), and every bracket and every turning point of the worth (where two close roots can hide) is
+/// refined by Brent's method.
 /// </para>
 /// </summary>
 public static class RateOfReturnSearch
@@ -22,9 +23,14 @@ public static class RateOfReturnSearch
 
     private const double Accuracy = 1e-14;
     private const double ZeroTolerance = 1e-10;
-    private const double FineStep = 0.005;
+    // Grid steps in u = ln(1 + i): 0.0025 for rates between −78% and 348%, 0.01 out to −95% and 1909%, 0.02 beyond.
+    private const double FineStep = 0.0025;
+    private const double FineSpan = 1.5;
+    private const double MiddleStep = 0.01;
+    private const double MiddleSpan = 3.0;
     private const double CoarseStep = 0.02;
-    private const double FineSpan = 0.7;
+    private const int Subdivisions = 3;
+    private const int SplitParts = 8;
 
     /// <summary>Every root in [<paramref name="lowest"/>, <paramref name="highest"/>], as effective rates per period.</summary>
     public static RateOfReturnResult Find(IReadOnlyList<double> netFlows, double lowest, double highest)
@@ -35,42 +41,83 @@ public static class RateOfReturnSearch
             throw new ArgumentOutOfRangeException(nameof(lowest), "The search range must lie above -100% and be non-empty.");
         }
         double[] flows = netFlows as double[] ?? [.. netFlows];
-        var signs = FlowSigns.Of(flows);
-
-        var roots = new List<double>(2);
-        if (signs.FlowChanges > 0)
+        FlowSigns signs = FlowSigns.Of(flows);
+        double[] roots = signs.FlowChanges switch
         {
-            bool zeroIsRoot = Math.Abs(signs.Total) <= ZeroTolerance * signs.Gross;
-            if (zeroIsRoot && lowest <= 0.0 && highest >= 0.0)
-            {
-                roots.Add(0.0);
-            }
-            if (highest > 0.0 && signs.ForwardCumulativeChanges > 0)
-            {
-                SearchSide(flows, Math.Max(lowest, 0.0), highest, signs.ForwardCumulativeChanges, zeroIsRoot, signs, roots);
-            }
-            if (lowest < 0.0 && signs.BackwardCumulativeChanges > 0)
-            {
-                SearchSide(flows, lowest, Math.Min(highest, 0.0), signs.BackwardCumulativeChanges, zeroIsRoot, signs, roots);
-            }
-            roots.Sort();
-            RemoveNearDuplicates(roots);
-        }
+            0 => [],
+            1 => SingleRoot(flows, lowest, highest, signs),
+            _ => EveryRoot(flows, lowest, highest, signs),
+        };
         return new RateOfReturnResult(roots, signs.FlowChanges, signs.ForwardCumulativeChanges, signs.CumulativeTestPassed);
+    }
+
+    /// <summary>
+    /// One sign change: exactly one root above −100% (Descartes). It is positive when the worth at zero has the sign of
+    /// the last flow, which the worth takes as i → −100%, and negative otherwise.
+    /// </summary>
+    private static double[] SingleRoot(double[] flows, double lowest, double highest, FlowSigns signs)
+    {
+        bool zeroIsRoot = Math.Abs(signs.Total) <= ZeroTolerance * signs.Gross;
+        if (zeroIsRoot)
+        {
+            return lowest <= 0.0 && highest >= 0.0 ? [0.0] : [];
+        }
+        bool positive = Math.Sign(signs.Total) == signs.LastSign;
+        if (positive ? highest <= 0.0 : lowest >= 0.0)
+        {
+            return [];
+        }
+        double from = positive ? Math.Max(lowest, 0.0) : lowest;
+        double to = positive ? highest : Math.Min(highest, 0.0);
+        return TryOneSide(flows, from, to, zeroIsRoot: false, signs, out double root) ? [root] : [];
+    }
+
+    private static double[] EveryRoot(double[] flows, double lowest, double highest, FlowSigns signs)
+    {
+        var roots = new List<double>(4);
+        bool zeroIsRoot = Math.Abs(signs.Total) <= ZeroTolerance * signs.Gross;
+        if (zeroIsRoot && lowest <= 0.0 && highest >= 0.0)
+        {
+            roots.Add(0.0);
+        }
+        // Bounds on the roots each side of zero: the sign changes of the running sums from the start (i > 0) and
+        // from the end (i < 0).
+        if (highest > 0.0 && signs.ForwardCumulativeChanges > 0)
+        {
+            SearchSide(flows, Math.Max(lowest, 0.0), highest, signs.ForwardCumulativeChanges, zeroIsRoot, signs, roots);
+        }
+        if (lowest < 0.0 && signs.BackwardCumulativeChanges > 0)
+        {
+            SearchSide(flows, lowest, Math.Min(highest, 0.0), signs.BackwardCumulativeChanges, zeroIsRoot, signs, roots);
+        }
+        roots.Sort();
+        RemoveNearDuplicates(roots);
+        return [.. roots];
+    }
+
+    /// <summary>
+    /// The root on a side of zero that holds at most one, found exactly when the worth differs in sign between the
+    /// side's ends. The worth at i = 0 is the plain total; a root at zero is stepped off.
+    /// </summary>
+    private static bool TryOneSide(double[] flows, double from, double to, bool zeroIsRoot, FlowSigns signs, out double root)
+    {
+        bool positiveSide = from >= 0.0;
+        double zeroEnd = positiveSide ? (zeroIsRoot ? 1e-9 : from) : (zeroIsRoot ? -1e-9 : to);
+        double farEnd = positiveSide ? to : from;
+        double worthAtZero = zeroIsRoot || zeroEnd != 0.0 ? double.NaN : signs.Total;
+        // The sign the worth takes beyond the far end: that of the first flow as i → ∞, of the last as i → −100%.
+        int limitSign = positiveSide ? signs.FirstSign : signs.LastSign;
+        double guess = Math.Exp(Math.Log(signs.Receipts / signs.Payments) / signs.MeanTimeGap) - 1.0;
+        root = double.NaN;
+        return Math.Abs(farEnd - zeroEnd) > 0.0
+            && SafeguardedNewton.TryFindRoot(flows, zeroEnd, worthAtZero, farEnd, limitSign, guess, out root);
     }
 
     private static void SearchSide(double[] flows, double from, double to, int bound, bool zeroIsRoot, FlowSigns signs, List<double> roots)
     {
         if (bound == 1)
         {
-            // At most one root here, and a single root must cross: it is found exactly when the worth differs in sign
-            // between the ends. The worth at i = 0 is the plain total; a root at zero is stepped off.
-            bool positiveSide = from >= 0.0;
-            double zeroEnd = positiveSide ? (zeroIsRoot ? 1e-9 : 0.0) : (zeroIsRoot ? -1e-9 : 0.0);
-            double farEnd = positiveSide ? to : from;
-            double? worthAtZero = zeroIsRoot ? null : signs.Total;
-            double guess = Math.Exp(Math.Log(signs.Receipts / signs.Payments) / signs.MeanTimeGap) - 1.0;
-            if (Math.Abs(farEnd - zeroEnd) > 0.0 && SafeguardedNewton.TryFindRoot(flows, zeroEnd, worthAtZero, farEnd, guess, out double root))
+            if (TryOneSide(flows, from, to, zeroIsRoot, signs, out double root))
             {
                 roots.Add(root);
             }
@@ -80,29 +127,57 @@ public static class RateOfReturnSearch
         double Worth(double i) => FlowWorth.NormalizedWorth(flows, i);
 
         double[] grid = Grid(from, to);
-        double previousRate = grid[0];
-        double previousWorth = Worth(previousRate);
-        double previousSlope = FlowWorth.NormalizedSlope(flows, previousRate);
+        var previous = new Sample(grid[0], Worth(grid[0]), FlowWorth.NormalizedSlope(flows, grid[0]));
+        if (previous.Worth == 0.0)
+        {
+            roots.Add(previous.Rate);
+        }
         for (int k = 1; k < grid.Length; k++)
         {
-            double rate = grid[k];
-            double worth = Worth(rate);
-            double slope = FlowWorth.NormalizedSlope(flows, rate);
-            if (worth == 0.0)
+            var next = new Sample(grid[k], Worth(grid[k]), FlowWorth.NormalizedSlope(flows, grid[k]));
+            ScanInterval(flows, previous, next, Subdivisions, roots);
+            previous = next;
+        }
+    }
+
+    private readonly record struct Sample(double Rate, double Worth, double Slope);
+
+    /// <summary>
+    /// Roots between two samples. Where the slope keeps its sign the worth crosses zero at most once in practice and a
+    /// sign change is refined directly; where the slope changes sign, several roots may hide (two close ones, or three
+    /// around a crossing), so the interval is split and each part scanned again, down to a fixed depth, where a
+    /// turning point without a crossing is refined and tested.
+    /// </summary>
+    private static void ScanInterval(double[] flows, Sample a, Sample b, int depth, List<double> roots)
+    {
+        double Worth(double i) => FlowWorth.NormalizedWorth(flows, i);
+
+        if (b.Worth == 0.0)
+        {
+            roots.Add(b.Rate);
+            return;
+        }
+        bool crosses = Math.Sign(a.Worth) * Math.Sign(b.Worth) < 0;
+        bool turns = Math.Sign(a.Slope) * Math.Sign(b.Slope) < 0;
+        if (turns && depth > 0)
+        {
+            Sample left = a;
+            for (int k = 1; k <= SplitParts; k++)
             {
-                roots.Add(rate);
+                double rate = k == SplitParts ? b.Rate : a.Rate + (b.Rate - a.Rate) * k / SplitParts;
+                Sample right = k == SplitParts ? b : new Sample(rate, Worth(rate), FlowWorth.NormalizedSlope(flows, rate));
+                ScanInterval(flows, left, right, depth - 1, roots);
+                left = right;
             }
-            else if (Math.Sign(previousWorth) * Math.Sign(worth) < 0)
-            {
-                roots.Add(Refine(Worth, previousRate, rate));
-            }
-            else if (Math.Sign(previousSlope) * Math.Sign(slope) < 0)
-            {
-                RefineTurningPoint(flows, previousRate, rate, previousWorth, roots);
-            }
-            previousRate = rate;
-            previousWorth = worth;
-            previousSlope = slope;
+            return;
+        }
+        if (crosses)
+        {
+            roots.Add(Refine(Worth, a.Rate, b.Rate));
+        }
+        else if (turns)
+        {
+            RefineTurningPoint(flows, a.Rate, b.Rate, a.Worth, roots);
         }
     }
 
@@ -140,11 +215,12 @@ public static class RateOfReturnSearch
     {
         double u0 = Math.Log(1.0 + from);
         double u1 = Math.Log(1.0 + to);
-        var points = new List<double>(256) { from };
+        var points = new List<double>(1024) { from };
         double u = u0;
         while (u < u1)
         {
-            u += Math.Abs(u) < FineSpan ? FineStep : CoarseStep;
+            double size = Math.Abs(u);
+            u += size < FineSpan ? FineStep : size < MiddleSpan ? MiddleStep : CoarseStep;
             points.Add(u >= u1 ? to : Math.Exp(u) - 1.0);
         }
         return [.. points];

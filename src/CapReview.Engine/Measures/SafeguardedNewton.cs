@@ -13,14 +13,16 @@ internal static class SafeguardedNewton
     private const int MaxIterations = 100;
 
     /// <summary>
-    /// Searches between <paramref name="zeroEnd"/> (at or next to i = 0, with its worth when already known) and
+    /// Searches between <paramref name="zeroEnd"/> (at or next to i = 0, with its worth when already known, else NaN) and
     /// <paramref name="farEnd"/>, starting from <paramref name="guess"/>; false when the worth keeps one sign.
+    /// <paramref name="limitSign"/> is the sign of the worth beyond the far end; it stands in for the far end's own
+    /// until an iterate reaches the far end, which is then evaluated.
     /// </summary>
-    public static bool TryFindRoot(ReadOnlySpan<double> flows, double zeroEnd, double? worthAtZeroEnd, double farEnd, double guess, out double root)
+    public static bool TryFindRoot(ReadOnlySpan<double> flows, double zeroEnd, double worthAtZeroEnd, double farEnd, int limitSign, double guess, out double root)
     {
         bool present = zeroEnd + farEnd >= 0.0;
         double lo = Math.Min(zeroEnd, farEnd), hi = Math.Max(zeroEnd, farEnd);
-        double fz = worthAtZeroEnd ?? Evaluate(flows, zeroEnd, present).Value;
+        double fz = double.IsNaN(worthAtZeroEnd) ? Evaluate(flows, zeroEnd, present).Value : worthAtZeroEnd;
         root = zeroEnd;
         if (fz == 0.0)
         {
@@ -33,28 +35,25 @@ internal static class SafeguardedNewton
         {
             return true;
         }
-        // The bracket: the zero end and the guess when they differ in sign, else the guess and the far end.
+        // The bracket: the zero end and the guess when they differ in sign, else the guess and the far end, whose sign
+        // is taken as the limit's until checked. With the limit's sign equal to the guess's there is no root here.
         double other = zeroEnd;
+        bool farEndChecked = true;
         if (Math.Sign(w.Value) == Math.Sign(fz))
         {
-            double ff = Evaluate(flows, farEnd, present).Value;
-            root = farEnd;
-            if (ff == 0.0)
-            {
-                return true;
-            }
-            if (Math.Sign(ff) == Math.Sign(w.Value))
+            if (limitSign == Math.Sign(w.Value) || limitSign == 0)
             {
                 return false;
             }
             other = farEnd;
+            farEndChecked = false;
         }
         // Orient so that the worth is negative at `low` and positive at `high`.
         (double low, double high) = w.Value < 0.0 ? (x, other) : (other, x);
         double previousStep = Math.Abs(other - x);
         for (int k = 0; k < MaxIterations; k++)
         {
-            double step = Step(w, x, low, high, previousStep);
+            (double step, bool halley) = Step(w, x, low, high, previousStep);
             bool bisect = double.IsNaN(step);
             if (bisect)
             {
@@ -63,11 +62,19 @@ internal static class SafeguardedNewton
             x -= step;
             double size = Math.Abs(step);
             double scale = Math.Max(1.0, Math.Abs(x));
-            // After a Halley or Newton step this small, the next one would be below the last bit of x.
-            if (size <= 4e-16 * scale || (!bisect && size <= 1e-8 * scale && size <= 1e-3 * previousStep))
+            // Once the steps shrink at the method's rate, the error left after a step of size s is about s³ (Halley) or
+            // s² (Newton) times a modest constant: below 1e-16 for these sizes, so no further evaluation is needed. A
+            // converged step with a non-zero slope lands on a root. Bisection ending at an unchecked far end needs
+            // that end's sign.
+            if (!bisect && size <= 1e-3 * previousStep && size <= (halley ? 1e-6 : 1e-9) * scale)
             {
                 root = x;
                 return true;
+            }
+            if (size <= 4e-16 * scale)
+            {
+                root = x;
+                return farEndChecked || Math.Sign(Evaluate(flows, farEnd, present).Value) != Math.Sign(fz);
             }
             previousStep = size;
             w = Evaluate(flows, x, present);
@@ -84,33 +91,35 @@ internal static class SafeguardedNewton
             {
                 high = x;
             }
+            farEndChecked |= Math.Sign(w.Value) != Math.Sign(fz);
         }
         root = x;
-        return true;
+        return farEndChecked;
     }
 
-    /// <summary>Halley's step if it stays in the bracket and shrinks it fast enough, else Newton's, else NaN (bisect).</summary>
-    private static double Step(Worth w, double x, double low, double high, double previousStep)
+    /// <summary>
+    /// Halley's step where it agrees with Newton's to within half (near a simple root they agree; near a turning point
+    /// Halley's shrinks to nothing while Newton's does not), else Newton's; NaN (bisect) when the step would leave the
+    /// bracket or not halve the previous one.
+    /// </summary>
+    private static (double Step, bool Halley) Step(Worth w, double x, double low, double high, double previousStep)
     {
         double f = w.Value, d1 = w.Slope, d2 = w.Curvature;
+        if (d1 == 0.0)
+        {
+            return (double.NaN, false);
+        }
+        double newton = f / d1;
+        // A Newton step below the last bit of x means x is the root already, even when x is a bracket end.
+        if (Math.Abs(newton) <= 4e-16 * Math.Max(1.0, Math.Abs(x)))
+        {
+            return (newton, false);
+        }
         double denominator = 2.0 * d1 * d1 - f * d2;
-        if (denominator > 0.0)
-        {
-            double halley = 2.0 * f * d1 / denominator;
-            if (Inside(x - halley, low, high) && Math.Abs(halley) < 0.5 * previousStep)
-            {
-                return halley;
-            }
-        }
-        if (d1 != 0.0)
-        {
-            double newton = f / d1;
-            if (Inside(x - newton, low, high) && Math.Abs(newton) < 0.5 * previousStep)
-            {
-                return newton;
-            }
-        }
-        return double.NaN;
+        double halley = denominator > 0.0 ? 2.0 * f * d1 / denominator : double.NaN;
+        bool useHalley = Math.Abs(halley - newton) <= 0.5 * Math.Abs(newton);
+        double step = useHalley ? halley : newton;
+        return Inside(x - step, low, high) && Math.Abs(step) < 0.5 * previousStep ? (step, useHalley) : (double.NaN, false);
     }
 
     private static bool Inside(double x, double low, double high) => x > Math.Min(low, high) && x < Math.Max(low, high);
@@ -142,17 +151,38 @@ internal static class SafeguardedNewton
         int n = flows.Length - 1;
         double w = z * z;
         double e = 0.0, e1 = 0.0, e2 = 0.0, o = 0.0, o1 = 0.0, o2 = 0.0;
-        for (int m = n / 2; m >= 0; m--)
+        // With n even the top coefficient is even and has no odd partner: it starts the even chain.
+        int m = n / 2;
+        if (n % 2 == 0)
         {
-            int k = 2 * m;
-            double ce = reversed ? flows[n - k] : flows[k];
-            double co = k < n ? (reversed ? flows[n - k - 1] : flows[k + 1]) : 0.0;
-            e2 = Math.FusedMultiplyAdd(e2, w, e1);
-            o2 = Math.FusedMultiplyAdd(o2, w, o1);
-            e1 = Math.FusedMultiplyAdd(e1, w, e);
-            o1 = Math.FusedMultiplyAdd(o1, w, o);
-            e = Math.FusedMultiplyAdd(e, w, ce);
-            o = Math.FusedMultiplyAdd(o, w, co);
+            e = reversed ? flows[0] : flows[n];
+            m--;
+        }
+        if (reversed)
+        {
+            for (; m >= 0; m--)
+            {
+                int k = n - 2 * m;
+                e2 = Math.FusedMultiplyAdd(e2, w, e1);
+                o2 = Math.FusedMultiplyAdd(o2, w, o1);
+                e1 = Math.FusedMultiplyAdd(e1, w, e);
+                o1 = Math.FusedMultiplyAdd(o1, w, o);
+                e = Math.FusedMultiplyAdd(e, w, flows[k]);
+                o = Math.FusedMultiplyAdd(o, w, flows[k - 1]);
+            }
+        }
+        else
+        {
+            for (; m >= 0; m--)
+            {
+                int k = 2 * m;
+                e2 = Math.FusedMultiplyAdd(e2, w, e1);
+                o2 = Math.FusedMultiplyAdd(o2, w, o1);
+                e1 = Math.FusedMultiplyAdd(e1, w, e);
+                o1 = Math.FusedMultiplyAdd(o1, w, o);
+                e = Math.FusedMultiplyAdd(e, w, flows[k]);
+                o = Math.FusedMultiplyAdd(o, w, flows[k + 1]);
+            }
         }
         // Horner's second accumulator holds half the second derivative.
         e2 *= 2.0;

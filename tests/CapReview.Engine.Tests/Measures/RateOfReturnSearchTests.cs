@@ -157,15 +157,29 @@ public class RateOfReturnSearchTests
             var result = Find(flows);
             foreach (double root in result.Roots)
             {
+                // Zero to 1e-9 of the gross worth, or to what the rate itself can resolve: near −100% a double holds
+                // 1 + i to about 1e-10, so the worth there is known only to its slope times a few units in the last place.
                 double worth = FlowWorth.ScaledWorth(flows, root);
                 double gross = FlowWorth.ScaledGross(flows, root);
-                if (Math.Abs(worth) > 1e-9 * gross)
+                if (Math.Abs(worth) > 1e-9 * gross + 1e-14 * Math.Abs(ScaledSlope(flows, root)))
                 {
                     return false;
                 }
             }
             return result.Roots.Count <= result.SignChanges;
         }, iter: 2000);
+
+    /// <summary>d/di of the present worth (i ≥ 0) or of the future worth (i &lt; 0), by the power rule.</summary>
+    private static double ScaledSlope(double[] flows, double i)
+    {
+        int n = flows.Length - 1;
+        double slope = 0;
+        for (int t = 0; t <= n; t++)
+        {
+            slope += i >= 0 ? -t * flows[t] * Math.Pow(1 + i, -t - 1) : (n - t) * flows[t] * Math.Pow(1 + i, n - t - 1);
+        }
+        return slope;
+    }
 
     [Fact]
     public void Every_root_of_a_polynomial_built_from_known_roots_is_found() =>
