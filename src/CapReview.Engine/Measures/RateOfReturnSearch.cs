@@ -21,8 +21,12 @@ public static class RateOfReturnSearch
     /// <summary>Highest annual rate searched: 1000%.</summary>
     public const double HighestAnnual = 10.0;
 
-    private const double Accuracy = 1e-14;
+    private const double FunctionAccuracy = 1e-300;
     private const double ZeroTolerance = 1e-10;
+
+    // A turning point counts as a double root only when the normalized worth there is zero to rounding, about
+    // 64 ε per term: two distinct roots a hair apart dip further than that.
+    private const double TouchTolerance = 1.4e-14;
     // Grid steps in u = ln(1 + i): 0.0025 for rates between −78% and 348%, 0.01 out to −95% and 1909%, 0.02 beyond.
     private const double FineStep = 0.0025;
     private const double FineSpan = 1.5;
@@ -194,20 +198,47 @@ public static class RateOfReturnSearch
             roots.Add(Refine(Worth, a, turn));
             roots.Add(Refine(Worth, turn, b));
         }
-        else if (Math.Abs(worthAtTurn) <= ZeroTolerance)
+        else if (Math.Abs(worthAtTurn) <= TouchTolerance * flows.Length)
         {
             roots.Add(turn);
         }
     }
 
+    /// <summary>
+    /// Brent's method to the last bit of the rate. Its test on |f| is set below any worth that is not exactly zero,
+    /// because near a cluster of roots the normalized worth is tiny over a wide span of rates.
+    /// </summary>
     private static double Refine(Func<double, double> f, double a, double b)
     {
-        if (Brent.TryFindRoot(f, a, b, Accuracy, 200, out double root))
+        if (Brent.TryFindRoot(f, a, b, FunctionAccuracy, 300, out double root))
         {
             return root;
         }
-        // Brent stops when it can no longer shrink the bracket; bisection always ends inside it.
-        return Bisection.FindRoot(f, a, b, Accuracy, 200);
+        // Brent stops when it can no longer shrink the bracket; plain bisection always ends inside it.
+        double fa = f(a);
+        for (int k = 0; k < 1100; k++)
+        {
+            double mid = 0.5 * (a + b);
+            if (mid <= Math.Min(a, b) || mid >= Math.Max(a, b))
+            {
+                break;
+            }
+            double fm = f(mid);
+            if (fm == 0.0)
+            {
+                return mid;
+            }
+            if (Math.Sign(fm) == Math.Sign(fa))
+            {
+                a = mid;
+                fa = fm;
+            }
+            else
+            {
+                b = mid;
+            }
+        }
+        return 0.5 * (a + b);
     }
 
     /// <summary>Grid points from <paramref name="from"/> to <paramref name="to"/>, evenly spaced in ln(1 + i), finer near zero.</summary>
@@ -226,12 +257,17 @@ public static class RateOfReturnSearch
         return [.. points];
     }
 
+    /// <summary>
+    /// Roots within 1e-7 of each other are one root: a double root whose rounded coefficients split it into two
+    /// crossings a hair apart (or the same root found from two grid intervals). They merge at their midpoint.
+    /// </summary>
     private static void RemoveNearDuplicates(List<double> sorted)
     {
         for (int k = sorted.Count - 1; k > 0; k--)
         {
-            if (sorted[k] - sorted[k - 1] <= 1e-9 * Math.Max(1.0, Math.Abs(sorted[k])))
+            if (sorted[k] - sorted[k - 1] <= 1e-7 * Math.Max(1.0, Math.Abs(sorted[k])))
             {
+                sorted[k - 1] = 0.5 * (sorted[k - 1] + sorted[k]);
                 sorted.RemoveAt(k);
             }
         }
