@@ -85,7 +85,7 @@ public sealed class CashFlowModel
             if (overflow >= 0)
             {
                 errors.Add(new($"elements[{e}].{elements[e].GrowthField}",
-                    $"The series grows beyond ±1,000,000,000,000,000 by period {overflow}; shorten it or lower the {elements[e].GrowthField}."));
+                    $"Grows past ±10¹⁵ by period {overflow}: shorten the series or lower its {elements[e].GrowthField}."));
                 continue;
             }
             for (int t = 0; t <= horizon; t++)

@@ -21,12 +21,12 @@ internal static class ChartStyle
     public static Plotly.Blazor.Layout Layout(string xTitle, string yTitle) => new()
     {
         Height = 300,
-        Margin = new Margin { L = 72, R = 16, T = 12, B = 48 },
+        Margin = new Margin { L = 56, R = 16, T = 12, B = 48 },
         PaperBgColor = "rgba(0,0,0,0)",
         PlotBgColor = "rgba(0,0,0,0)",
         Font = new Font { Family = "Source Sans 3, Segoe UI, Noto Sans, DejaVu Sans, sans-serif", Size = 13, Color = "#27313b" },
         ShowLegend = false,
-        XAxis = [new XAxis { Title = new Plotly.Blazor.LayoutLib.XAxisLib.Title { Text = xTitle }, GridColor = "#e4dfd3", ZeroLineColor = "#9aa3ab" }],
-        YAxis = [new YAxis { Title = new Plotly.Blazor.LayoutLib.YAxisLib.Title { Text = yTitle }, GridColor = "#e4dfd3", ZeroLineColor = "#27313b", ZeroLineWidth = 1.5m, TickFormat = ",.0f" }],
+        XAxis = [new XAxis { Title = new Plotly.Blazor.LayoutLib.XAxisLib.Title { Text = xTitle }, GridColor = "#e4dfd3", ZeroLineColor = "#9aa3ab", AutoMargin = Plotly.Blazor.LayoutLib.XAxisLib.AutoMarginFlag.True }],
+        YAxis = [new YAxis { Title = new Plotly.Blazor.LayoutLib.YAxisLib.Title { Text = yTitle }, GridColor = "#e4dfd3", ZeroLineColor = "#27313b", ZeroLineWidth = 1.5m, TickFormat = ",.0f", AutoMargin = Plotly.Blazor.LayoutLib.YAxisLib.AutoMarginFlag.True }],
     };
 }
