@@ -44,6 +44,18 @@ internal static class BenchmarkModels
         return flows;
     }
 
+    /// <summary>An outlay followed by receipts and payments that alternate in waves: four sign changes, no rate of return.</summary>
+    public static double[] NonConventionalFlows()
+    {
+        double[] flows = new double[Horizon + 1];
+        flows[0] = -1000;
+        for (int t = 1; t <= Horizon; t++)
+        {
+            flows[t] = 150 * Math.Sin(t * 0.3) + 20;
+        }
+        return flows;
+    }
+
     private static ElementSpec Single(string label, CashFlowCategory category, int period, double amount) =>
         new() { Type = ElementKind.Single, Label = label, Category = category, Period = period, Amount = amount };
 

@@ -9,9 +9,14 @@ namespace CapReview.Benchmarks;
 public class RateOfReturnBenchmarks
 {
     private double[][] _cases = [];
+    private double[] _nonConventional = [];
 
     [GlobalSetup]
-    public void Setup() => _cases = [.. Enumerable.Range(1, 16).Select(BenchmarkModels.ConventionalFlows)];
+    public void Setup()
+    {
+        _cases = [.. Enumerable.Range(1, 16).Select(BenchmarkModels.ConventionalFlows)];
+        _nonConventional = BenchmarkModels.NonConventionalFlows();
+    }
 
     [Benchmark(Baseline = true, Description = "Microsoft.VisualBasic.Financial.IRR, 16 conventional cases")]
     public double VisualBasicIrr()
@@ -35,4 +40,7 @@ public class RateOfReturnBenchmarks
         }
         return sum;
     }
+
+    [Benchmark(Description = "RateOfReturnSearch.Find, one non-conventional 40-period case (4 sign changes, full scan)")]
+    public int NonConventional() => RateOfReturnSearch.Find(_nonConventional, RateOfReturnSearch.LowestAnnual, RateOfReturnSearch.HighestAnnual).Roots.Count;
 }
