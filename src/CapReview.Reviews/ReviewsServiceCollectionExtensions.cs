@@ -1,4 +1,9 @@
+using CapReview.Reviews.Audit;
+using CapReview.Reviews.Common;
+using CapReview.Reviews.Cycles;
+using CapReview.Reviews.Marr;
 using CapReview.Reviews.Organisation;
+using CapReview.Reviews.Proposals;
 using CapReview.Reviews.Storage;
 using Microsoft.EntityFrameworkCore;
 using Microsoft.Extensions.DependencyInjection;
@@ -13,6 +18,12 @@ public static class ReviewsServiceCollectionExtensions
         services.AddDbContextFactory<CapReviewDbContext>(options => options.UseSqlite(sqliteConnectionString));
         services.AddSingleton<DatabaseInitializer>();
         services.AddSingleton<OrganisationQueries>();
+        services.AddSingleton(TimeProvider.System);
+        services.AddSingleton<ReviewWork>();
+        services.AddSingleton<AuditTrail>();
+        services.AddSingleton<ProposalService>();
+        services.AddSingleton<MarrPolicyService>();
+        services.AddSingleton<CycleService>();
         return services;
     }
 }

@@ -1,12 +1,63 @@
+using CapReview.Reviews.Audit;
+using CapReview.Reviews.Common;
+using CapReview.Reviews.Cycles;
+using CapReview.Reviews.Marr;
 using CapReview.Reviews.Organisation;
+using CapReview.Reviews.Proposals;
 using Microsoft.EntityFrameworkCore;
+using Microsoft.EntityFrameworkCore.ChangeTracking;
 
 namespace CapReview.Reviews.Storage;
 
-/// <summary>The installation's database. Create one per operation through IDbContextFactory.</summary>
+/// <summary>
+/// The installation's database. Create one per operation through IDbContextFactory. Saving refuses any change to a
+/// frozen proposal version, an audit event or a MARR policy version: those rows are written once.
+/// </summary>
 public sealed class CapReviewDbContext(DbContextOptions<CapReviewDbContext> options) : DbContext(options)
 {
     public DbSet<OrganisationProfile> Organisations => Set<OrganisationProfile>();
+
+    public DbSet<Proposal> Proposals => Set<Proposal>();
+
+    public DbSet<ProposalVersion> ProposalVersions => Set<ProposalVersion>();
+
+    public DbSet<MarrPolicyVersion> MarrPolicyVersions => Set<MarrPolicyVersion>();
+
+    public DbSet<BudgetCycle> BudgetCycles => Set<BudgetCycle>();
+
+    public DbSet<AuditEvent> AuditEvents => Set<AuditEvent>();
+
+    public override int SaveChanges(bool acceptAllChangesOnSuccess)
+    {
+        RefuseChangesToWrittenOnceRows();
+        return base.SaveChanges(acceptAllChangesOnSuccess);
+    }
+
+    public override Task<int> SaveChangesAsync(bool acceptAllChangesOnSuccess, CancellationToken cancellationToken = default)
+    {
+        RefuseChangesToWrittenOnceRows();
+        return base.SaveChangesAsync(acceptAllChangesOnSuccess, cancellationToken);
+    }
+
+    private void RefuseChangesToWrittenOnceRows()
+    {
+        foreach (EntityEntry entry in ChangeTracker.Entries())
+        {
+            if (entry.State is not (EntityState.Modified or EntityState.Deleted))
+            {
+                continue;
+            }
+            switch (entry.Entity)
+            {
+                case ProposalVersion when entry.OriginalValues.GetValue<bool>(nameof(ProposalVersion.IsFrozen)):
+                    throw new RuleViolationException("A submitted version is frozen: it cannot be changed or deleted. Make a new version instead.");
+                case AuditEvent:
+                    throw new RuleViolationException("The audit trail is append-only.");
+                case MarrPolicyVersion:
+                    throw new RuleViolationException("A MARR policy version cannot be changed or deleted; add a new version.");
+            }
+        }
+    }
 
     protected override void OnModelCreating(ModelBuilder modelBuilder)
     {
@@ -18,6 +69,66 @@ public sealed class CapReviewDbContext(DbContextOptions<CapReviewDbContext> opti
             profile.Property(p => p.Name).HasMaxLength(200);
             profile.Property(p => p.CurrencyCode).HasMaxLength(3);
             profile.Property(p => p.CultureName).HasMaxLength(20);
+        });
+
+        modelBuilder.Entity<Proposal>(p =>
+        {
+            p.ToTable("proposal");
+            p.Property(x => x.Reference).HasMaxLength(20);
+            p.HasIndex(x => x.Reference).IsUnique();
+            p.Property(x => x.OwnerId).HasMaxLength(100);
+            p.HasIndex(x => x.OwnerId);
+            p.Property(x => x.Title).HasMaxLength(200);
+            p.Property(x => x.Description).HasMaxLength(4000);
+            p.Property(x => x.Category).HasConversion<string>().HasMaxLength(20);
+            p.Property(x => x.RiskClass).HasConversion<string>().HasMaxLength(20);
+            p.Property(x => x.Status).HasConversion<string>().HasMaxLength(20);
+            p.Property(x => x.Revision).IsConcurrencyToken();
+            p.HasMany(x => x.Versions).WithOne().HasForeignKey(v => v.ProposalId).OnDelete(DeleteBehavior.Restrict);
+            p.HasOne<BudgetCycle>().WithMany().HasForeignKey(x => x.BudgetCycleId).OnDelete(DeleteBehavior.Restrict);
+        });
+
+        modelBuilder.Entity<ProposalVersion>(v =>
+        {
+            v.ToTable("proposal_version");
+            v.HasIndex(x => new { x.ProposalId, x.Number }).IsUnique();
+            v.Property(x => x.AuthorId).HasMaxLength(100);
+            v.Property(x => x.Reason).HasMaxLength(1000);
+            v.Property(x => x.AssumptionsHash).HasMaxLength(64);
+            v.Property(x => x.Revision).IsConcurrencyToken();
+        });
+
+        modelBuilder.Entity<MarrPolicyVersion>(m =>
+        {
+            m.ToTable("marr_policy_version");
+            m.HasIndex(x => x.Number).IsUnique();
+            m.Property(x => x.Basis).HasConversion<string>().HasMaxLength(20);
+            m.Property(x => x.SetBy).HasMaxLength(100);
+            m.Property(x => x.Reason).HasMaxLength(1000);
+        });
+
+        modelBuilder.Entity<BudgetCycle>(c =>
+        {
+            c.ToTable("budget_cycle");
+            c.Property(x => x.Name).HasMaxLength(200);
+            c.HasIndex(x => x.Name).IsUnique();
+            c.Property(x => x.CapitalLimit).HasPrecision(18, 2);
+            c.Property(x => x.Status).HasConversion<string>().HasMaxLength(20);
+            c.Property(x => x.Revision).IsConcurrencyToken();
+            c.HasOne<MarrPolicyVersion>().WithMany().HasForeignKey(x => x.MarrPolicyVersionId).OnDelete(DeleteBehavior.Restrict);
+        });
+
+        modelBuilder.Entity<AuditEvent>(a =>
+        {
+            a.ToTable("audit_event");
+            a.Property(x => x.UserId).HasMaxLength(100);
+            a.Property(x => x.Action).HasMaxLength(60);
+            a.Property(x => x.EntityType).HasMaxLength(60);
+            a.Property(x => x.EntityId).HasMaxLength(60);
+            a.Property(x => x.PreviousHash).HasMaxLength(64);
+            a.Property(x => x.Hash).HasMaxLength(64);
+            // Two events can never share a predecessor: a forked chain fails to save.
+            a.HasIndex(x => x.PreviousHash).IsUnique();
         });
     }
 }

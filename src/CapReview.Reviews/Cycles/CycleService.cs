@@ -1,0 +1,67 @@
+using CapReview.Reviews.Access;
+using CapReview.Reviews.Audit;
+using CapReview.Reviews.Common;
+using Microsoft.EntityFrameworkCore;
+
+namespace CapReview.Reviews.Cycles;
+
+/// <summary>Budget cycles: administrators open them, each pinned to one MARR policy version.</summary>
+public sealed class CycleService(ReviewWork work, AuditTrail audit)
+{
+    public Task<BudgetCycle> CreateAsync(Actor actor, NewBudgetCycle cycle, CancellationToken cancellationToken)
+    {
+        ArgumentNullException.ThrowIfNull(actor);
+        ArgumentNullException.ThrowIfNull(cycle);
+        if (!actor.Has(Role.Administrator))
+        {
+            throw new AccessDeniedException("Only an administrator can open a budget cycle.");
+        }
+        if (string.IsNullOrWhiteSpace(cycle.Name) || cycle.Name.Trim().Length > 200)
+        {
+            throw new RuleViolationException("Give the cycle a name of at most 200 characters.");
+        }
+        if (cycle.CapitalLimit <= 0m)
+        {
+            throw new RuleViolationException("The capital limit must be above zero.");
+        }
+        if (cycle.ClosesOn < cycle.OpensOn)
+        {
+            throw new RuleViolationException("The cycle closes before it opens.");
+        }
+        if (cycle.RequiredSignOffs is < 1 or > 20)
+        {
+            throw new RuleViolationException("A cycle's decision needs between 1 and 20 sign-offs.");
+        }
+        return work.RunAsync(async db =>
+        {
+            if (!await db.MarrPolicyVersions.AnyAsync(m => m.Id == cycle.MarrPolicyVersionId, cancellationToken).ConfigureAwait(false))
+            {
+                throw new NotFoundException("There is no such MARR policy version.");
+            }
+            if (await db.BudgetCycles.AnyAsync(c => c.Name == cycle.Name.Trim(), cancellationToken).ConfigureAwait(false))
+            {
+                throw new RuleViolationException($"There is already a cycle called {cycle.Name.Trim()}.");
+            }
+            var entity = new BudgetCycle
+            {
+                Name = cycle.Name.Trim(),
+                CapitalLimit = cycle.CapitalLimit,
+                MarrPolicyVersionId = cycle.MarrPolicyVersionId,
+                OpensOn = cycle.OpensOn,
+                ClosesOn = cycle.ClosesOn,
+                RequiredSignOffs = cycle.RequiredSignOffs,
+            };
+            db.BudgetCycles.Add(entity);
+            await db.SaveChangesAsync(cancellationToken).ConfigureAwait(false);
+            await audit.AppendAsync(db, actor, "cycle.created", "budget_cycle", entity.Id.ToString(System.Globalization.CultureInfo.InvariantCulture), null, cycle, cancellationToken).ConfigureAwait(false);
+            return entity;
+        }, cancellationToken);
+    }
+
+    public Task<IReadOnlyList<BudgetCycle>> ListAsync(CancellationToken cancellationToken) =>
+        work.ReadAsync<IReadOnlyList<BudgetCycle>>(async db =>
+            await db.BudgetCycles.OrderByDescending(c => c.OpensOn).ToListAsync(cancellationToken).ConfigureAwait(false), cancellationToken);
+}
+
+/// <summary>A new budget cycle as an administrator enters it.</summary>
+public sealed record NewBudgetCycle(string Name, decimal CapitalLimit, int MarrPolicyVersionId, DateOnly OpensOn, DateOnly ClosesOn, int RequiredSignOffs = 2);

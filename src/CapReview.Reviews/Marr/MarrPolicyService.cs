@@ -1,0 +1,71 @@
+using CapReview.Engine.Rates;
+using CapReview.Reviews.Access;
+using CapReview.Reviews.Audit;
+using CapReview.Reviews.Common;
+using Microsoft.EntityFrameworkCore;
+
+namespace CapReview.Reviews.Marr;
+
+/// <summary>The MARR policy: administrators add versions; nothing changes or removes one, so past cycles keep theirs.</summary>
+public sealed class MarrPolicyService(ReviewWork work, AuditTrail audit, TimeProvider clock)
+{
+    public Task<MarrPolicyVersion> AddVersionAsync(Actor actor, NewMarrPolicy policy, CancellationToken cancellationToken)
+    {
+        ArgumentNullException.ThrowIfNull(actor);
+        ArgumentNullException.ThrowIfNull(policy);
+        if (!actor.Has(Role.Administrator))
+        {
+            throw new AccessDeniedException("Only an administrator can set the MARR policy.");
+        }
+        var errors = AnnualRate.Check(policy.Rate, policy.Basis, policy.CompoundingsPerYear, "rate");
+        if (errors.Count > 0)
+        {
+            throw new RuleViolationException(errors[0].Message);
+        }
+        if (new[] { policy.LowRiskPremium, policy.StandardRiskPremium, policy.HighRiskPremium }.Any(p => !double.IsFinite(p) || p < -0.5 || p > 1.0))
+        {
+            throw new RuleViolationException("A risk premium must lie between -50 and +100 percentage points.");
+        }
+        if (string.IsNullOrWhiteSpace(policy.Reason))
+        {
+            throw new RuleViolationException("Say why the MARR is set or changed.");
+        }
+        return work.RunAsync(async db =>
+        {
+            int number = (await db.MarrPolicyVersions.MaxAsync(m => (int?)m.Number, cancellationToken).ConfigureAwait(false) ?? 0) + 1;
+            var version = new MarrPolicyVersion
+            {
+                Number = number,
+                Rate = policy.Rate,
+                Basis = policy.Basis,
+                CompoundingsPerYear = policy.Basis == RateBasis.Nominal ? policy.CompoundingsPerYear : 1,
+                EffectiveFrom = policy.EffectiveFrom,
+                LowRiskPremium = policy.LowRiskPremium,
+                StandardRiskPremium = policy.StandardRiskPremium,
+                HighRiskPremium = policy.HighRiskPremium,
+                SetBy = actor.UserId,
+                Reason = policy.Reason.Trim(),
+                CreatedAt = clock.GetUtcNow(),
+            };
+            db.MarrPolicyVersions.Add(version);
+            await db.SaveChangesAsync(cancellationToken).ConfigureAwait(false);
+            await audit.AppendAsync(db, actor, "marr.version-added", "marr_policy", number.ToString(System.Globalization.CultureInfo.InvariantCulture), null, policy, cancellationToken).ConfigureAwait(false);
+            return version;
+        }, cancellationToken);
+    }
+
+    public Task<IReadOnlyList<MarrPolicyVersion>> ListAsync(CancellationToken cancellationToken) =>
+        work.ReadAsync<IReadOnlyList<MarrPolicyVersion>>(async db =>
+            await db.MarrPolicyVersions.OrderBy(m => m.Number).ToListAsync(cancellationToken).ConfigureAwait(false), cancellationToken);
+}
+
+/// <summary>A new MARR policy version as an administrator enters it.</summary>
+public sealed record NewMarrPolicy(
+    double Rate,
+    RateBasis Basis,
+    int CompoundingsPerYear,
+    DateOnly EffectiveFrom,
+    string Reason,
+    double LowRiskPremium = 0.0,
+    double StandardRiskPremium = 0.0,
+    double HighRiskPremium = 0.0);

@@ -1,0 +1,30 @@
+namespace CapReview.Reviews.Proposals;
+
+/// <summary>A proposal as the services hand it out: a detached snapshot, never a tracked entity.</summary>
+public sealed record ProposalView(
+    int Id,
+    string Reference,
+    string OwnerId,
+    string Title,
+    string Description,
+    ProposalCategory Category,
+    RiskClass RiskClass,
+    ProposalStatus Status,
+    int? BudgetCycleId,
+    int Revision,
+    IReadOnlyList<VersionView> Versions)
+{
+    public VersionView Latest => Versions[^1];
+
+    internal static ProposalView Of(Proposal p) => new(
+        p.Id, p.Reference, p.OwnerId, p.Title, p.Description, p.Category, p.RiskClass, p.Status, p.BudgetCycleId, p.Revision,
+        [.. p.Versions.OrderBy(v => v.Number).Select(VersionView.Of)]);
+}
+
+/// <summary>One version of a proposal's assumptions.</summary>
+public sealed record VersionView(int Number, string AuthorId, DateTimeOffset CreatedAt, string Reason, bool IsFrozen,
+    DateTimeOffset? FrozenAt, string AssumptionsHash, ProposalAssumptions Assumptions)
+{
+    internal static VersionView Of(ProposalVersion v) => new(v.Number, v.AuthorId, v.CreatedAt, v.Reason, v.IsFrozen, v.FrozenAt,
+        v.AssumptionsHash, AssumptionsDocument.Deserialize(v.AssumptionsJson));
+}

@@ -1,0 +1,67 @@
+using CapReview.Reviews.Access;
+using CapReview.Reviews.Common;
+using CapReview.Reviews.Proposals;
+using Microsoft.EntityFrameworkCore;
+using static CapReview.Reviews.Tests.ReviewsDatabase;
+
+namespace CapReview.Reviews.Tests;
+
+public sealed class WorkflowTests(ReviewsDatabase db) : IClassFixture<ReviewsDatabase>
+{
+    public static TheoryData<ProposalStatus, ProposalStatus> EveryPair()
+    {
+        var data = new TheoryData<ProposalStatus, ProposalStatus>();
+        foreach (ProposalStatus from in Enum.GetValues<ProposalStatus>())
+        {
+            foreach (ProposalStatus to in Enum.GetValues<ProposalStatus>())
+            {
+                if (from != to && to != ProposalStatus.Submitted)
+                {
+                    data.Add(from, to);
+                }
+            }
+        }
+        return data;
+    }
+
+    /// <summary>A proposal of the lead's, submitted to a cycle, then put in <paramref name="status"/> directly (test arrangement).</summary>
+    private async Task<ProposalView> ProposalInAsync(ProposalStatus status)
+    {
+        var cycle = await db.OpenCycleAsync($"Workflow {Guid.NewGuid():N}");
+        var draft = await db.Proposals.CreateDraftAsync(Lead, Draft(), CancellationToken.None);
+        await db.Proposals.SubmitAsync(Lead, draft.Id, cycle.Id, draft.Revision, CancellationToken.None);
+        await using var context = db.NewContext();
+        var proposal = await context.Proposals.SingleAsync(p => p.Id == draft.Id);
+        proposal.Status = status;
+        proposal.Revision = 100;
+        await context.SaveChangesAsync();
+        return await db.Proposals.GetAsync(Lead, draft.Id, CancellationToken.None);
+    }
+
+    [Theory]
+    [MemberData(nameof(EveryPair))]
+    public async Task Only_the_allowed_transitions_by_the_allowed_role_succeed(ProposalStatus from, ProposalStatus to)
+    {
+        Role? allowed = ProposalWorkflow.RoleFor(from, to);
+        foreach (Actor actor in new[] { Lead, OtherLead, Reviewer, Finance, Admin })
+        {
+            var proposal = await ProposalInAsync(from);
+            bool permitted = allowed is Role role && actor.Has(role) && (role != Role.ProjectLead || actor == Lead);
+            if (permitted)
+            {
+                var moved = await db.Proposals.TransitionAsync(actor, proposal.Id, to, proposal.Revision, CancellationToken.None);
+                Assert.Equal(to, moved.Status);
+            }
+            else
+            {
+                var error = await Record.ExceptionAsync(() => db.Proposals.TransitionAsync(actor, proposal.Id, to, proposal.Revision, CancellationToken.None));
+                Assert.IsAssignableFrom<ReviewException>(error);
+                Assert.Equal(from, (await db.Proposals.GetAsync(Admin, proposal.Id, CancellationToken.None)).Status);
+            }
+        }
+    }
+
+    [Fact]
+    public void The_table_has_ten_transitions_and_each_pair_once() =>
+        Assert.Equal(10, ProposalWorkflow.Transitions.Select(t => (t.From, t.To)).Distinct().Count());
+}
