@@ -1,0 +1,32 @@
+using CapReview.Engine.Rates;
+using CapReview.Reviews.Proposals;
+using Microsoft.VisualBasic;
+using static CapReview.Reviews.Tests.ReviewsDatabase;
+
+namespace CapReview.Reviews.Tests;
+
+public sealed class VersionComparisonTests(ReviewsDatabase db) : IClassFixture<ReviewsDatabase>
+{
+    [Fact]
+    public async Task Lists_the_changed_fields_and_the_change_in_every_measure()
+    {
+        var cycle = await db.OpenCycleAsync("Compare 2027");
+        var draft = await db.Proposals.CreateDraftAsync(Lead, Draft(), CancellationToken.None);
+        var submitted = await db.Proposals.SubmitAsync(Lead, draft.Id, cycle.Id, draft.Revision, CancellationToken.None);
+        var returned = await db.Proposals.TransitionAsync(Reviewer, draft.Id, ProposalStatus.ReturnedForChanges, submitted.Revision, CancellationToken.None);
+        var revised = await db.Proposals.UpdateDraftAsync(Lead, draft.Id, returned.Revision, Draft(firstCost: -130_000, reason: "Higher quote"), CancellationToken.None);
+
+        var difference = VersionComparison.Compare(revised.Versions[0], revised.Versions[1], AnnualRate.Effective(0.08));
+
+        var change = Assert.Single(difference.Fields);
+        Assert.Equal("model.elements[0].amount", change.Path);
+        Assert.Equal(("-120000", "-130000"), (change.Before, change.After));
+        // The first cost is at period 0, so present worth falls by exactly 10,000 and annual worth by 10,000 (A/P, 8%, 10):
+        // Microsoft.VisualBasic.Financial.Pmt gives the capital-recovery factor.
+        var pw = difference.Measures.Single(m => m.Measure == "Present worth");
+        Assert.Equal(-10_000, pw.Change!.Value, 6);
+        var aw = difference.Measures.Single(m => m.Measure == "Annual worth");
+        Assert.Equal(-10_000 * Financial.Pmt(0.08, 10, -1), aw.Change!.Value, 6);
+        Assert.True(difference.Measures.Single(m => m.Measure == "Rate of return").Change < 0);
+    }
+}
