@@ -1,6 +1,7 @@
 using CapReview.Reviews.Audit;
 using CapReview.Reviews.Common;
 using CapReview.Reviews.Cycles;
+using CapReview.Reviews.Decisions;
 using CapReview.Reviews.Marr;
 using CapReview.Reviews.Organisation;
 using CapReview.Reviews.Proposals;
@@ -24,6 +25,7 @@ public static class ReviewsServiceCollectionExtensions
         services.AddSingleton<ProposalService>();
         services.AddSingleton<MarrPolicyService>();
         services.AddSingleton<CycleService>();
+        services.AddSingleton<DecisionService>();
         return services;
     }
 }

@@ -2,6 +2,7 @@ using CapReview.Engine.CashFlows;
 using CapReview.Engine.Specifications;
 using CapReview.Reviews.Access;
 using CapReview.Reviews.Cycles;
+using CapReview.Reviews.Decisions;
 using CapReview.Reviews.Marr;
 using CapReview.Reviews.Organisation;
 using CapReview.Reviews.Proposals;
@@ -21,6 +22,7 @@ public sealed class ReviewsDatabase : IAsyncLifetime
     public static readonly Actor Lead = Actor.Of("lead-1", "Oskar Lead", Role.ProjectLead);
     public static readonly Actor OtherLead = Actor.Of("lead-2", "Maren Lead", Role.ProjectLead);
     public static readonly Actor Reviewer = Actor.Of("board-1", "Tove Board", Role.Reviewer);
+    public static readonly Actor SecondReviewer = Actor.Of("board-2", "Aino Board", Role.Reviewer);
     public static readonly Actor Finance = Actor.Of("finance-1", "Rui Finance", Role.Finance);
 
     public string ConnectionString => $"Data Source={Path.Combine(_folder, "reviews.db")};Pooling=False";
@@ -30,6 +32,8 @@ public sealed class ReviewsDatabase : IAsyncLifetime
     public MarrPolicyService Marr => _services.GetRequiredService<MarrPolicyService>();
 
     public CycleService Cycles => _services.GetRequiredService<CycleService>();
+
+    public DecisionService Decisions => _services.GetRequiredService<DecisionService>();
 
     public CapReviewDbContext NewContext() => _services.GetRequiredService<IDbContextFactory<CapReviewDbContext>>().CreateDbContext();
 

@@ -1,5 +1,6 @@
 using CapReview.Reviews.Access;
 using CapReview.Reviews.Common;
+using CapReview.Reviews.Decisions;
 using CapReview.Reviews.Proposals;
 using Microsoft.EntityFrameworkCore;
 using static CapReview.Reviews.Tests.ReviewsDatabase;
@@ -42,19 +43,25 @@ public sealed class WorkflowTests(ReviewsDatabase db) : IClassFixture<ReviewsDat
     [MemberData(nameof(EveryPair))]
     public async Task Only_the_allowed_transitions_by_the_allowed_role_succeed(ProposalStatus from, ProposalStatus to)
     {
-        Role? allowed = ProposalWorkflow.RoleFor(from, to);
+        // A decision taken on a submitted proposal passes through review first.
+        bool decision = to is ProposalStatus.Approved or ProposalStatus.Rejected;
+        Role? allowed = ProposalWorkflow.RoleFor(decision && from == ProposalStatus.Submitted ? ProposalStatus.InReview : from, to);
         foreach (Actor actor in new[] { Lead, OtherLead, Reviewer, Finance, Admin })
         {
             var proposal = await ProposalInAsync(from);
             bool permitted = allowed is Role role && actor.Has(role) && (role != Role.ProjectLead || actor == Lead);
+            // Approval and rejection go through the board's decision; every other step through the transition itself.
+            Func<Task> act = decision
+                ? () => db.Decisions.DecideAsync(actor, proposal.Id, to == ProposalStatus.Approved ? DecisionOutcome.Approve : DecisionOutcome.Reject, "", proposal.Revision, CancellationToken.None)
+                : () => db.Proposals.TransitionAsync(actor, proposal.Id, to, proposal.Revision, CancellationToken.None);
             if (permitted)
             {
-                var moved = await db.Proposals.TransitionAsync(actor, proposal.Id, to, proposal.Revision, CancellationToken.None);
-                Assert.Equal(to, moved.Status);
+                await act();
+                Assert.Equal(to, (await db.Proposals.GetAsync(Admin, proposal.Id, CancellationToken.None)).Status);
             }
             else
             {
-                var error = await Record.ExceptionAsync(() => db.Proposals.TransitionAsync(actor, proposal.Id, to, proposal.Revision, CancellationToken.None));
+                var error = await Record.ExceptionAsync(act);
                 Assert.IsAssignableFrom<ReviewException>(error);
                 Assert.Equal(from, (await db.Proposals.GetAsync(Admin, proposal.Id, CancellationToken.None)).Status);
             }

@@ -127,6 +127,10 @@ public sealed class ProposalService(ReviewWork work, AuditTrail audit, TimeProvi
         {
             throw new RuleViolationException("Submit a proposal to a cycle with SubmitAsync.");
         }
+        if (to is ProposalStatus.Approved or ProposalStatus.Rejected)
+        {
+            throw new RuleViolationException("Approval and rejection are the board's decisions: record them with the decision service.");
+        }
         return work.RunAsync(async db =>
         {
             Proposal proposal = await LoadVisibleAsync(db, actor, proposalId, cancellationToken).ConfigureAwait(false);

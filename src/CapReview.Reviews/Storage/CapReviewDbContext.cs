@@ -1,6 +1,7 @@
 using CapReview.Reviews.Audit;
 using CapReview.Reviews.Common;
 using CapReview.Reviews.Cycles;
+using CapReview.Reviews.Decisions;
 using CapReview.Reviews.Marr;
 using CapReview.Reviews.Organisation;
 using CapReview.Reviews.Proposals;
@@ -26,6 +27,10 @@ public sealed class CapReviewDbContext(DbContextOptions<CapReviewDbContext> opti
     public DbSet<BudgetCycle> BudgetCycles => Set<BudgetCycle>();
 
     public DbSet<AuditEvent> AuditEvents => Set<AuditEvent>();
+
+    public DbSet<Decision> Decisions => Set<Decision>();
+
+    public DbSet<SignOff> SignOffs => Set<SignOff>();
 
     public override int SaveChanges(bool acceptAllChangesOnSuccess)
     {
@@ -55,6 +60,8 @@ public sealed class CapReviewDbContext(DbContextOptions<CapReviewDbContext> opti
                     throw new RuleViolationException("The audit trail is append-only.");
                 case MarrPolicyVersion:
                     throw new RuleViolationException("A MARR policy version cannot be changed or deleted; add a new version.");
+                case Decision or SignOff:
+                    throw new RuleViolationException("Decisions and sign-offs are written once: record a new decision instead.");
             }
         }
     }
@@ -116,6 +123,27 @@ public sealed class CapReviewDbContext(DbContextOptions<CapReviewDbContext> opti
             c.Property(x => x.Status).HasConversion<string>().HasMaxLength(20);
             c.Property(x => x.Revision).IsConcurrencyToken();
             c.HasOne<MarrPolicyVersion>().WithMany().HasForeignKey(x => x.MarrPolicyVersionId).OnDelete(DeleteBehavior.Restrict);
+        });
+
+        modelBuilder.Entity<Decision>(d =>
+        {
+            d.ToTable("decision");
+            d.HasIndex(x => x.ProposalId);
+            d.Property(x => x.AssumptionsHash).HasMaxLength(64);
+            d.Property(x => x.Outcome).HasConversion<string>().HasMaxLength(20);
+            d.Property(x => x.Conditions).HasMaxLength(2000);
+            d.Property(x => x.DecidedBy).HasMaxLength(100);
+            d.HasOne<Proposal>().WithMany().HasForeignKey(x => x.ProposalId).OnDelete(DeleteBehavior.Restrict);
+            d.HasOne<BudgetCycle>().WithMany().HasForeignKey(x => x.BudgetCycleId).OnDelete(DeleteBehavior.Restrict);
+        });
+
+        modelBuilder.Entity<SignOff>(s =>
+        {
+            s.ToTable("sign_off");
+            s.HasIndex(x => new { x.BudgetCycleId, x.UserId }).IsUnique();
+            s.Property(x => x.UserId).HasMaxLength(100);
+            s.Property(x => x.DisplayName).HasMaxLength(200);
+            s.HasOne<BudgetCycle>().WithMany().HasForeignKey(x => x.BudgetCycleId).OnDelete(DeleteBehavior.Restrict);
         });
 
         modelBuilder.Entity<AuditEvent>(a =>

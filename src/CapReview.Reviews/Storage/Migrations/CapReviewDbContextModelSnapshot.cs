@@ -116,6 +116,90 @@ namespace CapReview.Reviews.Storage.Migrations
                     b.ToTable("budget_cycle", (string)null);
                 });
 
+            modelBuilder.Entity("CapReview.Reviews.Decisions.Decision", b =>
+                {
+                    b.Property<int>("Id")
+                        .ValueGeneratedOnAdd()
+                        .HasColumnType("INTEGER");
+
+                    b.Property<string>("AssumptionsHash")
+                        .IsRequired()
+                        .HasMaxLength(64)
+                        .HasColumnType("TEXT");
+
+                    b.Property<int>("BudgetCycleId")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<string>("Conditions")
+                        .IsRequired()
+                        .HasMaxLength(2000)
+                        .HasColumnType("TEXT");
+
+                    b.Property<DateTimeOffset>("DecidedAt")
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("DecidedBy")
+                        .IsRequired()
+                        .HasMaxLength(100)
+                        .HasColumnType("TEXT");
+
+                    b.Property<int>("MarrPolicyVersionId")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<string>("Outcome")
+                        .IsRequired()
+                        .HasMaxLength(20)
+                        .HasColumnType("TEXT");
+
+                    b.Property<int>("ProposalId")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<int>("VersionNumber")
+                        .HasColumnType("INTEGER");
+
+                    b.HasKey("Id");
+
+                    b.HasIndex("BudgetCycleId");
+
+                    b.HasIndex("ProposalId");
+
+                    b.ToTable("decision", (string)null);
+                });
+
+            modelBuilder.Entity("CapReview.Reviews.Decisions.SignOff", b =>
+                {
+                    b.Property<int>("Id")
+                        .ValueGeneratedOnAdd()
+                        .HasColumnType("INTEGER");
+
+                    b.Property<int>("BudgetCycleId")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<string>("DecisionsSigned")
+                        .IsRequired()
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("DisplayName")
+                        .IsRequired()
+                        .HasMaxLength(200)
+                        .HasColumnType("TEXT");
+
+                    b.Property<DateTimeOffset>("SignedAt")
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("UserId")
+                        .IsRequired()
+                        .HasMaxLength(100)
+                        .HasColumnType("TEXT");
+
+                    b.HasKey("Id");
+
+                    b.HasIndex("BudgetCycleId", "UserId")
+                        .IsUnique();
+
+                    b.ToTable("sign_off", (string)null);
+                });
+
             modelBuilder.Entity("CapReview.Reviews.Marr.MarrPolicyVersion", b =>
                 {
                     b.Property<int>("Id")
@@ -311,6 +395,30 @@ namespace CapReview.Reviews.Storage.Migrations
                     b.HasOne("CapReview.Reviews.Marr.MarrPolicyVersion", null)
                         .WithMany()
                         .HasForeignKey("MarrPolicyVersionId")
+                        .OnDelete(DeleteBehavior.Restrict)
+                        .IsRequired();
+                });
+
+            modelBuilder.Entity("CapReview.Reviews.Decisions.Decision", b =>
+                {
+                    b.HasOne("CapReview.Reviews.Cycles.BudgetCycle", null)
+                        .WithMany()
+                        .HasForeignKey("BudgetCycleId")
+                        .OnDelete(DeleteBehavior.Restrict)
+                        .IsRequired();
+
+                    b.HasOne("CapReview.Reviews.Proposals.Proposal", null)
+                        .WithMany()
+                        .HasForeignKey("ProposalId")
+                        .OnDelete(DeleteBehavior.Restrict)
+                        .IsRequired();
+                });
+
+            modelBuilder.Entity("CapReview.Reviews.Decisions.SignOff", b =>
+                {
+                    b.HasOne("CapReview.Reviews.Cycles.BudgetCycle", null)
+                        .WithMany()
+                        .HasForeignKey("BudgetCycleId")
                         .OnDelete(DeleteBehavior.Restrict)
                         .IsRequired();
                 });

@@ -1,0 +1,151 @@
+using System.Globalization;
+using System.Text.Json;
+using CapReview.Reviews.Access;
+using CapReview.Reviews.Audit;
+using CapReview.Reviews.Common;
+using CapReview.Reviews.Cycles;
+using CapReview.Reviews.Proposals;
+using CapReview.Reviews.Storage;
+using Microsoft.EntityFrameworkCore;
+
+namespace CapReview.Reviews.Decisions;
+
+/// <summary>
+/// The board's part: deciding each submitted proposal of a cycle on its latest frozen version, and signing off the
+/// cycle once every proposal is decided. With the configured number of sign-offs the cycle is decided.
+/// </summary>
+public sealed class DecisionService(ReviewWork work, AuditTrail audit, TimeProvider clock)
+{
+    public Task<Decision> DecideAsync(Actor actor, int proposalId, DecisionOutcome outcome, string conditions, int expectedRevision, CancellationToken cancellationToken)
+    {
+        ArgumentNullException.ThrowIfNull(actor);
+        RequireBoard(actor);
+        if (!Enum.IsDefined(outcome))
+        {
+            throw new RuleViolationException("Choose approve, return for changes or reject.");
+        }
+        if ((conditions ?? "").Length > 2000)
+        {
+            throw new RuleViolationException("The conditions are longer than 2,000 characters.");
+        }
+        return work.RunAsync(async db =>
+        {
+            Proposal proposal = await db.Proposals.Include(p => p.Versions).SingleOrDefaultAsync(p => p.Id == proposalId, cancellationToken).ConfigureAwait(false)
+                ?? throw new NotFoundException("There is no such proposal.");
+            if (proposal.Status is not (ProposalStatus.Submitted or ProposalStatus.InReview) || proposal.BudgetCycleId is not int cycleId)
+            {
+                throw new RuleViolationException("Only a submitted proposal can be decided.");
+            }
+            BudgetCycle cycle = await db.BudgetCycles.SingleAsync(c => c.Id == cycleId, cancellationToken).ConfigureAwait(false);
+            if (cycle.Status is CycleStatus.Decided or CycleStatus.Closed)
+            {
+                throw new RuleViolationException($"The cycle {cycle.Name} is already decided.");
+            }
+            ProposalVersion version = proposal.Versions.Where(v => v.IsFrozen).OrderBy(v => v.Number).Last();
+            object before = new { proposal.Reference, Status = proposal.Status.ToString() };
+            db.Entry(proposal).Property(p => p.Revision).OriginalValue = expectedRevision;
+            // A decision on a proposal not yet in review passes through review: the workflow's path stays whole.
+            ProposalStatus from = proposal.Status == ProposalStatus.Submitted ? ProposalStatus.InReview : proposal.Status;
+            ProposalStatus to = outcome switch
+            {
+                DecisionOutcome.Approve => ProposalStatus.Approved,
+                DecisionOutcome.Reject => ProposalStatus.Rejected,
+                _ => ProposalStatus.ReturnedForChanges,
+            };
+            if (ProposalWorkflow.RoleFor(from, to) != Role.Reviewer)
+            {
+                throw new RuleViolationException("The workflow does not allow this decision now.");
+            }
+            proposal.Status = to;
+            proposal.Revision++;
+            var decision = new Decision
+            {
+                ProposalId = proposal.Id,
+                BudgetCycleId = cycleId,
+                VersionNumber = version.Number,
+                AssumptionsHash = version.AssumptionsHash,
+                MarrPolicyVersionId = cycle.MarrPolicyVersionId,
+                Outcome = outcome,
+                Conditions = (conditions ?? "").Trim(),
+                DecidedBy = actor.UserId,
+                DecidedAt = clock.GetUtcNow(),
+            };
+            db.Decisions.Add(decision);
+            await db.SaveChangesAsync(cancellationToken).ConfigureAwait(false);
+            await audit.AppendAsync(db, actor, "decision.recorded", "proposal", proposal.Reference, before,
+                new { proposal.Reference, Status = proposal.Status.ToString(), decision.VersionNumber, decision.AssumptionsHash, Outcome = outcome.ToString(), decision.Conditions },
+                cancellationToken).ConfigureAwait(false);
+            return decision;
+        }, cancellationToken);
+    }
+
+    /// <summary>Signs off every decision of the cycle; the last required sign-off makes the cycle decided.</summary>
+    public Task<SignOff> SignOffAsync(Actor actor, int cycleId, CancellationToken cancellationToken)
+    {
+        ArgumentNullException.ThrowIfNull(actor);
+        RequireBoard(actor);
+        return work.RunAsync(async db =>
+        {
+            BudgetCycle cycle = await db.BudgetCycles.SingleOrDefaultAsync(c => c.Id == cycleId, cancellationToken).ConfigureAwait(false)
+                ?? throw new NotFoundException("There is no such budget cycle.");
+            if (cycle.Status is CycleStatus.Decided or CycleStatus.Closed)
+            {
+                throw new RuleViolationException($"The cycle {cycle.Name} is already decided.");
+            }
+            var proposals = await db.Proposals.Where(p => p.BudgetCycleId == cycleId).ToListAsync(cancellationToken).ConfigureAwait(false);
+            var open = proposals.Where(p => p.Status is ProposalStatus.Submitted or ProposalStatus.InReview or ProposalStatus.ReturnedForChanges).ToList();
+            if (proposals.Count == 0 || open.Count > 0)
+            {
+                throw new RuleViolationException(proposals.Count == 0
+                    ? "The cycle has no proposals to sign off."
+                    : $"Decide every proposal first: {string.Join(", ", open.Select(p => p.Reference))} still open.");
+            }
+            if (await db.SignOffs.AnyAsync(s => s.BudgetCycleId == cycleId && s.UserId == actor.UserId, cancellationToken).ConfigureAwait(false))
+            {
+                throw new RuleViolationException("You have already signed off this cycle.");
+            }
+            var ids = proposals.Select(p => p.Id).ToList();
+            var latest = (await db.Decisions.Where(d => ids.Contains(d.ProposalId)).ToListAsync(cancellationToken).ConfigureAwait(false))
+                .GroupBy(d => d.ProposalId).Select(g => g.OrderBy(d => d.Id).Last()).ToList();
+            var signed = latest.Join(proposals, d => d.ProposalId, p => p.Id, (d, p) => new
+            {
+                Proposal = p.Reference,
+                Version = d.VersionNumber,
+                d.AssumptionsHash,
+                Outcome = d.Outcome.ToString(),
+            }).OrderBy(x => x.Proposal, StringComparer.Ordinal).ToArray();
+            var signOff = new SignOff
+            {
+                BudgetCycleId = cycleId,
+                UserId = actor.UserId,
+                DisplayName = actor.DisplayName,
+                SignedAt = clock.GetUtcNow(),
+                DecisionsSigned = JsonSerializer.Serialize(signed),
+            };
+            db.SignOffs.Add(signOff);
+            int count = await db.SignOffs.CountAsync(s => s.BudgetCycleId == cycleId, cancellationToken).ConfigureAwait(false) + 1;
+            string cycleBefore = cycle.Status.ToString();
+            if (count >= cycle.RequiredSignOffs)
+            {
+                cycle.Status = CycleStatus.Decided;
+                cycle.Revision++;
+            }
+            await db.SaveChangesAsync(cancellationToken).ConfigureAwait(false);
+            await audit.AppendAsync(db, actor, "cycle.signed-off", "budget_cycle", cycleId.ToString(CultureInfo.InvariantCulture),
+                new { Status = cycleBefore }, new { Status = cycle.Status.ToString(), SignOffs = count, Decisions = signed }, cancellationToken).ConfigureAwait(false);
+            return signOff;
+        }, cancellationToken);
+    }
+
+    public Task<IReadOnlyList<SignOff>> SignOffsAsync(int cycleId, CancellationToken cancellationToken) =>
+        work.ReadAsync<IReadOnlyList<SignOff>>(async db =>
+            await db.SignOffs.Where(s => s.BudgetCycleId == cycleId).OrderBy(s => s.Id).ToListAsync(cancellationToken).ConfigureAwait(false), cancellationToken);
+
+    private static void RequireBoard(Actor actor)
+    {
+        if (!actor.Has(Role.Reviewer))
+        {
+            throw new AccessDeniedException("Only a board member can decide and sign off.");
+        }
+    }
+}

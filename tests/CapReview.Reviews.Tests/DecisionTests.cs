@@ -1,0 +1,67 @@
+using CapReview.Reviews.Common;
+using CapReview.Reviews.Cycles;
+using CapReview.Reviews.Decisions;
+using CapReview.Reviews.Proposals;
+using Microsoft.EntityFrameworkCore;
+using static CapReview.Reviews.Tests.ReviewsDatabase;
+
+namespace CapReview.Reviews.Tests;
+
+public sealed class DecisionTests(ReviewsDatabase db) : IClassFixture<ReviewsDatabase>
+{
+    private static readonly CancellationToken None = CancellationToken.None;
+
+    [Fact]
+    public async Task A_decision_records_the_version_its_hash_and_the_cycles_marr()
+    {
+        var cycle = await db.OpenCycleAsync("Decide 2027");
+        var draft = await db.Proposals.CreateDraftAsync(Lead, Draft(), None);
+        var submitted = await db.Proposals.SubmitAsync(Lead, draft.Id, cycle.Id, draft.Revision, None);
+        var decision = await db.Decisions.DecideAsync(Reviewer, draft.Id, DecisionOutcome.Approve, "Order before the March price rise", submitted.Revision, None);
+        Assert.Equal(1, decision.VersionNumber);
+        Assert.Equal(submitted.Latest.AssumptionsHash, decision.AssumptionsHash);
+        Assert.Equal(cycle.MarrPolicyVersionId, decision.MarrPolicyVersionId);
+        Assert.Equal(ProposalStatus.Approved, (await db.Proposals.GetAsync(Lead, draft.Id, None)).Status);
+        await Assert.ThrowsAsync<AccessDeniedException>(() => db.Decisions.DecideAsync(Lead, draft.Id, DecisionOutcome.Reject, "", 0, None));
+    }
+
+    [Fact]
+    public async Task The_cycle_is_decided_when_the_required_board_members_have_signed_off()
+    {
+        var cycle = await db.OpenCycleAsync("Sign-off 2027");
+        var one = await db.Proposals.CreateDraftAsync(Lead, Draft(title: "Compressor"), None);
+        var two = await db.Proposals.CreateDraftAsync(OtherLead, Draft(title: "Forklifts"), None);
+        var s1 = await db.Proposals.SubmitAsync(Lead, one.Id, cycle.Id, one.Revision, None);
+        var s2 = await db.Proposals.SubmitAsync(OtherLead, two.Id, cycle.Id, two.Revision, None);
+        await db.Decisions.DecideAsync(Reviewer, one.Id, DecisionOutcome.Approve, "", s1.Revision, None);
+
+        var early = await Assert.ThrowsAsync<RuleViolationException>(() => db.Decisions.SignOffAsync(Reviewer, cycle.Id, None));
+        Assert.Contains(two.Reference, early.Message);
+
+        await db.Decisions.DecideAsync(SecondReviewer, two.Id, DecisionOutcome.Reject, "Hire instead", s2.Revision, None);
+        var first = await db.Decisions.SignOffAsync(Reviewer, cycle.Id, None);
+        Assert.Contains(one.Reference, first.DecisionsSigned);
+        Assert.Contains("\"Outcome\":\"Reject\"", first.DecisionsSigned);
+        await Assert.ThrowsAsync<RuleViolationException>(() => db.Decisions.SignOffAsync(Reviewer, cycle.Id, None));
+        Assert.Equal(CycleStatus.Open, (await db.Cycles.ListAsync(None)).Single(c => c.Id == cycle.Id).Status);
+
+        await db.Decisions.SignOffAsync(SecondReviewer, cycle.Id, None);
+        Assert.Equal(CycleStatus.Decided, (await db.Cycles.ListAsync(None)).Single(c => c.Id == cycle.Id).Status);
+        var signOffs = await db.Decisions.SignOffsAsync(cycle.Id, None);
+        Assert.Equal([Reviewer.UserId, SecondReviewer.UserId], signOffs.Select(s => s.UserId));
+        await Assert.ThrowsAsync<RuleViolationException>(() => db.Decisions.DecideAsync(Reviewer, one.Id, DecisionOutcome.Reject, "", 0, None));
+    }
+
+    [Fact]
+    public async Task Decisions_and_sign_offs_cannot_be_edited()
+    {
+        var cycle = await db.OpenCycleAsync("Written once 2027");
+        var draft = await db.Proposals.CreateDraftAsync(Lead, Draft(), None);
+        var submitted = await db.Proposals.SubmitAsync(Lead, draft.Id, cycle.Id, draft.Revision, None);
+        await db.Decisions.DecideAsync(Reviewer, draft.Id, DecisionOutcome.Approve, "", submitted.Revision, None);
+        await using var context = db.NewContext();
+        var decision = await context.Decisions.SingleAsync(d => d.ProposalId == draft.Id);
+        decision.Outcome = DecisionOutcome.Reject;
+        Assert.Throws<RuleViolationException>(() => context.SaveChanges());
+    }
+}
