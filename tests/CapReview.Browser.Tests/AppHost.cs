@@ -26,6 +26,21 @@ public sealed class AppHost : WebApplicationFactory<Program>
     {
         builder.UseEnvironment("Development");
         builder.UseSetting("ConnectionStrings:CapReview", $"Data Source={Path.Combine(_folder, "capreview.db")};Pooling=False");
+        builder.UseSetting("Demo:Enabled", "false");
+    }
+
+    public const string Password = "browser-tests-2027";
+
+    /// <summary>Creates a user with the given role once; signs in with <see cref="Password"/>.</summary>
+    public async Task<string> UserAsync(string email, string name, string role)
+    {
+        using var scope = Services.CreateScope();
+        var identity = scope.ServiceProvider.GetRequiredService<CapReview.Web.Identity.IdentityStore>();
+        if (await identity.FindByEmailAsync(email) is null)
+        {
+            await identity.CreateUserAsync(email, name, Password, [role]);
+        }
+        return email;
     }
 
     protected override void Dispose(bool disposing)

@@ -7,7 +7,7 @@ public sealed class QuickEvaluationInChromium(BrowserFixture browser) : IClassFi
 {
     private async Task<IPage> OpenAsync()
     {
-        IPage page = await browser.Browser.NewPageAsync();
+        IPage page = await browser.SignedInPageAsync("lena.quick@tarnby.example", "Lena Quick", CapReview.Web.Identity.RoleNames.ProjectLead);
         await page.GotoAsync(browser.App.BaseAddress + "evaluate");
         await page.Locator("[data-testid=interactive]").WaitForAsync(new() { State = WaitForSelectorState.Attached });
         return page;

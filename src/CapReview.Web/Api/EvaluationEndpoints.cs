@@ -20,6 +20,8 @@ public static class EvaluationEndpoints
             .Accepts<ModelSpec>("application/json")
             .Produces<EvaluationResponse>()
             .ProducesValidationProblem()
+            .Produces(StatusCodes.Status401Unauthorized)
+            .RequireAuthorization(Identity.IdentityRegistration.Api)
             .DisableAntiforgery();
         return routes;
     }

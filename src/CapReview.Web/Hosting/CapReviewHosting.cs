@@ -4,6 +4,8 @@ using CapReview.Reviews;
 using CapReview.Reviews.Storage;
 using CapReview.Web.Api;
 using CapReview.Web.Components;
+using CapReview.Web.Demo;
+using CapReview.Web.Identity;
 using CapReview.Web.Formatting;
 using Microsoft.Extensions.Options;
 
@@ -18,7 +20,10 @@ public static class CapReviewHosting
         IServiceCollection services = builder.Services;
         var storage = builder.Configuration.GetSection("Storage").Get<StorageOptions>() ?? new StorageOptions();
         services.Configure<OrganisationOptions>(builder.Configuration.GetSection("Organisation"));
-        services.AddReviews(storage.SqliteConnectionString(builder.Configuration.GetConnectionString("CapReview"), builder.Environment.ContentRootPath));
+        string connection = storage.SqliteConnectionString(builder.Configuration.GetConnectionString("CapReview"), builder.Environment.ContentRootPath);
+        services.AddReviews(connection);
+        services.AddCapReviewIdentity(connection);
+        services.AddScoped<DemoScenario>();
 
         services.AddRazorComponents().AddInteractiveServerComponents();
         services.AddProblemDetails();
@@ -40,7 +45,22 @@ public static class CapReviewHosting
         await app.Services.GetRequiredService<DatabaseInitializer>()
             .InitializeAsync(organisation.ToProfile(), app.Lifetime.ApplicationStopping)
             .ConfigureAwait(false);
+        using IServiceScope scope = app.Services.CreateScope();
+        await scope.ServiceProvider.GetRequiredService<IdentityStore>().InitializeAsync(app.Lifetime.ApplicationStopping).ConfigureAwait(false);
     }
+
+    /// <summary>In demo mode (Demo:Enabled), writes the demo data into an empty database and prints the sign-ins.</summary>
+    public static async Task EnsureDemoAsync(this WebApplication app)
+    {
+        ArgumentNullException.ThrowIfNull(app);
+        if (app.Configuration.GetValue<bool>("Demo:Enabled"))
+        {
+            using IServiceScope scope = app.Services.CreateScope();
+            await scope.ServiceProvider.GetRequiredService<DemoScenario>().EnsureAsync(app.Lifetime.ApplicationStopping).ConfigureAwait(false);
+        }
+    }
+
+    private static bool IsApi(HttpContext context) => IdentityRegistration.IsMachineReadable(context);
 
     public static WebApplication UseCapReview(this WebApplication app)
     {
@@ -49,11 +69,16 @@ public static class CapReviewHosting
         {
             app.UseExceptionHandler("/error", createScopeForErrors: true);
         }
-        app.UseStatusCodePagesWithReExecute("/not-found", createScopeForStatusCodePages: true);
+        // Pages show the not-found page; the API answers its bare status codes with problem details instead.
+        app.UseWhen(IsApi, api => api.UseStatusCodePages());
+        app.UseWhen(context => !IsApi(context), pages => pages.UseStatusCodePagesWithReExecute("/not-found", createScopeForStatusCodePages: true));
+        app.UseAuthentication();
+        app.UseAuthorization();
         app.UseAntiforgery();
         app.MapStaticAssets();
-        app.MapOpenApi("/openapi/{documentName}.json");
+        app.MapOpenApi("/openapi/{documentName}.json").RequireAuthorization(IdentityRegistration.Api);
         app.MapEvaluationEndpoints();
+        app.MapAccountEndpoints();
         app.MapRazorComponents<App>().AddInteractiveServerRenderMode();
         return app;
     }

@@ -1,5 +1,8 @@
+using System.Net.Http.Headers;
+using CapReview.Web.Identity;
 using Microsoft.AspNetCore.Hosting;
 using Microsoft.AspNetCore.Mvc.Testing;
+using Microsoft.Extensions.DependencyInjection;
 
 namespace CapReview.Web.Tests.Api;
 
@@ -14,6 +17,25 @@ public sealed class ApiFactory : WebApplicationFactory<Program>
     {
         builder.UseEnvironment("Development");
         builder.UseSetting("ConnectionStrings:CapReview", $"Data Source={DatabaseFile};Pooling=False");
+        builder.UseSetting("Demo:Enabled", "false");
+    }
+
+    private string? _token;
+
+    /// <summary>A client that sends a personal API token of a project lead created for these tests.</summary>
+    public async Task<HttpClient> CreateAuthenticatedClientAsync()
+    {
+        if (_token is null)
+        {
+            using var scope = Services.CreateScope();
+            var identity = scope.ServiceProvider.GetRequiredService<IdentityStore>();
+            var user = await identity.FindByEmailAsync("api.tests@tarnby.example")
+                ?? await identity.CreateUserAsync("api.tests@tarnby.example", "API Tests", "api-tests-2027", [RoleNames.ProjectLead]);
+            _token = await scope.ServiceProvider.GetRequiredService<ApiTokenService>().IssueAsync(user.Id, "tests", CancellationToken.None);
+        }
+        HttpClient client = CreateClient();
+        client.DefaultRequestHeaders.Authorization = new AuthenticationHeaderValue("Bearer", _token);
+        return client;
     }
 
     protected override void Dispose(bool disposing)

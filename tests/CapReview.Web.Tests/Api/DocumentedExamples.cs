@@ -33,7 +33,8 @@ public sealed partial class DocumentedExamples(ApiFactory factory) : IClassFixtu
         string[] requestLine = lines[0].Split(' ');
         string body = request.Groups[1].Value[(request.Groups[1].Value.IndexOf("\n\n", StringComparison.Ordinal) + 2)..];
 
-        using HttpClient client = factory.CreateClient();
+        // The documented "Authorization: Bearer <your token>" is this test's own token.
+        using HttpClient client = await factory.CreateAuthenticatedClientAsync();
         using var content = new StringContent(body, Encoding.UTF8);
         content.Headers.ContentType = new MediaTypeHeaderValue("application/json");
         using var message = new HttpRequestMessage(new HttpMethod(requestLine[0]), requestLine[1]) { Content = content };

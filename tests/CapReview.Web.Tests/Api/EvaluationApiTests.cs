@@ -21,7 +21,7 @@ public sealed class EvaluationApiTests(ApiFactory factory) : IClassFixture<ApiFa
 
     private async Task<(HttpStatusCode Status, JsonElement Body, string? MediaType)> PostAsync(string json)
     {
-        using HttpClient client = factory.CreateClient();
+        using HttpClient client = await factory.CreateAuthenticatedClientAsync();
         using var content = new StringContent(json, Encoding.UTF8, "application/json");
         using HttpResponseMessage response = await client.PostAsync("/api/v1/evaluations", content);
         string text = await response.Content.ReadAsStringAsync();
@@ -181,7 +181,7 @@ public sealed class EvaluationApiTests(ApiFactory factory) : IClassFixture<ApiFa
     [Fact]
     public async Task Serves_an_OpenAPI_document_describing_the_endpoint()
     {
-        using HttpClient client = factory.CreateClient();
+        using HttpClient client = await factory.CreateAuthenticatedClientAsync();
         var document = await client.GetFromJsonAsync<JsonElement>("/openapi/v1.json");
         JsonElement post = document.GetProperty("paths").GetProperty("/api/v1/evaluations").GetProperty("post");
         Assert.Equal("CreateEvaluation", post.GetProperty("operationId").GetString());
@@ -189,11 +189,40 @@ public sealed class EvaluationApiTests(ApiFactory factory) : IClassFixture<ApiFa
         Assert.True(document.GetProperty("components").GetProperty("schemas").TryGetProperty("EvaluationResponse", out _));
     }
 
+    [Theory]
+    [InlineData(null)]
+    [InlineData("crv_not-a-token")]
+    [InlineData("something-else")]
+    public async Task Without_a_valid_token_the_api_answers_401_with_problem_details(string? token)
+    {
+        using HttpClient client = factory.CreateClient();
+        if (token is not null)
+        {
+            client.DefaultRequestHeaders.Authorization = new System.Net.Http.Headers.AuthenticationHeaderValue("Bearer", token);
+        }
+        client.DefaultRequestHeaders.Accept.ParseAdd("application/json");
+        using var content = new StringContent(Example, Encoding.UTF8, "application/json");
+        using HttpResponseMessage response = await client.PostAsync("/api/v1/evaluations", content);
+        Assert.Equal(HttpStatusCode.Unauthorized, response.StatusCode);
+        Assert.Equal("application/problem+json", response.Content.Headers.ContentType?.MediaType);
+        using HttpResponseMessage document = await client.GetAsync("/openapi/v1.json");
+        Assert.Equal(HttpStatusCode.Unauthorized, document.StatusCode);
+    }
+
+    [Fact]
+    public async Task Pages_that_need_a_sign_in_redirect_to_it()
+    {
+        using HttpClient client = factory.CreateClient(new Microsoft.AspNetCore.Mvc.Testing.WebApplicationFactoryClientOptions { AllowAutoRedirect = false });
+        using HttpResponseMessage page = await client.GetAsync("/evaluate");
+        Assert.Equal(HttpStatusCode.Redirect, page.StatusCode);
+        Assert.StartsWith("/signin", page.Headers.Location!.PathAndQuery, StringComparison.Ordinal);
+    }
+
     [Fact]
     public async Task The_database_is_created_and_migrated_on_first_start()
     {
         using HttpClient client = factory.CreateClient();
-        using HttpResponseMessage page = await client.GetAsync("/evaluate");
+        using HttpResponseMessage page = await client.GetAsync("/signin");
         Assert.Equal(HttpStatusCode.OK, page.StatusCode);
         Assert.True(File.Exists(factory.DatabaseFile));
         string html = await page.Content.ReadAsStringAsync();

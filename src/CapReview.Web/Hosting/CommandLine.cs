@@ -1,0 +1,64 @@
+using CapReview.Web.Identity;
+
+namespace CapReview.Web.Hosting;
+
+/// <summary>
+/// Verbs of the web app for a fresh install, so that automation never needs a browser:
+/// <c>create-admin --email a@b --name "A B" --password …</c> and <c>issue-token --email a@b --token-name ci</c>.
+/// </summary>
+public static class CommandLine
+{
+    private static readonly string[] Verbs = ["create-admin", "issue-token"];
+
+    public static bool Handles(string[] args) => args is [var verb, ..] && Verbs.Contains(verb);
+
+    public static async Task<int> RunAsync(WebApplication app, string[] args)
+    {
+        ArgumentNullException.ThrowIfNull(app);
+        ArgumentNullException.ThrowIfNull(args);
+        var options = Options(args);
+        using var scope = app.Services.CreateScope();
+        var identity = scope.ServiceProvider.GetRequiredService<IdentityStore>();
+        try
+        {
+            switch (args[0])
+            {
+                case "create-admin":
+                    var user = await identity.CreateUserAsync(Required(options, "email"), Required(options, "name"), Required(options, "password"), [RoleNames.Administrator]).ConfigureAwait(false);
+                    await Console.Out.WriteLineAsync($"Administrator {user.Email} created.").ConfigureAwait(false);
+                    return 0;
+                default:
+                    string email = Required(options, "email");
+                    var owner = await identity.FindByEmailAsync(email).ConfigureAwait(false)
+                        ?? throw new InvalidOperationException($"There is no user {email}.");
+                    string token = await scope.ServiceProvider.GetRequiredService<ApiTokenService>()
+                        .IssueAsync(owner.Id, options.GetValueOrDefault("token-name") ?? "command line", CancellationToken.None).ConfigureAwait(false);
+                    await Console.Out.WriteLineAsync(token).ConfigureAwait(false);
+                    return 0;
+            }
+        }
+        catch (InvalidOperationException ex)
+        {
+            await Console.Error.WriteLineAsync($"{args[0]}: {ex.Message}").ConfigureAwait(false);
+            return 2;
+        }
+    }
+
+    private static Dictionary<string, string> Options(string[] args)
+    {
+        var options = new Dictionary<string, string>(StringComparer.Ordinal);
+        for (int k = 1; k + 1 < args.Length; k += 2)
+        {
+            if (args[k].StartsWith("--", StringComparison.Ordinal))
+            {
+                options[args[k][2..]] = args[k + 1];
+            }
+        }
+        return options;
+    }
+
+    private static string Required(Dictionary<string, string> options, string name) =>
+        options.TryGetValue(name, out string? value) && !string.IsNullOrWhiteSpace(value)
+            ? value
+            : throw new InvalidOperationException($"Give --{name}.");
+}

@@ -1,0 +1,31 @@
+using Microsoft.AspNetCore.Identity.EntityFrameworkCore;
+using Microsoft.EntityFrameworkCore;
+
+namespace CapReview.Web.Identity;
+
+/// <summary>
+/// Users, roles and API tokens, in the same database as the domain but in a context and migration history of their
+/// own, so that the domain project knows users only by their ids.
+/// </summary>
+public sealed class CapReviewIdentityDbContext(DbContextOptions<CapReviewIdentityDbContext> options)
+    : IdentityDbContext<CapReviewUser>(options)
+{
+    public const string MigrationsHistoryTable = "__identity_migrations_history";
+
+    public DbSet<ApiToken> ApiTokens => Set<ApiToken>();
+
+    protected override void OnModelCreating(ModelBuilder builder)
+    {
+        base.OnModelCreating(builder);
+        builder.Entity<CapReviewUser>(u => u.Property(x => x.DisplayName).HasMaxLength(200));
+        builder.Entity<ApiToken>(t =>
+        {
+            t.ToTable("api_token");
+            t.Property(x => x.UserId).HasMaxLength(450);
+            t.Property(x => x.Name).HasMaxLength(100);
+            t.Property(x => x.TokenHash).HasMaxLength(64);
+            t.HasIndex(x => x.TokenHash).IsUnique();
+            t.HasOne<CapReviewUser>().WithMany().HasForeignKey(x => x.UserId).OnDelete(DeleteBehavior.Cascade);
+        });
+    }
+}

@@ -1,0 +1,91 @@
+using CapReview.Web.Hosting;
+using Microsoft.AspNetCore.Authentication;
+using Microsoft.AspNetCore.Identity;
+using Microsoft.EntityFrameworkCore;
+
+namespace CapReview.Web.Identity;
+
+/// <summary>
+/// Sign-in for people (Identity cookie) and for automation (personal API tokens), and the policies that guard pages
+/// and endpoints.
+/// </summary>
+public static class IdentityRegistration
+{
+    /// <summary>Pages: a signed-in person.</summary>
+    public const string SignedIn = "signed-in";
+
+    /// <summary>JSON endpoints: a cookie or an API token.</summary>
+    public const string Api = "api";
+
+    public static IServiceCollection AddCapReviewIdentity(this IServiceCollection services, string sqliteConnectionString)
+    {
+        services.AddDbContextFactory<CapReviewIdentityDbContext>(options => options.UseSqlite(sqliteConnectionString,
+            sqlite => sqlite.MigrationsHistoryTable(CapReviewIdentityDbContext.MigrationsHistoryTable)));
+        services.AddIdentityCore<CapReviewUser>(options =>
+            {
+                options.User.RequireUniqueEmail = true;
+                options.Password.RequiredLength = 10;
+                options.Password.RequireNonAlphanumeric = false;
+                options.Password.RequireUppercase = false;
+                options.Lockout.MaxFailedAccessAttempts = 8;
+                options.Lockout.DefaultLockoutTimeSpan = TimeSpan.FromMinutes(10);
+            })
+            .AddRoles<IdentityRole>()
+            .AddEntityFrameworkStores<CapReviewIdentityDbContext>()
+            .AddSignInManager()
+            .AddClaimsPrincipalFactory<DisplayNameClaimsFactory>()
+            .AddDefaultTokenProviders();
+
+        services.AddAuthentication(options =>
+            {
+                options.DefaultScheme = IdentityConstants.ApplicationScheme;
+                options.DefaultSignInScheme = IdentityConstants.ExternalScheme;
+            })
+            .AddIdentityCookies();
+        services.AddAuthentication()
+            .AddScheme<AuthenticationSchemeOptions, ApiTokenAuthenticationHandler>(ApiTokenAuthenticationHandler.SchemeName, null);
+        services.ConfigureApplicationCookie(cookie =>
+        {
+            cookie.Cookie.Name = "capreview";
+            cookie.Cookie.HttpOnly = true;
+            cookie.Cookie.SameSite = SameSiteMode.Strict;
+            cookie.LoginPath = "/signin";
+            cookie.AccessDeniedPath = "/denied";
+            cookie.ExpireTimeSpan = TimeSpan.FromHours(8);
+            cookie.SlidingExpiration = true;
+            // The API answers 401 and 403; only pages redirect to the sign-in form.
+            cookie.Events.OnRedirectToLogin = context => Answer(context, StatusCodes.Status401Unauthorized);
+            cookie.Events.OnRedirectToAccessDenied = context => Answer(context, StatusCodes.Status403Forbidden);
+        });
+        services.AddAuthorizationBuilder()
+            .AddPolicy(SignedIn, policy => policy.RequireAuthenticatedUser())
+            .AddPolicy(Api, policy => policy
+                .AddAuthenticationSchemes(IdentityConstants.ApplicationScheme, ApiTokenAuthenticationHandler.SchemeName)
+                .RequireAuthenticatedUser());
+        services.AddCascadingAuthenticationState();
+        services.AddSingleton<ApiTokenService>();
+        services.AddScoped<IdentityStore>();
+        return services;
+    }
+
+    /// <summary>The JSON API and its OpenAPI document: answered with status codes, never with the sign-in page.</summary>
+    public static bool IsMachineReadable(HttpContext context)
+    {
+        ArgumentNullException.ThrowIfNull(context);
+        return context.Request.Path.StartsWithSegments("/api", StringComparison.OrdinalIgnoreCase)
+            || context.Request.Path.StartsWithSegments("/openapi", StringComparison.OrdinalIgnoreCase);
+    }
+
+    private static Task Answer(Microsoft.AspNetCore.Authentication.RedirectContext<Microsoft.AspNetCore.Authentication.Cookies.CookieAuthenticationOptions> context, int status)
+    {
+        if (IsMachineReadable(context.HttpContext))
+        {
+            context.Response.StatusCode = status;
+        }
+        else
+        {
+            context.Response.Redirect(context.RedirectUri);
+        }
+        return Task.CompletedTask;
+    }
+}
