@@ -58,6 +58,16 @@ public sealed class CycleService(ReviewWork work, AuditTrail audit)
         }, cancellationToken);
     }
 
+    /// <summary>The cycle and the MARR policy version it is pinned to.</summary>
+    public Task<(BudgetCycle Cycle, Marr.MarrPolicyVersion Marr)> GetAsync(int cycleId, CancellationToken cancellationToken) =>
+        work.ReadAsync(async db =>
+        {
+            BudgetCycle cycle = await db.BudgetCycles.SingleOrDefaultAsync(c => c.Id == cycleId, cancellationToken).ConfigureAwait(false)
+                ?? throw new NotFoundException("There is no such budget cycle.");
+            var marr = await db.MarrPolicyVersions.SingleAsync(m => m.Id == cycle.MarrPolicyVersionId, cancellationToken).ConfigureAwait(false);
+            return (cycle, marr);
+        }, cancellationToken);
+
     public Task<IReadOnlyList<BudgetCycle>> ListAsync(CancellationToken cancellationToken) =>
         work.ReadAsync<IReadOnlyList<BudgetCycle>>(async db =>
             await db.BudgetCycles.OrderByDescending(c => c.OpensOn).ToListAsync(cancellationToken).ConfigureAwait(false), cancellationToken);

@@ -160,6 +160,18 @@ public sealed class ProposalService(ReviewWork work, AuditTrail audit, TimeProvi
         }, cancellationToken);
     }
 
+    /// <summary>The proposals submitted to a cycle that the actor may see, by reference.</summary>
+    public Task<IReadOnlyList<ProposalView>> ListInCycleAsync(Actor actor, int cycleId, CancellationToken cancellationToken)
+    {
+        ArgumentNullException.ThrowIfNull(actor);
+        return work.ReadAsync<IReadOnlyList<ProposalView>>(async db =>
+        {
+            var inCycle = await db.Proposals.Include(p => p.Versions).Where(p => p.BudgetCycleId == cycleId)
+                .OrderBy(p => p.Id).ToListAsync(cancellationToken).ConfigureAwait(false);
+            return [.. inCycle.Where(p => ProposalAccess.CanSee(actor, p)).Select(ProposalView.Of)];
+        }, cancellationToken);
+    }
+
     private static async Task<Proposal> LoadVisibleAsync(CapReviewDbContext db, Actor actor, int proposalId, CancellationToken cancellationToken)
     {
         Proposal? proposal = await db.Proposals.Include(p => p.Versions)

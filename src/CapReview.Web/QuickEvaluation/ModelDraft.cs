@@ -22,6 +22,41 @@ public sealed class ModelDraft
 
     public List<ElementDraft> Elements { get; } = [];
 
+    /// <summary>The draft of a stored model, its numbers written in <paramref name="culture"/> as a person would type them.</summary>
+    public static ModelDraft FromSpec(ModelSpec spec, CultureInfo culture, double marrPercent)
+    {
+        ArgumentNullException.ThrowIfNull(spec);
+        string Number(double? value) => value is double v ? v.ToString("0.############", culture) : "";
+        string Whole(int? value) => value?.ToString(culture) ?? "";
+        var draft = new ModelDraft
+        {
+            Horizon = Whole(spec.Horizon),
+            PeriodsPerYear = spec.PeriodsPerYear ?? 1,
+            MarrPercent = Number(marrPercent),
+        };
+        foreach (ElementSpec? e in spec.Elements ?? [])
+        {
+            if (e is null)
+            {
+                continue;
+            }
+            draft.Elements.Add(new ElementDraft
+            {
+                Type = e.Type ?? ElementKind.Single,
+                Label = e.Label ?? "",
+                Category = e.Category ?? CashFlowCategory.Operating,
+                Period = Whole(e.Period ?? 0),
+                First = Whole(e.First ?? 1),
+                Last = Whole(e.Last ?? 1),
+                Every = Whole(e.Every ?? 1),
+                Amount = Number(e.Amount ?? 0),
+                Step = Number(e.Step ?? 0),
+                GrowthPercent = Number((e.Growth ?? 0) * 100),
+            });
+        }
+        return draft;
+    }
+
     public void Move(int index, int offset)
     {
         int target = index + offset;
