@@ -1,0 +1,73 @@
+using CapReview.Engine.Rates;
+using CapReview.Reviews.Access;
+using CapReview.Reviews.Cycles;
+using CapReview.Reviews.Marr;
+using CapReview.Web.Identity;
+using Microsoft.Extensions.DependencyInjection;
+using Microsoft.Playwright;
+
+namespace CapReview.Browser.Tests;
+
+/// <summary>A lead creates and submits a proposal, a board member sees it in the cycle and decides, two board members sign off.</summary>
+public sealed class ReviewFlowInChromium(BrowserFixture browser) : IClassFixture<BrowserFixture>
+{
+    private async Task<int> OpenCycleAsync()
+    {
+        var admin = Actor.Of("setup", "Setup", Role.Administrator);
+        using var scope = browser.App.Services.CreateScope();
+        var marr = await scope.ServiceProvider.GetRequiredService<MarrPolicyService>()
+            .AddVersionAsync(admin, new NewMarrPolicy(0.10, RateBasis.Effective, 1, new DateOnly(2027, 1, 1), "Browser test policy"), CancellationToken.None);
+        var cycle = await scope.ServiceProvider.GetRequiredService<CycleService>()
+            .CreateAsync(admin, new NewBudgetCycle("Browser cycle 2027", 500_000m, marr.Id, new DateOnly(2027, 1, 1), new DateOnly(2027, 3, 31)), CancellationToken.None);
+        return cycle.Id;
+    }
+
+    [Fact]
+    public async Task A_proposal_goes_from_a_leads_draft_to_a_signed_off_decision()
+    {
+        int cycleId = await OpenCycleAsync();
+
+        IPage lead = await browser.SignedInPageAsync("nils.lead@tarnby.example", "Nils Lead", RoleNames.ProjectLead);
+        await lead.GotoAsync(browser.App.BaseAddress + "proposals/new");
+        await lead.Locator("[data-testid=interactive]").WaitForAsync(new() { State = WaitForSelectorState.Attached });
+        await lead.Locator("#title").FillAsync("Paint booth burner retrofit");
+        await lead.Locator("#horizon").FillAsync("8");
+        await lead.Locator("#el-0-amount").FillAsync("-60000");
+        await lead.Locator("#new-element-type").SelectOptionAsync("Uniform");
+        await lead.GetByRole(AriaRole.Button, new() { Name = "Add element" }).ClickAsync();
+        await lead.Locator("#el-1-label").FillAsync("Gas saved");
+        await lead.Locator("#el-1-category").SelectOptionAsync("Revenue");
+        await lead.Locator("#el-1-amount").FillAsync("14000");
+        await lead.GetByRole(AriaRole.Button, new() { Name = "Save draft" }).ClickAsync();
+        await Assertions.Expect(lead.GetByTestId("editor-message")).ToHaveTextAsync("Saved.");
+        await Assertions.Expect(lead.GetByRole(AriaRole.Heading, new() { Level = 1 })).ToContainTextAsync("Paint booth burner retrofit");
+
+        await lead.Locator("#cycle").SelectOptionAsync(cycleId.ToString(System.Globalization.CultureInfo.InvariantCulture));
+        await lead.GetByRole(AriaRole.Button, new() { Name = "Submit", Exact = true }).ClickAsync();
+        await Assertions.Expect(lead.GetByTestId("editor-message")).ToContainTextAsync("Version 1 is now frozen");
+        await BrowserFixture.ScreenshotAsync(lead, "proposal-submitted");
+
+        IPage board = await browser.SignedInPageAsync("ulla.board@tarnby.example", "Ulla Board", RoleNames.Reviewer);
+        await board.GotoAsync(browser.App.BaseAddress + $"cycles/{cycleId}");
+        await board.Locator("[data-testid=interactive]").WaitForAsync(new() { State = WaitForSelectorState.Attached });
+        ILocator row = board.GetByTestId("cycle-row").Filter(new() { HasText = "Paint booth burner retrofit" });
+        await Assertions.Expect(row).ToContainTextAsync("Submitted");
+        // PW = −60,000 + 14,000 (P/A, 10%, 8) = 14,689 (Microsoft.VisualBasic.Financial.PV gives 74,689.05 for the series).
+        await Assertions.Expect(row).ToContainTextAsync("14,689");
+        await row.GetByRole(AriaRole.Textbox).FillAsync("Install during the August shutdown");
+        await row.GetByRole(AriaRole.Button, new() { Name = "Record" }).ClickAsync();
+        await Assertions.Expect(board.GetByTestId("cycle-message")).ToContainTextAsync("recorded");
+        await Assertions.Expect(row).ToContainTextAsync("Approved");
+        await board.GetByRole(AriaRole.Button, new() { Name = "Sign off the cycle's decisions" }).ClickAsync();
+        await Assertions.Expect(board.GetByTestId("cycle-status")).ToContainTextAsync("sign-offs 1 of 2");
+
+        IPage second = await browser.SignedInPageAsync("jon.board@tarnby.example", "Jon Board", RoleNames.Reviewer);
+        await second.GotoAsync(browser.App.BaseAddress + $"cycles/{cycleId}");
+        await second.Locator("[data-testid=interactive]").WaitForAsync(new() { State = WaitForSelectorState.Attached });
+        await second.GetByRole(AriaRole.Button, new() { Name = "Sign off the cycle's decisions" }).ClickAsync();
+        await Assertions.Expect(second.GetByTestId("cycle-status")).ToContainTextAsync("Decided");
+        await Assertions.Expect(second.GetByTestId("sign-offs")).ToContainTextAsync("Ulla Board");
+        await Assertions.Expect(second.GetByTestId("sign-offs")).ToContainTextAsync("Jon Board");
+        await BrowserFixture.ScreenshotAsync(second, "cycle-decided");
+    }
+}
