@@ -22,6 +22,7 @@ public static class ReviewsServiceCollectionExtensions
         services.AddSingleton(TimeProvider.System);
         services.AddSingleton<ReviewWork>();
         services.AddSingleton<AuditTrail>();
+        services.AddSingleton<AuditQueries>();
         services.AddSingleton<ProposalService>();
         services.AddSingleton<MarrPolicyService>();
         services.AddSingleton<CycleService>();

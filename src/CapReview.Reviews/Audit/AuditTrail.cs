@@ -38,6 +38,13 @@ public sealed class AuditTrail(TimeProvider clock)
         await db.SaveChangesAsync(cancellationToken).ConfigureAwait(false);
     }
 
+    /// <summary>The newest events, newest first, for the administrator's audit page.</summary>
+    public static Task<List<AuditEvent>> RecentAsync(CapReviewDbContext db, int count, CancellationToken cancellationToken)
+    {
+        ArgumentNullException.ThrowIfNull(db);
+        return db.AuditEvents.AsNoTracking().OrderByDescending(e => e.Id).Take(count).ToListAsync(cancellationToken);
+    }
+
     /// <summary>Recomputes every hash in order; the first event that does not match its stored hash or link is reported.</summary>
     public static async Task<AuditVerification> VerifyAsync(CapReviewDbContext db, CancellationToken cancellationToken)
     {

@@ -65,6 +65,7 @@ public static class IdentityRegistration
         services.AddCascadingAuthenticationState();
         services.AddSingleton<ApiTokenService>();
         services.AddScoped<IdentityStore>();
+        services.AddSingleton<UserAdministration>();
         return services;
     }
 

@@ -1,0 +1,64 @@
+using CapReview.Reviews.Access;
+using CapReview.Reviews.Common;
+using Microsoft.AspNetCore.Identity;
+using Microsoft.EntityFrameworkCore;
+
+namespace CapReview.Web.Identity;
+
+/// <summary>A user as the administrator sees them.</summary>
+public sealed record UserSummary(string Id, string Email, string DisplayName, IReadOnlyList<string> Roles, bool LockedOut);
+
+/// <summary>
+/// Users and roles for administrators. Each operation runs in a scope of its own, so that no page holds Identity's
+/// DbContext for the life of a circuit.
+/// </summary>
+public sealed class UserAdministration(IServiceScopeFactory scopes)
+{
+    public async Task<IReadOnlyList<UserSummary>> ListAsync(Actor actor, CancellationToken cancellationToken)
+    {
+        Require(actor);
+        using IServiceScope scope = scopes.CreateScope();
+        var users = scope.ServiceProvider.GetRequiredService<UserManager<CapReviewUser>>();
+        var all = await users.Users.OrderBy(u => u.Email).ToListAsync(cancellationToken).ConfigureAwait(false);
+        var result = new List<UserSummary>();
+        foreach (CapReviewUser user in all)
+        {
+            var roles = await users.GetRolesAsync(user).ConfigureAwait(false);
+            result.Add(new UserSummary(user.Id, user.Email ?? "", user.DisplayName, [.. roles.Order(StringComparer.Ordinal)],
+                user.LockoutEnd is { } end && end > DateTimeOffset.UtcNow));
+        }
+        return result;
+    }
+
+    /// <summary>Creates a user with one role; Identity's reasons for refusing (password rules, a taken email) are shown.</summary>
+    public async Task CreateAsync(Actor actor, string email, string displayName, string password, string role)
+    {
+        Require(actor);
+        if (!RoleNames.All.Contains(role))
+        {
+            throw new RuleViolationException("Choose one of the roles.");
+        }
+        if (string.IsNullOrWhiteSpace(displayName))
+        {
+            throw new RuleViolationException("Give the person's name.");
+        }
+        using IServiceScope scope = scopes.CreateScope();
+        try
+        {
+            await scope.ServiceProvider.GetRequiredService<IdentityStore>().CreateUserAsync(email.Trim(), displayName.Trim(), password, [role]).ConfigureAwait(false);
+        }
+        catch (InvalidOperationException ex)
+        {
+            throw new RuleViolationException(ex.Message);
+        }
+    }
+
+    private static void Require(Actor actor)
+    {
+        ArgumentNullException.ThrowIfNull(actor);
+        if (!actor.Has(Role.Administrator))
+        {
+            throw new AccessDeniedException("Only an administrator can manage users.");
+        }
+    }
+}
