@@ -124,4 +124,28 @@ public sealed class ProposalVersionTests(ReviewsDatabase db) : IClassFixture<Rev
         Assert.Equal(expected, draft.Latest.AssumptionsHash);
         Assert.StartsWith("{\"model\":{\"periodsPerYear\":1,\"horizon\":10,\"elements\":[{\"type\":\"single\"", json);
     }
+
+    [Fact]
+    public async Task A_marr_of_its_own_needs_a_reason_and_a_valid_rate()
+    {
+        var withOverride = Draft() with
+        {
+            Assumptions = Draft().Assumptions with { MarrOverride = new MarrOverride(new Engine.Specifications.RateSpec { Value = 0.14 }, "") },
+        };
+        await Assert.ThrowsAsync<RuleViolationException>(() => db.Proposals.CreateDraftAsync(Lead, withOverride, None));
+        var badRate = withOverride with
+        {
+            Assumptions = withOverride.Assumptions with { MarrOverride = new MarrOverride(new Engine.Specifications.RateSpec { Value = -2 }, "Grant terms") },
+        };
+        await Assert.ThrowsAsync<RuleViolationException>(() => db.Proposals.CreateDraftAsync(Lead, badRate, None));
+        var good = withOverride with
+        {
+            Assumptions = withOverride.Assumptions with { MarrOverride = new MarrOverride(new Engine.Specifications.RateSpec { Value = 0.14 }, "Grant terms require 14%") },
+        };
+        var created = await db.Proposals.CreateDraftAsync(Lead, good, None);
+        Assert.Equal("Grant terms require 14%", created.Latest.Assumptions.MarrOverride!.Reason);
+        // Evaluated at its own MARR, not the policy's: PW = −120,000 + 24,000 (P/A, 14%, 10), by Microsoft.VisualBasic.Financial.PV.
+        var evaluation = VersionComparison.Evaluate(created.Latest.Assumptions, Engine.Rates.AnnualRate.Effective(0.08))!;
+        Assert.Equal(-120_000 - Microsoft.VisualBasic.Financial.PV(0.14, 10, 24_000), evaluation.PresentWorth, 6);
+    }
 }

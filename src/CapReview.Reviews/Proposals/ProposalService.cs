@@ -250,6 +250,19 @@ public sealed class ProposalService(ReviewWork work, AuditTrail audit, TimeProvi
         {
             throw new RuleViolationException("Choose a category and a risk class from the lists.");
         }
+        if (draft.Assumptions?.MarrOverride is { } own)
+        {
+            if (string.IsNullOrWhiteSpace(own.Reason))
+            {
+                throw new RuleViolationException("Say why the proposal needs a MARR of its own.");
+            }
+            var rateErrors = CapReview.Engine.Rates.AnnualRate.Check(own.Rate.Value ?? double.NaN,
+                own.Rate.Basis ?? CapReview.Engine.Rates.RateBasis.Effective, own.Rate.CompoundingsPerYear ?? 1, "marrOverride");
+            if (rateErrors.Count > 0)
+            {
+                throw new RuleViolationException("The proposal's own MARR: " + rateErrors[0].Message);
+            }
+        }
     }
 
     private static object Summary(Proposal p) => new
