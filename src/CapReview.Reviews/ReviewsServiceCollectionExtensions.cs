@@ -1,4 +1,5 @@
 using CapReview.Reviews.Audit;
+using CapReview.Reviews.Comments;
 using CapReview.Reviews.Common;
 using CapReview.Reviews.Cycles;
 using CapReview.Reviews.Decisions;
@@ -27,6 +28,7 @@ public static class ReviewsServiceCollectionExtensions
         services.AddSingleton<MarrPolicyService>();
         services.AddSingleton<CycleService>();
         services.AddSingleton<DecisionService>();
+        services.AddSingleton<CommentService>();
         return services;
     }
 }

@@ -35,6 +35,8 @@ public sealed class ReviewsDatabase : IAsyncLifetime
 
     public DecisionService Decisions => _services.GetRequiredService<DecisionService>();
 
+    public Comments.CommentService Comments => _services.GetRequiredService<Comments.CommentService>();
+
     public CapReviewDbContext NewContext() => _services.GetRequiredService<IDbContextFactory<CapReviewDbContext>>().CreateDbContext();
 
     public async Task InitializeAsync()

@@ -58,6 +58,39 @@ public sealed class CycleService(ReviewWork work, AuditTrail audit)
         }, cancellationToken);
     }
 
+    /// <summary>
+    /// An administrator moves a cycle on: an open cycle goes into review (no more submissions), a decided one is closed.
+    /// A cycle becomes decided only through its sign-offs.
+    /// </summary>
+    public Task<BudgetCycle> MoveAsync(Actor actor, int cycleId, CycleStatus to, int expectedRevision, CancellationToken cancellationToken)
+    {
+        ArgumentNullException.ThrowIfNull(actor);
+        if (!actor.Has(Role.Administrator))
+        {
+            throw new AccessDeniedException("Only an administrator can move a cycle on.");
+        }
+        return work.RunAsync(async db =>
+        {
+            BudgetCycle cycle = await db.BudgetCycles.SingleOrDefaultAsync(c => c.Id == cycleId, cancellationToken).ConfigureAwait(false)
+                ?? throw new NotFoundException("There is no such budget cycle.");
+            bool allowed = (cycle.Status, to) is (CycleStatus.Open, CycleStatus.InReview) or (CycleStatus.Decided, CycleStatus.Closed);
+            if (!allowed)
+            {
+                throw new RuleViolationException(to == CycleStatus.Decided
+                    ? "A cycle is decided by its board sign-offs."
+                    : $"A cycle that is {cycle.Status} cannot become {to}.");
+            }
+            string before = cycle.Status.ToString();
+            db.Entry(cycle).Property(c => c.Revision).OriginalValue = expectedRevision;
+            cycle.Status = to;
+            cycle.Revision++;
+            await db.SaveChangesAsync(cancellationToken).ConfigureAwait(false);
+            await audit.AppendAsync(db, actor, "cycle.moved", "budget_cycle", cycle.Id.ToString(System.Globalization.CultureInfo.InvariantCulture),
+                new { Status = before }, new { Status = to.ToString() }, cancellationToken).ConfigureAwait(false);
+            return cycle;
+        }, cancellationToken);
+    }
+
     /// <summary>The cycle and the MARR policy version it is pinned to.</summary>
     public Task<(BudgetCycle Cycle, Marr.MarrPolicyVersion Marr)> GetAsync(int cycleId, CancellationToken cancellationToken) =>
         work.ReadAsync(async db =>

@@ -95,7 +95,13 @@ public sealed class ProposalService(ReviewWork work, AuditTrail audit, TimeProvi
             CheckTransition(actor, proposal, ProposalStatus.Submitted);
             BudgetCycle cycle = await db.BudgetCycles.SingleOrDefaultAsync(c => c.Id == cycleId, cancellationToken).ConfigureAwait(false)
                 ?? throw new NotFoundException("There is no such budget cycle.");
-            if (cycle.Status != CycleStatus.Open)
+            if (proposal.BudgetCycleId is int earlier && earlier != cycle.Id)
+            {
+                throw new RuleViolationException("A proposal returned for changes goes back to the cycle it came from.");
+            }
+            // New proposals only while the cycle is open; a returned one may come back while the board still reviews.
+            bool resubmission = proposal.BudgetCycleId == cycle.Id;
+            if (!(cycle.Status == CycleStatus.Open || (resubmission && cycle.Status == CycleStatus.InReview)))
             {
                 throw new RuleViolationException($"The cycle {cycle.Name} no longer takes proposals.");
             }

@@ -1,4 +1,5 @@
 using CapReview.Reviews.Audit;
+using CapReview.Reviews.Comments;
 using CapReview.Reviews.Common;
 using CapReview.Reviews.Cycles;
 using CapReview.Reviews.Decisions;
@@ -32,6 +33,8 @@ public sealed class CapReviewDbContext(DbContextOptions<CapReviewDbContext> opti
 
     public DbSet<SignOff> SignOffs => Set<SignOff>();
 
+    public DbSet<ProposalComment> Comments => Set<ProposalComment>();
+
     public override int SaveChanges(bool acceptAllChangesOnSuccess)
     {
         RefuseChangesToWrittenOnceRows();
@@ -60,7 +63,7 @@ public sealed class CapReviewDbContext(DbContextOptions<CapReviewDbContext> opti
                     throw new RuleViolationException("The audit trail is append-only.");
                 case MarrPolicyVersion:
                     throw new RuleViolationException("A MARR policy version cannot be changed or deleted; add a new version.");
-                case Decision or SignOff:
+                case Decision or SignOff or ProposalComment:
                     throw new RuleViolationException("Decisions and sign-offs are written once: record a new decision instead.");
             }
         }
@@ -144,6 +147,16 @@ public sealed class CapReviewDbContext(DbContextOptions<CapReviewDbContext> opti
             s.Property(x => x.UserId).HasMaxLength(100);
             s.Property(x => x.DisplayName).HasMaxLength(200);
             s.HasOne<BudgetCycle>().WithMany().HasForeignKey(x => x.BudgetCycleId).OnDelete(DeleteBehavior.Restrict);
+        });
+
+        modelBuilder.Entity<ProposalComment>(c =>
+        {
+            c.ToTable("proposal_comment");
+            c.HasIndex(x => x.ProposalId);
+            c.Property(x => x.AuthorId).HasMaxLength(100);
+            c.Property(x => x.AuthorName).HasMaxLength(200);
+            c.Property(x => x.Text).HasMaxLength(CommentService.MaxLength);
+            c.HasOne<Proposal>().WithMany().HasForeignKey(x => x.ProposalId).OnDelete(DeleteBehavior.Restrict);
         });
 
         modelBuilder.Entity<AuditEvent>(a =>

@@ -70,6 +70,43 @@ namespace CapReview.Reviews.Storage.Migrations
                     b.ToTable("audit_event", (string)null);
                 });
 
+            modelBuilder.Entity("CapReview.Reviews.Comments.ProposalComment", b =>
+                {
+                    b.Property<int>("Id")
+                        .ValueGeneratedOnAdd()
+                        .HasColumnType("INTEGER");
+
+                    b.Property<DateTimeOffset>("At")
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("AuthorId")
+                        .IsRequired()
+                        .HasMaxLength(100)
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("AuthorName")
+                        .IsRequired()
+                        .HasMaxLength(200)
+                        .HasColumnType("TEXT");
+
+                    b.Property<int>("ProposalId")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<string>("Text")
+                        .IsRequired()
+                        .HasMaxLength(2000)
+                        .HasColumnType("TEXT");
+
+                    b.Property<int>("VersionNumber")
+                        .HasColumnType("INTEGER");
+
+                    b.HasKey("Id");
+
+                    b.HasIndex("ProposalId");
+
+                    b.ToTable("proposal_comment", (string)null);
+                });
+
             modelBuilder.Entity("CapReview.Reviews.Cycles.BudgetCycle", b =>
                 {
                     b.Property<int>("Id")
@@ -388,6 +425,15 @@ namespace CapReview.Reviews.Storage.Migrations
                         .IsUnique();
 
                     b.ToTable("proposal_version", (string)null);
+                });
+
+            modelBuilder.Entity("CapReview.Reviews.Comments.ProposalComment", b =>
+                {
+                    b.HasOne("CapReview.Reviews.Proposals.Proposal", null)
+                        .WithMany()
+                        .HasForeignKey("ProposalId")
+                        .OnDelete(DeleteBehavior.Restrict)
+                        .IsRequired();
                 });
 
             modelBuilder.Entity("CapReview.Reviews.Cycles.BudgetCycle", b =>
