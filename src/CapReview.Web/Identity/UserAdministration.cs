@@ -12,7 +12,7 @@ public sealed record UserSummary(string Id, string Email, string DisplayName, IR
 /// Users and roles for administrators. Each operation runs in a scope of its own, so that no page holds Identity's
 /// DbContext for the life of a circuit.
 /// </summary>
-public sealed class UserAdministration(IServiceScopeFactory scopes)
+public sealed class UserAdministration(IServiceScopeFactory scopes, ReviewWork work, CapReview.Reviews.Audit.AuditTrail audit)
 {
     public async Task<IReadOnlyList<UserSummary>> ListAsync(Actor actor, CancellationToken cancellationToken)
     {
@@ -43,14 +43,21 @@ public sealed class UserAdministration(IServiceScopeFactory scopes)
             throw new RuleViolationException("Give the person's name.");
         }
         using IServiceScope scope = scopes.CreateScope();
+        CapReviewUser user;
         try
         {
-            await scope.ServiceProvider.GetRequiredService<IdentityStore>().CreateUserAsync(email.Trim(), displayName.Trim(), password, [role]).ConfigureAwait(false);
+            user = await scope.ServiceProvider.GetRequiredService<IdentityStore>().CreateUserAsync(email.Trim(), displayName.Trim(), password, [role]).ConfigureAwait(false);
         }
         catch (InvalidOperationException ex)
         {
             throw new RuleViolationException(ex.Message);
         }
+        // Who may sign in, and as what, belongs in the same trail as every other change.
+        await work.RunAsync(async db =>
+        {
+            await audit.AppendAsync(db, actor, "user.created", "user", user.Id, null, new { user.Email, user.DisplayName, Role = role }, CancellationToken.None).ConfigureAwait(false);
+            return true;
+        }, CancellationToken.None).ConfigureAwait(false);
     }
 
     private static void Require(Actor actor)
