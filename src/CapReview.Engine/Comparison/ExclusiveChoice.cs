@@ -1,0 +1,145 @@
+using CapReview.Engine.Evaluation;
+using CapReview.Engine.Factors;
+using CapReview.Engine.Measures;
+using CapReview.Engine.Rates;
+
+namespace CapReview.Engine.Comparison;
+
+/// <summary>One step of the incremental analysis: the challenger against the current best, on their difference.</summary>
+/// <param name="Defender">The current best (or "do nothing").</param>
+/// <param name="Challenger">The next alternative in order of first cost.</param>
+/// <param name="ExtraFirstCost">The challenger's first cost less the defender's.</param>
+/// <param name="IncrementalPresentWorth">PW of challenger − defender over the common horizon, at the MARR.</param>
+/// <param name="IncrementalRateOfReturn">The unique rate of return of the difference, annual effective; null when none or several.</param>
+/// <param name="IncrementalRootKind">How many rates of return the difference has.</param>
+/// <param name="IncrementalBenefitCost">ΔB / ΔC from the categories; null when ΔC is not positive.</param>
+/// <param name="ChallengerWins">Whether the extra money is worth spending.</param>
+/// <param name="Reason">Why, in words.</param>
+public sealed record IncrementalStep(
+    string Defender,
+    string Challenger,
+    double ExtraFirstCost,
+    double IncrementalPresentWorth,
+    double? IncrementalRateOfReturn,
+    RateOfReturnKind IncrementalRootKind,
+    double? IncrementalBenefitCost,
+    bool ChallengerWins,
+    string Reason);
+
+/// <summary>The choice among mutually exclusive alternatives, by annual worth and by the incremental analysis.</summary>
+/// <param name="AnnualWorths">Each alternative's annual worth per year over its own life (repeatability).</param>
+/// <param name="BestByAnnualWorth">The alternative with the highest annual worth, or "do nothing".</param>
+/// <param name="CommonHorizon">The least common multiple of the lives, in periods.</param>
+/// <param name="Steps">The incremental comparisons in order of first cost.</param>
+/// <param name="BestByIncrementalAnalysis">What the last winning challenger is; equals <paramref name="BestByAnnualWorth"/>.</param>
+public sealed record ExclusiveDecision(
+    IReadOnlyDictionary<string, double> AnnualWorths,
+    string BestByAnnualWorth,
+    int CommonHorizon,
+    IReadOnlyList<IncrementalStep> Steps,
+    string BestByIncrementalAnalysis);
+
+/// <summary>
+/// Chooses one of a group of mutually exclusive alternatives (or none, unless the group is mandatory). By annual worth
+/// under repeatability, and by the incremental analysis in order of first cost over the lives' common horizon: each
+/// challenger wins when its extra investment earns more than the MARR. The incremental rate of return decides when the
+/// difference is a simple investment (money out first, one sign change, its one root in range); otherwise the
+/// incremental present worth does: the same test whenever both apply. Common practice, no source; see docs/methods.md.
+/// </summary>
+public static class ExclusiveChoice
+{
+    public const string DoNothing = "do nothing";
+
+    public static ExclusiveDecision Decide(IReadOnlyList<Alternative> alternatives, AnnualRate marr, bool mandatory)
+    {
+        ArgumentNullException.ThrowIfNull(alternatives);
+        if (alternatives.Count == 0)
+        {
+            throw new ArgumentException("A group needs at least one alternative.", nameof(alternatives));
+        }
+        int p = alternatives[0].Model.PeriodsPerYear;
+        if (alternatives.Any(a => a.Model.PeriodsPerYear != p))
+        {
+            throw new ArgumentException("Alternatives compared together need the same period length.", nameof(alternatives));
+        }
+        int horizon = CommonHorizon.LeastCommonMultiple(alternatives.Select(a => a.Model.Horizon))
+            ?? throw new ArgumentException("The lives have no common multiple within 1,200 periods: compare over a study period instead.", nameof(alternatives));
+        var options = new EvaluationOptions(marr);
+        double i = marr.EffectivePerPeriod(p);
+
+        var worths = alternatives.ToDictionary(a => a.Name, a => ModelEvaluator.Evaluate(a.Model, options).AnnualWorth);
+        var best = worths.OrderByDescending(w => w.Value).First();
+        string bestByWorth = !mandatory && best.Value < 0.0 ? DoNothing : best.Key;
+
+        var ordered = alternatives.OrderBy(a => a.FirstCost).ThenBy(a => a.Name, StringComparer.Ordinal).ToList();
+        var steps = new List<IncrementalStep>();
+        Candidate defender = mandatory
+            ? Candidate.Of(ordered[0], horizon, i)
+            : new Candidate(DoNothing, 0.0, new double[horizon + 1], 0.0, 0.0);
+        foreach (Alternative next in mandatory ? ordered.Skip(1) : ordered)
+        {
+            Candidate challenger = Candidate.Of(next, horizon, i);
+            IncrementalStep step = Compare(defender, challenger, i, p);
+            steps.Add(step);
+            if (step.ChallengerWins)
+            {
+                defender = challenger;
+            }
+        }
+        return new ExclusiveDecision(worths, bestByWorth, horizon, steps, defender.Name);
+    }
+
+    private static IncrementalStep Compare(Candidate defender, Candidate challenger, double i, int p)
+    {
+        double[] difference = new double[challenger.Flows.Length];
+        for (int t = 0; t < difference.Length; t++)
+        {
+            difference[t] = challenger.Flows[t] - defender.Flows[t];
+        }
+        double deltaPw = FlowWorth.PresentWorth(difference, i);
+        var roots = RateOfReturnSearch.Find(difference,
+            AnnualRate.PeriodFromAnnualEffective(RateOfReturnSearch.LowestAnnual, p),
+            AnnualRate.PeriodFromAnnualEffective(RateOfReturnSearch.HighestAnnual, p));
+        double? deltaRate = roots.UniqueRoot is double r ? AnnualRate.AnnualEffectiveFromPeriod(r, p) : null;
+        double marrAnnual = AnnualRate.AnnualEffectiveFromPeriod(i, p);
+        double deltaBenefits = challenger.Benefits - defender.Benefits;
+        double deltaCosts = challenger.Costs - defender.Costs;
+        double? deltaRatio = deltaCosts > 0.0 ? deltaBenefits / deltaCosts : null;
+
+        // The rate decides only for a simple investment: money out first and one sign change, so that it is the one
+        // root above −100% and the worth is positive below it and negative above. Anything else: ΔPW decides.
+        bool investmentFirst = difference.FirstOrDefault(f => f != 0.0) < 0.0;
+        bool wins;
+        string reason;
+        if (deltaRate is double rate && investmentFirst && roots.SignChanges == 1)
+        {
+            wins = rate > marrAnnual;
+            reason = wins ? "the extra investment earns more than the MARR" : "the extra investment earns less than the MARR";
+        }
+        else
+        {
+            wins = deltaPw > 0.0;
+            reason = roots.Kind == RateOfReturnKind.Several
+                ? "the difference has several rates of return; decided by its present worth"
+                : wins ? "the difference has a positive present worth" : "the difference does not pay at the MARR";
+        }
+        return new IncrementalStep(defender.Name, challenger.Name, challenger.FirstCost - defender.FirstCost, deltaPw,
+            deltaRate, roots.Kind, deltaRatio, wins, reason);
+    }
+
+    private sealed record Candidate(string Name, double FirstCost, double[] Flows, double Benefits, double Costs)
+    {
+        /// <summary>Benefits and costs as the benefit-cost ratio groups them, over the common horizon.</summary>
+        public static Candidate Of(Alternative a, int horizon, double i)
+        {
+            double[] flows = CommonHorizon.Repeat(a.Model.NetFlows, horizon);
+            var ratio = BenefitCostRatio.Compute(a.Model, i);
+            // One life's worths, carried to the common horizon's present by the (P/A) of the renewals.
+            int n = a.Model.Horizon;
+            double renewals = CompoundInterest.UniformSeriesPresentWorth(
+                Numerics.StableMath.Expm1(n * Numerics.StableMath.Log1p(i)), horizon / n) * (1.0 + Numerics.StableMath.Expm1(n * Numerics.StableMath.Log1p(i)));
+            double costs = ratio.CapitalCosts - ratio.Salvage + ratio.OperatingCosts;
+            return new Candidate(a.Name, a.FirstCost, flows, ratio.Benefits * renewals, costs * renewals);
+        }
+    }
+}
