@@ -1,0 +1,58 @@
+using CapReview.Engine.CashFlows;
+using CapReview.Engine.Factors;
+using CapReview.Engine.Measures;
+
+namespace CapReview.Engine.Comparison;
+
+/// <summary>Worth over a board-set study period, with the basis it was computed on.</summary>
+/// <param name="PresentWorth">PW of the flows within the study period plus the value at its end.</param>
+/// <param name="PeriodWorth">The same as an equivalent amount per period over the study period.</param>
+/// <param name="Basis">How the life was fitted to the study period, in words.</param>
+public sealed record StudyPeriodResult(double PresentWorth, double PeriodWorth, string Basis);
+
+/// <summary>
+/// Present worth over a study period of T periods. Shorter than the life: the flows are cut at T and the asset's
+/// estimated market value at T is received then (truncation). Longer: the life is renewed on the same terms as often
+/// as needed and the renewal in service at T is cut there with its stated value (extension). A whole number of lives
+/// needs no stated value.
+/// Common practice, no source; see docs/methods.md.
+/// </summary>
+public static class StudyPeriodWorth
+{
+    public static StudyPeriodResult Compute(CashFlowModel model, double ratePerPeriod, int studyPeriod, double valueAtEnd)
+    {
+        ArgumentNullException.ThrowIfNull(model);
+        int life = model.Horizon;
+        if (studyPeriod < 1 || studyPeriod > CompoundInterest.MaxPeriods)
+        {
+            throw new ArgumentOutOfRangeException(nameof(studyPeriod), studyPeriod, "The study period must be between 1 and 1,200 periods.");
+        }
+        if (!double.IsFinite(valueAtEnd))
+        {
+            throw new ArgumentOutOfRangeException(nameof(valueAtEnd), valueAtEnd, "The value at the end of the study period must be a finite number.");
+        }
+        int covered = (studyPeriod + life - 1) / life * life;
+        if (covered > CompoundInterest.MaxPeriods)
+        {
+            throw new ArgumentOutOfRangeException(nameof(studyPeriod), studyPeriod, "Renewing the life to cover the study period goes beyond 1,200 periods.");
+        }
+        double[] flows = CommonHorizon.Repeat(model.NetFlows, covered);
+        double[] window = new double[studyPeriod + 1];
+        Array.Copy(flows, window, studyPeriod + 1);
+        string basis;
+        if (studyPeriod % life == 0)
+        {
+            // Whole lives end at T with their own salvage: no value needs stating.
+            basis = studyPeriod == life ? "the life itself" : $"{studyPeriod / life} lives of {life} periods, renewed on the same terms";
+        }
+        else
+        {
+            window[studyPeriod] += valueAtEnd;
+            basis = studyPeriod < life
+                ? $"cut at period {studyPeriod} of a {life}-period life, with its market value then"
+                : $"the {life}-period life renewed to cover {studyPeriod} periods, the last renewal valued at its end";
+        }
+        double pw = FlowWorth.PresentWorth(window, ratePerPeriod);
+        return new StudyPeriodResult(pw, pw * CompoundInterest.CapitalRecovery(ratePerPeriod, studyPeriod), basis);
+    }
+}
