@@ -134,10 +134,11 @@ public static class ExclusiveChoice
         {
             double[] flows = CommonHorizon.Repeat(a.Model.NetFlows, horizon);
             var ratio = BenefitCostRatio.Compute(a.Model, i);
-            // One life's worths, carried to the common horizon's present by the (P/A) of the renewals.
+            // One life's worths, carried to the common horizon's present: Σ over renewals j of (1 + i)^(−jn),
+            // that is (1 + i_n)(P/A, i_n, renewals) with i_n the rate per life.
             int n = a.Model.Horizon;
-            double renewals = CompoundInterest.UniformSeriesPresentWorth(
-                Numerics.StableMath.Expm1(n * Numerics.StableMath.Log1p(i)), horizon / n) * (1.0 + Numerics.StableMath.Expm1(n * Numerics.StableMath.Log1p(i)));
+            double perLife = CompoundInterest.SinglePaymentCompoundAmount(i, n) - 1.0;
+            double renewals = CompoundInterest.UniformSeriesPresentWorth(perLife, horizon / n) * (1.0 + perLife);
             double costs = ratio.CapitalCosts - ratio.Salvage + ratio.OperatingCosts;
             return new Candidate(a.Name, a.FirstCost, flows, ratio.Benefits * renewals, costs * renewals);
         }
