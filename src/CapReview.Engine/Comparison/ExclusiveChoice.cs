@@ -137,7 +137,7 @@ public static class ExclusiveChoice
             // One life's worths, carried to the common horizon's present: Σ over renewals j of (1 + i)^(−jn),
             // that is (1 + i_n)(P/A, i_n, renewals) with i_n the rate per life.
             int n = a.Model.Horizon;
-            double perLife = CompoundInterest.SinglePaymentCompoundAmount(i, n) - 1.0;
+            double perLife = Numerics.StableMath.Expm1(n * Numerics.StableMath.Log1p(i));
             double renewals = CompoundInterest.UniformSeriesPresentWorth(perLife, horizon / n) * (1.0 + perLife);
             double costs = ratio.CapitalCosts - ratio.Salvage + ratio.OperatingCosts;
             return new Candidate(a.Name, a.FirstCost, flows, ratio.Benefits * renewals, costs * renewals);
