@@ -3,20 +3,48 @@ using Google.OrTools.Sat;
 namespace CapReview.Engine.Comparison;
 
 /// <summary>A proposal as the selection sees it: its first cost and the worth it adds when funded.</summary>
-public sealed record SelectionCandidate(string Id, double FirstCost, double Worth);
+/// <param name="Id">The proposal's reference.</param>
+/// <param name="FirstCost">Capital committed now (budget year 0).</param>
+/// <param name="Worth">Present or annual worth at the MARR, as the board chose to maximise.</param>
+/// <param name="LaterCapital">Capital it needs in budget years 1, 2, … of a multi-year budget (year 0 is the first cost).</param>
+public sealed record SelectionCandidate(string Id, double FirstCost, double Worth, IReadOnlyList<double>? LaterCapital = null)
+{
+    /// <summary>Capital needed in budget year <paramref name="year"/> (0 = now).</summary>
+    public double CapitalIn(int year) =>
+        year == 0 ? FirstCost : LaterCapital is { } later && year <= later.Count ? later[year - 1] : 0.0;
+}
 
 /// <summary>
-/// Which proposals may be funded together: a capital limit, groups of which at most one may be chosen, and
+/// Which proposals may be funded together: a capital limit on what is committed now, optional limits for the later
+/// years of a multi-year budget, groups of which at most one may be chosen (exactly one when mandatory), and
 /// contingencies (the dependent only with its prerequisite).
 /// </summary>
 public sealed record SelectionProblem(
     IReadOnlyList<SelectionCandidate> Candidates,
     double CapitalLimit,
     IReadOnlyList<IReadOnlyList<string>> ExclusiveGroups,
-    IReadOnlyList<(string Dependent, string Prerequisite)> Contingencies);
+    IReadOnlyList<(string Dependent, string Prerequisite)> Contingencies,
+    IReadOnlyList<double>? LaterYearLimits = null,
+    IReadOnlyList<IReadOnlyList<string>>? MandatoryGroups = null)
+{
+    /// <summary>The capital limit of budget year <paramref name="year"/> (0 = now).</summary>
+    public double LimitIn(int year) => year == 0 ? CapitalLimit : LaterYearLimits![year - 1];
 
-/// <summary>A chosen set, its total worth and cost, and whether the solver proved no better set exists.</summary>
-public sealed record Selection(IReadOnlyList<string> Chosen, double TotalWorth, double TotalCost, bool ProvenOptimal, double UpperBound);
+    /// <summary>Budget years with a limit, counting year 0.</summary>
+    public int BudgetYears => 1 + (LaterYearLimits?.Count ?? 0);
+
+    internal IEnumerable<(IReadOnlyList<string> Members, bool Mandatory)> Groups =>
+        ExclusiveGroups.Select(g => (g, false)).Concat((MandatoryGroups ?? []).Select(g => (g, true)));
+}
+
+/// <summary>A chosen set, its total worth and cost now, and whether the solver proved no better set exists.</summary>
+/// <param name="Chosen">The funded proposals.</param>
+/// <param name="TotalWorth">Their total worth.</param>
+/// <param name="TotalCost">Their total first cost.</param>
+/// <param name="UpperBound">No allowed set is worth more (the solver's bound; NaN where none).</param>
+/// <param name="ProvenOptimal">The solver proved no better set exists; with <paramref name="Feasible"/> false, that no set meets the rules.</param>
+/// <param name="Feasible">False when no set meets the rules (a mandatory group that cannot be afforded) or none was found in time.</param>
+public sealed record Selection(IReadOnlyList<string> Chosen, double TotalWorth, double TotalCost, bool ProvenOptimal, double UpperBound, bool Feasible = true);
 
 /// <summary>
 /// The set of proposals of greatest total worth within the capital limit, exclusive groups and contingencies: a 0-1
@@ -33,11 +61,21 @@ public static class CapitalSelection
         Check(problem);
         var model = new CpModel();
         var chosen = problem.Candidates.ToDictionary(c => c.Id, c => model.NewBoolVar(c.Id));
-        model.Add(LinearExpr.WeightedSum(problem.Candidates.Select(c => chosen[c.Id]), problem.Candidates.Select(c => ToCents(c.FirstCost)))
-            <= (long)Math.Floor(problem.CapitalLimit * Cents));
-        foreach (var group in problem.ExclusiveGroups)
+        for (int year = 0; year < problem.BudgetYears; year++)
         {
-            model.AddAtMostOne(group.Select(id => chosen[id]));
+            model.Add(LinearExpr.WeightedSum(problem.Candidates.Select(c => chosen[c.Id]), problem.Candidates.Select(c => ToCents(c.CapitalIn(year))))
+                <= FloorCents(problem.LimitIn(year)));
+        }
+        foreach (var (members, mandatory) in problem.Groups)
+        {
+            if (mandatory)
+            {
+                model.AddExactlyOne(members.Select(id => chosen[id]));
+            }
+            else
+            {
+                model.AddAtMostOne(members.Select(id => chosen[id]));
+            }
         }
         foreach (var (dependent, prerequisite) in problem.Contingencies)
         {
@@ -50,30 +88,43 @@ public static class CapitalSelection
         CpSolverStatus status = solver.Solve(model);
         if (status is not (CpSolverStatus.Optimal or CpSolverStatus.Feasible))
         {
-            return new Selection([], 0.0, 0.0, status == CpSolverStatus.Optimal, solver.BestObjectiveBound / Cents);
+            // Infeasible is proven; an unknown status means the time ran out before any allowed set was found.
+            return new Selection([], 0.0, 0.0, status == CpSolverStatus.Infeasible, double.NaN, Feasible: false);
         }
         var set = problem.Candidates.Where(c => solver.BooleanValue(chosen[c.Id])).ToList();
         return new Selection([.. set.Select(c => c.Id)], set.Sum(c => c.Worth), set.Sum(c => c.FirstCost),
             status == CpSolverStatus.Optimal, solver.BestObjectiveBound / Cents);
     }
 
-    /// <summary>Best worth first, each taken when it adds worth, fits the remaining capital and breaks no rule.</summary>
+    /// <summary>
+    /// Best worth first, each taken when it adds worth, fits the remaining capital and breaks no rule; a mandatory
+    /// group's best member that fits is taken first, whatever its worth.
+    /// </summary>
     public static Selection Greedy(SelectionProblem problem)
     {
         ArgumentNullException.ThrowIfNull(problem);
         Check(problem);
         var taken = new List<SelectionCandidate>();
-        double spent = 0.0;
-        foreach (SelectionCandidate c in problem.Candidates.OrderByDescending(c => c.Worth).ThenBy(c => c.Id, StringComparer.Ordinal))
+        var byRank = problem.Candidates.OrderByDescending(c => c.Worth).ThenBy(c => c.Id, StringComparer.Ordinal).ToList();
+        foreach (var group in problem.MandatoryGroups ?? [])
+        {
+            SelectionCandidate? pick = byRank.FirstOrDefault(c => group.Contains(c.Id) && Fits(problem, taken, c) && PrerequisiteTaken(problem, taken, c));
+            if (pick is null)
+            {
+                return new Selection([], 0.0, 0.0, ProvenOptimal: false, double.NaN, Feasible: false);
+            }
+            taken.Add(pick);
+        }
+        foreach (SelectionCandidate c in byRank)
         {
             var ids = taken.Select(t => t.Id).Append(c.Id).ToHashSet();
-            if (c.Worth > 0.0 && spent + c.FirstCost <= problem.CapitalLimit && Allowed(problem, ids))
+            if (c.Worth > 0.0 && !taken.Contains(c) && Fits(problem, taken, c) && Allowed(problem, ids, requireMandatory: false))
             {
                 taken.Add(c);
-                spent += c.FirstCost;
             }
         }
-        return new Selection([.. taken.Select(t => t.Id)], taken.Sum(t => t.Worth), spent, ProvenOptimal: false, double.NaN);
+        return new Selection([.. taken.Select(t => t.Id)], taken.Sum(t => t.Worth), taken.Sum(t => t.FirstCost), ProvenOptimal: false, double.NaN,
+            Feasible: Allowed(problem, [.. taken.Select(t => t.Id)], requireMandatory: true));
     }
 
     /// <summary>Every subset, for checking the solver on small cycles (at most 22 candidates).</summary>
@@ -86,26 +137,35 @@ public static class CapitalSelection
         {
             throw new ArgumentOutOfRangeException(nameof(problem), n, "The exhaustive search is for at most 22 candidates.");
         }
-        double bestWorth = 0.0;
-        long bestMask = 0;
-        for (long mask = 1; mask < 1L << n; mask++)
+        double bestWorth = double.NegativeInfinity;
+        long bestMask = -1;
+        for (long mask = 0; mask < 1L << n; mask++)
         {
-            double cost = 0.0, worth = 0.0;
+            double worth = 0.0;
             var ids = new HashSet<string>();
+            var cost = new long[problem.BudgetYears];
             for (int k = 0; k < n; k++)
             {
                 if ((mask & (1L << k)) != 0)
                 {
-                    cost += ToCents(problem.Candidates[k].FirstCost);
                     worth += ToCents(problem.Candidates[k].Worth);
                     ids.Add(problem.Candidates[k].Id);
+                    for (int year = 0; year < cost.Length; year++)
+                    {
+                        cost[year] += ToCents(problem.Candidates[k].CapitalIn(year));
+                    }
                 }
             }
-            if (cost <= Math.Floor(problem.CapitalLimit * Cents) && worth > bestWorth && Allowed(problem, ids))
+            bool fits = cost.Select((c, year) => c <= FloorCents(problem.LimitIn(year))).All(ok => ok);
+            if (fits && worth > bestWorth && Allowed(problem, ids, requireMandatory: true))
             {
                 bestWorth = worth;
                 bestMask = mask;
             }
+        }
+        if (bestMask < 0)
+        {
+            return new Selection([], 0.0, 0.0, true, double.NaN, Feasible: false);
         }
         var set = problem.Candidates.Where((_, k) => (bestMask & (1L << k)) != 0).ToList();
         return new Selection([.. set.Select(c => c.Id)], set.Sum(c => c.Worth), set.Sum(c => c.FirstCost), true, bestWorth / Cents);
@@ -119,11 +179,20 @@ public static class CapitalSelection
         return [.. limits.Select(limit => (limit, Optimal(problem with { CapitalLimit = limit }, timeLimitEach)))];
     }
 
-    private static bool Allowed(SelectionProblem problem, HashSet<string> ids) =>
-        problem.ExclusiveGroups.All(g => g.Count(ids.Contains) <= 1)
+    private static bool Allowed(SelectionProblem problem, HashSet<string> ids, bool requireMandatory) =>
+        problem.Groups.All(g => g.Members.Count(ids.Contains) is var count && count <= 1 && (!requireMandatory || !g.Mandatory || count == 1))
         && problem.Contingencies.All(c => !ids.Contains(c.Dependent) || ids.Contains(c.Prerequisite));
 
+    private static bool Fits(SelectionProblem problem, List<SelectionCandidate> taken, SelectionCandidate next) =>
+        Enumerable.Range(0, problem.BudgetYears).All(year =>
+            taken.Sum(t => ToCents(t.CapitalIn(year))) + ToCents(next.CapitalIn(year)) <= FloorCents(problem.LimitIn(year)));
+
+    private static bool PrerequisiteTaken(SelectionProblem problem, List<SelectionCandidate> taken, SelectionCandidate c) =>
+        problem.Contingencies.Where(k => k.Dependent == c.Id).All(k => taken.Any(t => t.Id == k.Prerequisite));
+
     private static long ToCents(double amount) => (long)Math.Round(amount * Cents, MidpointRounding.AwayFromZero);
+
+    private static long FloorCents(double amount) => (long)Math.Floor(amount * Cents + 1e-6);
 
     private static void Check(SelectionProblem problem)
     {
@@ -136,11 +205,16 @@ public static class CapitalSelection
         {
             throw new ArgumentException("First costs must be finite and not negative, worths finite.", nameof(problem));
         }
-        if (!double.IsFinite(problem.CapitalLimit) || problem.CapitalLimit < 0)
+        if (!double.IsFinite(problem.CapitalLimit) || problem.CapitalLimit < 0
+            || (problem.LaterYearLimits ?? []).Any(l => !double.IsFinite(l) || l < 0))
         {
-            throw new ArgumentException("The capital limit must be finite and not negative.", nameof(problem));
+            throw new ArgumentException("Capital limits must be finite and not negative.", nameof(problem));
         }
-        if (problem.ExclusiveGroups.SelectMany(g => g).Concat(problem.Contingencies.SelectMany(c => new[] { c.Dependent, c.Prerequisite })).Any(id => !ids.Contains(id)))
+        if (problem.Candidates.Any(c => (c.LaterCapital ?? []).Any(v => !double.IsFinite(v) || v < 0)))
+        {
+            throw new ArgumentException("Later capital needs must be finite and not negative.", nameof(problem));
+        }
+        if (problem.Groups.SelectMany(g => g.Members).Concat(problem.Contingencies.SelectMany(c => new[] { c.Dependent, c.Prerequisite })).Any(id => !ids.Contains(id)))
         {
             throw new ArgumentException("A group or contingency names a candidate that is not in the problem.", nameof(problem));
         }
