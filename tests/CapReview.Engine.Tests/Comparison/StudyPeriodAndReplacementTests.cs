@@ -112,3 +112,32 @@ public class EconomicServiceLifeTests
         Assert.Equal(0, EconomicServiceLife.YearsToKeep(worn, challenger));
     }
 }
+
+public class ReplacementStudyTests
+{
+    // The invented forklift of the service-life tests as the challenger.
+    private static readonly ServiceYear[] New =
+        [new(30_000, 4_000), new(23_000, 5_000), new(17_500, 6_500), new(13_000, 8_500), new(9_500, 11_000), new(7_000, 14_000), new(5_000, 17_500)];
+
+    [Fact]
+    public void A_defender_whose_years_grow_dear_is_kept_until_its_next_year_costs_more_than_the_challengers_best()
+    {
+        // Marginal costs (common practice, no source): 8,000·1.1 − 6,000 + 5,000 = 7,800; 6,000·1.1 − 4,500 + 9,000 = 11,100;
+        // 4,500·1.1 − 3,500 + 16,000 = 17,450. The challenger's least EAC (about 15,641) lies between the second and the third.
+        var advice = ReplacementStudy.Advise(8_000, [new(6_000, 5_000), new(4_500, 9_000), new(3_500, 16_000)], 40_000, New, 0.10);
+        Assert.Equal([7_800, 11_100, 17_450], advice.Defender.MarginalCosts.Select(c => Math.Round(c, 6)));
+        Assert.InRange(advice.Challenger.LeastAnnualCost, 11_100, 17_450);
+        Assert.Equal(2, advice.YearsToKeep);
+        Assert.Equal(7_800, advice.NextYearCost, 9);
+        Assert.Equal("Keep for 2 more years, then replace.", advice.Recommendation);
+    }
+
+    [Fact]
+    public void A_worn_defender_is_replaced_now_and_a_cheap_one_is_kept_to_the_end_of_its_estimates()
+    {
+        Assert.StartsWith("Replace now", ReplacementStudy.Advise(8_000, [new(2_000, 30_000)], 40_000, New, 0.10).Recommendation);
+        var cheap = ReplacementStudy.Advise(8_000, [new(7_500, 1_000), new(7_000, 1_000)], 40_000, New, 0.10);
+        Assert.Equal(2, cheap.YearsToKeep);
+        Assert.StartsWith("Keep for at least 2 more years", cheap.Recommendation);
+    }
+}

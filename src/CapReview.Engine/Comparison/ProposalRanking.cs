@@ -1,0 +1,106 @@
+using CapReview.Engine.CashFlows;
+using CapReview.Engine.Evaluation;
+using CapReview.Engine.Factors;
+using CapReview.Engine.Rates;
+
+namespace CapReview.Engine.Comparison;
+
+/// <summary>One proposal to rank: its validated model, the MARR it is judged at and, for a study period, its value at the end.</summary>
+/// <param name="Id">The proposal's reference.</param>
+/// <param name="Model">The validated cash-flow model; its horizon is the life.</param>
+/// <param name="Marr">The policy's MARR for its risk class, or its documented override.</param>
+/// <param name="ValueAtStudyEnd">Market value at the end of a study period shorter than the life, or the stated value of the renewal in service at the end of a longer one.</param>
+public sealed record RankingEntry(string Id, CashFlowModel Model, AnnualRate Marr, double? ValueAtStudyEnd = null);
+
+/// <summary>A ranked proposal: every measure at its MARR, and the annual and present worth on the board's common basis.</summary>
+/// <param name="Id">The proposal's reference.</param>
+/// <param name="Rank">1 for the highest annual worth.</param>
+/// <param name="Evaluation">Every measure over the proposal's own life.</param>
+/// <param name="AnnualWorth">Equivalent worth per year on the ranking's basis.</param>
+/// <param name="PresentWorth">Present worth on the ranking's basis: over the life, or over the study period.</param>
+/// <param name="Basis">How the life was put on the common basis, in words.</param>
+/// <param name="LaterCapital">Capital outlays in budget years 1, 2, … of the life (year 0 is the first cost).</param>
+public sealed record RankedProposal(
+    string Id,
+    int Rank,
+    Evaluation.Evaluation Evaluation,
+    double AnnualWorth,
+    double PresentWorth,
+    string Basis,
+    IReadOnlyList<double> LaterCapital)
+{
+    /// <summary>The outlay now (positive).</summary>
+    public double FirstCost => Math.Max(0.0, -Evaluation.NetFlows[0]);
+
+    public double LifeYears => Evaluation.Model.Years;
+}
+
+/// <summary>
+/// Ranks proposals by annual worth, which compares unequal lives fairly. With no study period each proposal's annual
+/// worth over its own life stands (the repeatability assumption: a like-for-like renewal at the end of each life);
+/// with a study period of T years each proposal's present worth over T (truncated at its market value, or renewed with
+/// a stated value at the end) is spread over T at its MARR. Common practice, no source; see docs/methods.md.
+/// </summary>
+public static class ProposalRanking
+{
+    public const string Repeatability = "annual worth over its own life, renewed like for like (repeatability)";
+
+    /// <param name="entries">The proposals, each with its model and MARR.</param>
+    /// <param name="studyPeriodYears">A board-set study period in whole years, or null for repeatability.</param>
+    /// <param name="marrShift">Effective annual points added to every proposal's MARR (a what-if; 0 for the cycle's).</param>
+    public static IReadOnlyList<RankedProposal> Rank(IReadOnlyList<RankingEntry> entries, int? studyPeriodYears = null, double marrShift = 0.0)
+    {
+        ArgumentNullException.ThrowIfNull(entries);
+        if (studyPeriodYears is < 1 or > 100)
+        {
+            throw new ArgumentOutOfRangeException(nameof(studyPeriodYears), studyPeriodYears, "A study period is 1 to 100 years.");
+        }
+        var ranked = new (RankingEntry Entry, Evaluation.Evaluation Evaluation, double AnnualWorth, double PresentWorth, string Basis)[entries.Count];
+        for (int k = 0; k < entries.Count; k++)
+        {
+            RankingEntry entry = entries[k];
+            AnnualRate marr = marrShift == 0.0 ? entry.Marr : AnnualRate.Effective(entry.Marr.EffectiveAnnual() + marrShift);
+            var evaluation = ModelEvaluator.Evaluate(entry.Model, new EvaluationOptions(marr));
+            ranked[k] = studyPeriodYears is int years
+                ? OverStudyPeriod(entry, evaluation, years)
+                : (entry, evaluation, evaluation.AnnualWorth, evaluation.PresentWorth, Repeatability);
+        }
+        return [.. ranked
+            .OrderByDescending(r => r.AnnualWorth)
+            .ThenBy(r => r.Entry.Id, StringComparer.Ordinal)
+            .Select((r, index) => new RankedProposal(r.Entry.Id, index + 1, r.Evaluation, r.AnnualWorth, r.PresentWorth, r.Basis, LaterCapital(r.Entry.Model)))];
+    }
+
+    /// <summary>Capital outlays per budget year: year k holds periods in (k − 1, k] years; year 0 is period 0 alone.</summary>
+    public static IReadOnlyList<double> LaterCapital(CashFlowModel model)
+    {
+        ArgumentNullException.ThrowIfNull(model);
+        int p = model.PeriodsPerYear;
+        var byYear = new double[(model.Horizon + p - 1) / p];
+        for (int e = 0; e < model.Elements.Count; e++)
+        {
+            if (model.Elements[e].Category != CashFlowCategory.Capital)
+            {
+                continue;
+            }
+            double[] flows = model.FlowsOf(e);
+            for (int t = 1; t < flows.Length; t++)
+            {
+                byYear[(t + p - 1) / p - 1] -= flows[t];
+            }
+        }
+        return [.. byYear.Select(v => Math.Max(0.0, v))];
+    }
+
+    private static (RankingEntry, Evaluation.Evaluation, double, double, string) OverStudyPeriod(RankingEntry entry, Evaluation.Evaluation evaluation, int years)
+    {
+        int p = entry.Model.PeriodsPerYear;
+        var result = StudyPeriodWorth.Compute(entry.Model, evaluation.MarrPerPeriod, years * p, entry.ValueAtStudyEnd ?? 0.0);
+        double perYear = result.PeriodWorth * CompoundInterest.UniformSeriesCompoundAmount(evaluation.MarrPerPeriod, p);
+        bool needsValue = years * p % entry.Model.Horizon != 0;
+        string basis = needsValue && entry.ValueAtStudyEnd is null
+            ? $"study period of {years} years: {result.Basis}, no value stated, taken as zero"
+            : $"study period of {years} years: {result.Basis}";
+        return (entry, evaluation, perYear, result.PresentWorth, basis);
+    }
+}
