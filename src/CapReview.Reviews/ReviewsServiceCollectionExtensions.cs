@@ -5,6 +5,7 @@ using CapReview.Reviews.Cycles;
 using CapReview.Reviews.Decisions;
 using CapReview.Reviews.Marr;
 using CapReview.Reviews.Organisation;
+using CapReview.Reviews.Portfolio;
 using CapReview.Reviews.Proposals;
 using CapReview.Reviews.Storage;
 using Microsoft.EntityFrameworkCore;
@@ -29,6 +30,9 @@ public static class ReviewsServiceCollectionExtensions
         services.AddSingleton<CycleService>();
         services.AddSingleton<DecisionService>();
         services.AddSingleton<CommentService>();
+        services.AddSingleton<PortfolioRulesService>();
+        services.AddSingleton<CycleRankingService>();
+        services.AddSingleton<PortfolioService>();
         return services;
     }
 }

@@ -37,6 +37,12 @@ public sealed class ReviewsDatabase : IAsyncLifetime
 
     public Comments.CommentService Comments => _services.GetRequiredService<Comments.CommentService>();
 
+    public Portfolio.PortfolioRulesService PortfolioRules => _services.GetRequiredService<Portfolio.PortfolioRulesService>();
+
+    public Portfolio.CycleRankingService Rankings => _services.GetRequiredService<Portfolio.CycleRankingService>();
+
+    public Portfolio.PortfolioService Portfolio => _services.GetRequiredService<Portfolio.PortfolioService>();
+
     public CapReviewDbContext NewContext() => _services.GetRequiredService<IDbContextFactory<CapReviewDbContext>>().CreateDbContext();
 
     public async Task InitializeAsync()
@@ -60,13 +66,13 @@ public sealed class ReviewsDatabase : IAsyncLifetime
     }
 
     /// <summary>An open cycle pinned to a fresh 8% policy version.</summary>
-    public async Task<BudgetCycle> OpenCycleAsync(string name)
+    public async Task<BudgetCycle> OpenCycleAsync(string name, decimal capitalLimit = 2_000_000m)
     {
         var marr = await Marr.AddVersionAsync(Admin, new NewMarrPolicy(0.08, Engine.Rates.RateBasis.Effective, 1, new DateOnly(2027, 1, 1), "Test policy"), CancellationToken.None);
-        return await Cycles.CreateAsync(Admin, new NewBudgetCycle(name, 2_000_000m, marr.Id, new DateOnly(2027, 1, 1), new DateOnly(2027, 3, 31)), CancellationToken.None);
+        return await Cycles.CreateAsync(Admin, new NewBudgetCycle(name, capitalLimit, marr.Id, new DateOnly(2027, 1, 1), new DateOnly(2027, 3, 31)), CancellationToken.None);
     }
 
-    public static ProposalDraft Draft(string title = "Chiller replacement", double firstCost = -120_000, string? reason = null) => new(
+    public static ProposalDraft Draft(string title = "Chiller replacement", double firstCost = -120_000, string? reason = null, double saving = 24_000) => new(
         title,
         "Replace the 1998 chiller on the paint line.",
         ProposalCategory.Replacement,
@@ -80,7 +86,7 @@ public sealed class ReviewsDatabase : IAsyncLifetime
                 Elements =
                 [
                     new ElementSpec { Type = ElementKind.Single, Label = "Chiller", Category = CashFlowCategory.Capital, Period = 0, Amount = firstCost },
-                    new ElementSpec { Type = ElementKind.Uniform, Label = "Electricity saved", Category = CashFlowCategory.Revenue, First = 1, Last = 10, Amount = 24_000 },
+                    new ElementSpec { Type = ElementKind.Uniform, Label = "Electricity saved", Category = CashFlowCategory.Revenue, First = 1, Last = 10, Amount = saving },
                 ],
             },
         },

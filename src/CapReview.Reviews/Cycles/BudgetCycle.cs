@@ -22,5 +22,13 @@ public sealed class BudgetCycle
     /// <summary>Board sign-offs the cycle's decision needs.</summary>
     public int RequiredSignOffs { get; set; } = 2;
 
+    /// <summary>A board-set study period in years for the ranking, or null to rank by annual worth over each life.</summary>
+    public int? StudyPeriodYears { get; set; }
+
+    /// <summary>Capital limits for budget years 1, 2, … of a multi-year budget; year 0 is <see cref="CapitalLimit"/>.</summary>
+    public List<decimal> LaterYearLimits { get; set; } = [];
+
+    public Portfolio.SelectionObjective Objective { get; set; } = Portfolio.SelectionObjective.PresentWorth;
+
     public int Revision { get; set; }
 }

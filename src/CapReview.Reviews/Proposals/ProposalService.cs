@@ -256,6 +256,14 @@ public sealed class ProposalService(ReviewWork work, AuditTrail audit, TimeProvi
         {
             throw new RuleViolationException("Choose a category and a risk class from the lists.");
         }
+        if (draft.Assumptions?.ValueAtStudyEnd is double value && !double.IsFinite(value))
+        {
+            throw new RuleViolationException("valueAtStudyEnd: the value at the end of the study period must be a number.");
+        }
+        if (draft.Assumptions?.Replacement?.FirstError() is var (field, message))
+        {
+            throw new RuleViolationException($"{field}: {message}");
+        }
         if (draft.Assumptions?.MarrOverride is { } own)
         {
             if (string.IsNullOrWhiteSpace(own.Reason))

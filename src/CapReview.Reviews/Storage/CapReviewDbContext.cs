@@ -5,6 +5,7 @@ using CapReview.Reviews.Cycles;
 using CapReview.Reviews.Decisions;
 using CapReview.Reviews.Marr;
 using CapReview.Reviews.Organisation;
+using CapReview.Reviews.Portfolio;
 using CapReview.Reviews.Proposals;
 using Microsoft.EntityFrameworkCore;
 using Microsoft.EntityFrameworkCore.ChangeTracking;
@@ -34,6 +35,10 @@ public sealed class CapReviewDbContext(DbContextOptions<CapReviewDbContext> opti
     public DbSet<SignOff> SignOffs => Set<SignOff>();
 
     public DbSet<ProposalComment> Comments => Set<ProposalComment>();
+
+    public DbSet<ExclusiveGroup> ExclusiveGroups => Set<ExclusiveGroup>();
+
+    public DbSet<Contingency> Contingencies => Set<Contingency>();
 
     public override int SaveChanges(bool acceptAllChangesOnSuccess)
     {
@@ -124,6 +129,8 @@ public sealed class CapReviewDbContext(DbContextOptions<CapReviewDbContext> opti
             c.HasIndex(x => x.Name).IsUnique();
             c.Property(x => x.CapitalLimit).HasPrecision(18, 2);
             c.Property(x => x.Status).HasConversion<string>().HasMaxLength(20);
+            c.Property(x => x.Objective).HasConversion<string>().HasMaxLength(20);
+            c.PrimitiveCollection(x => x.LaterYearLimits);
             c.Property(x => x.Revision).IsConcurrencyToken();
             c.HasOne<MarrPolicyVersion>().WithMany().HasForeignKey(x => x.MarrPolicyVersionId).OnDelete(DeleteBehavior.Restrict);
         });
@@ -157,6 +164,24 @@ public sealed class CapReviewDbContext(DbContextOptions<CapReviewDbContext> opti
             c.Property(x => x.AuthorName).HasMaxLength(200);
             c.Property(x => x.Text).HasMaxLength(CommentService.MaxLength);
             c.HasOne<Proposal>().WithMany().HasForeignKey(x => x.ProposalId).OnDelete(DeleteBehavior.Restrict);
+        });
+
+        modelBuilder.Entity<ExclusiveGroup>(g =>
+        {
+            g.ToTable("exclusive_group");
+            g.Property(x => x.Name).HasMaxLength(100);
+            g.HasIndex(x => new { x.BudgetCycleId, x.Name }).IsUnique();
+            g.PrimitiveCollection(x => x.ProposalIds);
+            g.HasOne<BudgetCycle>().WithMany().HasForeignKey(x => x.BudgetCycleId).OnDelete(DeleteBehavior.Restrict);
+        });
+
+        modelBuilder.Entity<Contingency>(c =>
+        {
+            c.ToTable("contingency");
+            c.HasIndex(x => new { x.BudgetCycleId, x.DependentProposalId, x.PrerequisiteProposalId }).IsUnique();
+            c.HasOne<BudgetCycle>().WithMany().HasForeignKey(x => x.BudgetCycleId).OnDelete(DeleteBehavior.Restrict);
+            c.HasOne<Proposal>().WithMany().HasForeignKey(x => x.DependentProposalId).OnDelete(DeleteBehavior.Restrict);
+            c.HasOne<Proposal>().WithMany().HasForeignKey(x => x.PrerequisiteProposalId).OnDelete(DeleteBehavior.Restrict);
         });
 
         modelBuilder.Entity<AuditEvent>(a =>

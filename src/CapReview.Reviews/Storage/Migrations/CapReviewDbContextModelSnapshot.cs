@@ -120,12 +120,21 @@ namespace CapReview.Reviews.Storage.Migrations
                     b.Property<DateOnly>("ClosesOn")
                         .HasColumnType("TEXT");
 
+                    b.PrimitiveCollection<string>("LaterYearLimits")
+                        .IsRequired()
+                        .HasColumnType("TEXT");
+
                     b.Property<int>("MarrPolicyVersionId")
                         .HasColumnType("INTEGER");
 
                     b.Property<string>("Name")
                         .IsRequired()
                         .HasMaxLength(200)
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("Objective")
+                        .IsRequired()
+                        .HasMaxLength(20)
                         .HasColumnType("TEXT");
 
                     b.Property<DateOnly>("OpensOn")
@@ -142,6 +151,9 @@ namespace CapReview.Reviews.Storage.Migrations
                         .IsRequired()
                         .HasMaxLength(20)
                         .HasColumnType("TEXT");
+
+                    b.Property<int?>("StudyPeriodYears")
+                        .HasColumnType("INTEGER");
 
                     b.HasKey("Id");
 
@@ -315,6 +327,62 @@ namespace CapReview.Reviews.Storage.Migrations
                     b.ToTable("organisation", (string)null);
                 });
 
+            modelBuilder.Entity("CapReview.Reviews.Portfolio.Contingency", b =>
+                {
+                    b.Property<int>("Id")
+                        .ValueGeneratedOnAdd()
+                        .HasColumnType("INTEGER");
+
+                    b.Property<int>("BudgetCycleId")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<int>("DependentProposalId")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<int>("PrerequisiteProposalId")
+                        .HasColumnType("INTEGER");
+
+                    b.HasKey("Id");
+
+                    b.HasIndex("DependentProposalId");
+
+                    b.HasIndex("PrerequisiteProposalId");
+
+                    b.HasIndex("BudgetCycleId", "DependentProposalId", "PrerequisiteProposalId")
+                        .IsUnique();
+
+                    b.ToTable("contingency", (string)null);
+                });
+
+            modelBuilder.Entity("CapReview.Reviews.Portfolio.ExclusiveGroup", b =>
+                {
+                    b.Property<int>("Id")
+                        .ValueGeneratedOnAdd()
+                        .HasColumnType("INTEGER");
+
+                    b.Property<int>("BudgetCycleId")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<bool>("Mandatory")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<string>("Name")
+                        .IsRequired()
+                        .HasMaxLength(100)
+                        .HasColumnType("TEXT");
+
+                    b.PrimitiveCollection<string>("ProposalIds")
+                        .IsRequired()
+                        .HasColumnType("TEXT");
+
+                    b.HasKey("Id");
+
+                    b.HasIndex("BudgetCycleId", "Name")
+                        .IsUnique();
+
+                    b.ToTable("exclusive_group", (string)null);
+                });
+
             modelBuilder.Entity("CapReview.Reviews.Proposals.Proposal", b =>
                 {
                     b.Property<int>("Id")
@@ -461,6 +529,36 @@ namespace CapReview.Reviews.Storage.Migrations
                 });
 
             modelBuilder.Entity("CapReview.Reviews.Decisions.SignOff", b =>
+                {
+                    b.HasOne("CapReview.Reviews.Cycles.BudgetCycle", null)
+                        .WithMany()
+                        .HasForeignKey("BudgetCycleId")
+                        .OnDelete(DeleteBehavior.Restrict)
+                        .IsRequired();
+                });
+
+            modelBuilder.Entity("CapReview.Reviews.Portfolio.Contingency", b =>
+                {
+                    b.HasOne("CapReview.Reviews.Cycles.BudgetCycle", null)
+                        .WithMany()
+                        .HasForeignKey("BudgetCycleId")
+                        .OnDelete(DeleteBehavior.Restrict)
+                        .IsRequired();
+
+                    b.HasOne("CapReview.Reviews.Proposals.Proposal", null)
+                        .WithMany()
+                        .HasForeignKey("DependentProposalId")
+                        .OnDelete(DeleteBehavior.Restrict)
+                        .IsRequired();
+
+                    b.HasOne("CapReview.Reviews.Proposals.Proposal", null)
+                        .WithMany()
+                        .HasForeignKey("PrerequisiteProposalId")
+                        .OnDelete(DeleteBehavior.Restrict)
+                        .IsRequired();
+                });
+
+            modelBuilder.Entity("CapReview.Reviews.Portfolio.ExclusiveGroup", b =>
                 {
                     b.HasOne("CapReview.Reviews.Cycles.BudgetCycle", null)
                         .WithMany()

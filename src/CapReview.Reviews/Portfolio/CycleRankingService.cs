@@ -1,0 +1,86 @@
+using CapReview.Engine.Comparison;
+using CapReview.Engine.Rates;
+using CapReview.Engine.Specifications;
+using CapReview.Reviews.Access;
+using CapReview.Reviews.Common;
+using CapReview.Reviews.Cycles;
+using CapReview.Reviews.Proposals;
+using CapReview.Reviews.Storage;
+using Microsoft.EntityFrameworkCore;
+
+namespace CapReview.Reviews.Portfolio;
+
+/// <summary>
+/// Ranks a cycle's proposals under review or approved, each on its latest frozen version at its MARR, by annual worth
+/// on the cycle's basis. For the board, finance and administrators.
+/// </summary>
+public sealed class CycleRankingService(ReviewWork work)
+{
+    private static readonly ProposalStatus[] Ranked = [ProposalStatus.Submitted, ProposalStatus.InReview, ProposalStatus.Approved];
+
+    /// <summary>The ranking, with every MARR shifted by <paramref name="marrShift"/> effective annual points for a what-if (0 for the cycle's own).</summary>
+    public Task<CycleRanking> RankAsync(Actor actor, int cycleId, double marrShift, CancellationToken cancellationToken)
+    {
+        ArgumentNullException.ThrowIfNull(actor);
+        if (!(actor.Has(Role.Reviewer) || actor.Has(Role.Finance) || actor.Has(Role.Administrator)))
+        {
+            throw new AccessDeniedException("Only the review board, finance and administrators see a cycle's ranking.");
+        }
+        if (!double.IsFinite(marrShift) || Math.Abs(marrShift) > 0.5)
+        {
+            throw new RuleViolationException("marrShift: shift the MARR by at most 50 points either way.");
+        }
+        return work.ReadAsync(async db =>
+        {
+            BudgetCycle cycle = await db.BudgetCycles.SingleOrDefaultAsync(c => c.Id == cycleId, cancellationToken).ConfigureAwait(false)
+                ?? throw new NotFoundException("There is no such budget cycle.");
+            var marr = await db.MarrPolicyVersions.SingleAsync(m => m.Id == cycle.MarrPolicyVersionId, cancellationToken).ConfigureAwait(false);
+            var proposals = await db.Proposals.Include(p => p.Versions)
+                .Where(p => p.BudgetCycleId == cycleId && Ranked.Contains(p.Status))
+                .OrderBy(p => p.Id).ToListAsync(cancellationToken).ConfigureAwait(false);
+            PortfolioRules rules = await PortfolioRulesService.LoadAsync(db, cycleId, cancellationToken).ConfigureAwait(false);
+            return Rank(cycle, marr, [.. proposals.Select(ProposalView.Of)], rules, marrShift);
+        }, cancellationToken);
+    }
+
+    internal static CycleRanking Rank(BudgetCycle cycle, Marr.MarrPolicyVersion marr, IReadOnlyList<ProposalView> proposals, PortfolioRules rules, double marrShift)
+    {
+        var entries = new List<RankingEntry>();
+        var sources = new Dictionary<string, (ProposalView Proposal, VersionView Version)>(StringComparer.Ordinal);
+        var unranked = new List<UnrankedProposal>();
+        foreach (ProposalView proposal in proposals)
+        {
+            VersionView? version = proposal.Versions.LastOrDefault(v => v.IsFrozen);
+            if (version is null)
+            {
+                unranked.Add(new(proposal, "no submitted version"));
+                continue;
+            }
+            AnnualRate rate = marr.RateFor(proposal.RiskClass);
+            RateSpec spec = version.Assumptions.MarrOverride?.Rate ?? new RateSpec
+            {
+                Value = rate.Value,
+                Basis = rate.Basis,
+                CompoundingsPerYear = rate.Basis == RateBasis.Nominal ? rate.CompoundingsPerYear : null,
+            };
+            var read = SpecificationReader.Read(version.Assumptions.Model with { Rate = spec });
+            if (!read.IsValid)
+            {
+                var error = read.Errors[0];
+                unranked.Add(new(proposal, $"the model is not complete: {error.Field}: {error.Message}"));
+                continue;
+            }
+            entries.Add(new RankingEntry(proposal.Reference, read.Value!.Model, read.Value.Options.Marr, version.Assumptions.ValueAtStudyEnd));
+            sources[proposal.Reference] = (proposal, version);
+        }
+        var byId = proposals.ToDictionary(p => p.Id);
+        var rows = ProposalRanking.Rank(entries, cycle.StudyPeriodYears, marrShift).Select(ranked =>
+        {
+            var (proposal, version) = sources[ranked.Id];
+            var prerequisites = rules.PrerequisitesOf(proposal.Id)
+                .Select(id => byId.TryGetValue(id, out var p) ? p.Reference : $"#{id}").ToList();
+            return new RankingRow(proposal, version, ranked.Evaluation.Marr, ranked, rules.GroupOf(proposal.Id), prerequisites);
+        }).ToList();
+        return new CycleRanking(cycle, marr, marrShift, rows, unranked, rules);
+    }
+}
