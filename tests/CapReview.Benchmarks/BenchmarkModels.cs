@@ -31,6 +31,13 @@ internal static class BenchmarkModels
         Elements = Elements,
     };
 
+    /// <summary>The benchmark model with every amount scaled by its own factor in [0.6, 1.4): one of a cycle's many proposals.</summary>
+    public static ModelSpec VariedSpec(Random random)
+    {
+        ArgumentNullException.ThrowIfNull(random);
+        return Spec() with { Elements = [.. Elements.Select(e => e with { Amount = Math.Round(e.Amount!.Value * (0.6 + 0.8 * random.NextDouble()), 2) })] };
+    }
+
     /// <summary>Conventional 40-period flows: one outlay, then receipts that vary from year to year.</summary>
     public static double[] ConventionalFlows(int seed)
     {
