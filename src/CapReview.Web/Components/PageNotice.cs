@@ -14,6 +14,8 @@ public sealed class PageNotice
 
     public void Show(string message, bool isError = false) => (Message, IsError) = (message, isError);
 
+    public void Clear() => (Message, IsError) = (null, false);
+
     /// <summary>Runs the action; its result is the message, a <see cref="ReviewException"/> the error shown instead.</summary>
     public async Task RunAsync(Func<Task<string>> action)
     {

@@ -5,6 +5,7 @@ using CapReview.Reviews.Storage;
 using CapReview.Web.Api;
 using CapReview.Web.Components;
 using CapReview.Web.Demo;
+using CapReview.Web.Exports;
 using CapReview.Web.Identity;
 using CapReview.Web.Formatting;
 using Microsoft.Extensions.Options;
@@ -79,6 +80,7 @@ public static class CapReviewHosting
         app.MapOpenApi("/openapi/{documentName}.json").RequireAuthorization(IdentityRegistration.Api);
         app.MapEvaluationEndpoints();
         app.MapAccountEndpoints();
+        app.MapExportEndpoints();
         app.MapRazorComponents<App>().AddInteractiveServerRenderMode();
         return app;
     }

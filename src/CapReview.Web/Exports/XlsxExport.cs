@@ -1,0 +1,102 @@
+using System.Globalization;
+using DocumentFormat.OpenXml;
+using DocumentFormat.OpenXml.Packaging;
+using DocumentFormat.OpenXml.Spreadsheet;
+
+namespace CapReview.Web.Exports;
+
+/// <summary>
+/// Writes an <see cref="ExportTable"/> as one worksheet with the Open XML SDK: the title in bold, the notes, a blank
+/// row, the bold header, then the rows with numbers stored as numbers under a money, percent or number format.
+/// </summary>
+public static class XlsxExport
+{
+    // Cell format indexes in the stylesheet below.
+    private const uint Plain = 0, Bold = 1, Money = 2, Percent = 3, Number = 4, Whole = 5;
+
+    public static byte[] Write(ExportTable table)
+    {
+        ArgumentNullException.ThrowIfNull(table);
+        using var stream = new MemoryStream();
+        using (var document = SpreadsheetDocument.Create(stream, SpreadsheetDocumentType.Workbook))
+        {
+            WorkbookPart workbook = document.AddWorkbookPart();
+            workbook.Workbook = new Workbook();
+            workbook.AddNewPart<WorkbookStylesPart>().Stylesheet = Styles();
+            WorksheetPart sheet = workbook.AddNewPart<WorksheetPart>();
+            var data = new SheetData();
+            uint rowIndex = 0;
+            Row NewRow() => data.AppendChild(new Row { RowIndex = ++rowIndex });
+
+            NewRow().Append(Text(table.Title, Bold));
+            foreach (string note in table.Notes)
+            {
+                NewRow().Append(Text(note, Plain));
+            }
+            NewRow();
+            NewRow().Append(table.Columns.Select(c => Text(c.Header, Bold)));
+            foreach (var values in table.Rows)
+            {
+                NewRow().Append(table.Columns.Select((column, k) => Cell(values[k], column.Kind)));
+            }
+            var columns = new Columns(table.Columns.Select((c, k) => new Column
+            {
+                Min = (uint)k + 1,
+                Max = (uint)k + 1,
+                Width = c.Kind == ExportKind.Text ? 28 : 16,
+                CustomWidth = true,
+            }));
+            sheet.Worksheet = new Worksheet(columns, data);
+            workbook.Workbook.AppendChild(new Sheets(new Sheet
+            {
+                Id = workbook.GetIdOfPart(sheet),
+                SheetId = 1,
+                Name = table.Title.Length > 31 ? table.Title[..31] : table.Title,
+            }));
+        }
+        return stream.ToArray();
+    }
+
+    private static Cell Cell(object? value, ExportKind kind) => value switch
+    {
+        null => new Cell(),
+        double d when !double.IsFinite(d) => new Cell(),
+        double d => NumberCell(d, kind),
+        int i => NumberCell(i, kind),
+        decimal m => NumberCell((double)m, kind),
+        _ => Text(value.ToString() ?? "", Plain),
+    };
+
+    private static Cell NumberCell(double value, ExportKind kind) => new()
+    {
+        DataType = CellValues.Number,
+        CellValue = new CellValue(value.ToString("R", CultureInfo.InvariantCulture)),
+        StyleIndex = kind switch
+        {
+            ExportKind.Money => Money,
+            ExportKind.Percent => Percent,
+            ExportKind.Whole => Whole,
+            _ => Number,
+        },
+    };
+
+    private static Cell Text(string text, uint style) => new()
+    {
+        DataType = CellValues.InlineString,
+        InlineString = new InlineString(new Text(text) { Space = SpaceProcessingModeValues.Preserve }),
+        StyleIndex = style,
+    };
+
+    private static Stylesheet Styles() => new(
+        new Fonts(new Font(), new Font(new Bold())) { Count = 2 },
+        new Fills(new Fill(new PatternFill { PatternType = PatternValues.None }), new Fill(new PatternFill { PatternType = PatternValues.Gray125 })) { Count = 2 },
+        new Borders(new Border()) { Count = 1 },
+        new CellFormats(
+            new CellFormat(),
+            new CellFormat { FontId = 1, ApplyFont = true },
+            // Built-in number formats: 4 is #,##0.00, 10 is 0.00%, 2 is 0.00, 3 is #,##0.
+            new CellFormat { NumberFormatId = 4, ApplyNumberFormat = true },
+            new CellFormat { NumberFormatId = 10, ApplyNumberFormat = true },
+            new CellFormat { NumberFormatId = 2, ApplyNumberFormat = true },
+            new CellFormat { NumberFormatId = 3, ApplyNumberFormat = true }) { Count = 6 });
+}
