@@ -33,6 +33,7 @@ public static class ReviewsServiceCollectionExtensions
         services.AddSingleton<PortfolioRulesService>();
         services.AddSingleton<CycleRankingService>();
         services.AddSingleton<PortfolioService>();
+        services.AddSingleton<ReplacementService>();
         return services;
     }
 }

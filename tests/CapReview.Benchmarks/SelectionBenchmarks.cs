@@ -26,5 +26,5 @@ public class SelectionBenchmarks
     public double Optimal() => CapitalSelection.Optimal(_problem, TimeSpan.FromSeconds(10)).TotalWorth;
 
     [Benchmark(Description = "Greedy fill by worth, same cycle")]
-    public double Greedy() => CapitalSelection.Greedy(_problem).TotalWorth;
+    public double Greedy() => CapitalSelection.Greedy(_problem, byWorth: true).TotalWorth;
 }

@@ -55,14 +55,14 @@ public sealed class BrowserFixture : IAsyncLifetime
     }
 
     /// <summary>A fresh browser context (its own cookies) signed in as the user.</summary>
-    public async Task<IPage> SignedInPageAsync(string email, string name, string role)
+    public async Task<IPage> SignedInPageAsync(string email, string name, string role, string password = AppHost.Password)
     {
         await App.UserAsync(email, name, role);
         IPage page = await Browser.NewPageAsync();
         await page.Context.ClearCookiesAsync();
         await page.GotoAsync(App.BaseAddress + "signin");
         await page.Locator("#email").FillAsync(email);
-        await page.Locator("#password").FillAsync(AppHost.Password);
+        await page.Locator("#password").FillAsync(password);
         await page.GetByRole(AriaRole.Button, new() { Name = "Sign in" }).ClickAsync();
         await Assertions.Expect(page.GetByTestId("signed-in-as")).ToHaveTextAsync(name);
         return page;

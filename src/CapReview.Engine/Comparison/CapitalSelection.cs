@@ -97,15 +97,18 @@ public static class CapitalSelection
     }
 
     /// <summary>
-    /// Best worth first, each taken when it adds worth, fits the remaining capital and breaks no rule; a mandatory
-    /// group's best member that fits is taken first, whatever its worth.
+    /// Down the ranking: the candidates in the order given (the board's ranking; by worth when <paramref name="byWorth"/>),
+    /// each taken when it adds worth, fits the remaining capital and breaks no rule; a mandatory group's first member
+    /// that fits is taken first, whatever its worth.
     /// </summary>
-    public static Selection Greedy(SelectionProblem problem)
+    public static Selection Greedy(SelectionProblem problem, bool byWorth = false)
     {
         ArgumentNullException.ThrowIfNull(problem);
         Check(problem);
         var taken = new List<SelectionCandidate>();
-        var byRank = problem.Candidates.OrderByDescending(c => c.Worth).ThenBy(c => c.Id, StringComparer.Ordinal).ToList();
+        var byRank = byWorth
+            ? problem.Candidates.OrderByDescending(c => c.Worth).ThenBy(c => c.Id, StringComparer.Ordinal).ToList()
+            : [.. problem.Candidates];
         foreach (var group in problem.MandatoryGroups ?? [])
         {
             SelectionCandidate? pick = byRank.FirstOrDefault(c => group.Contains(c.Id) && Fits(problem, taken, c) && PrerequisiteTaken(problem, taken, c));

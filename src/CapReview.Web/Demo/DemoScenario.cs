@@ -5,6 +5,7 @@ using CapReview.Engine.Specifications;
 using CapReview.Reviews.Access;
 using CapReview.Reviews.Cycles;
 using CapReview.Reviews.Marr;
+using CapReview.Reviews.Portfolio;
 using CapReview.Reviews.Proposals;
 using CapReview.Web.Identity;
 using CapReview.Web.QuickEvaluation;
@@ -13,10 +14,12 @@ namespace CapReview.Web.Demo;
 
 /// <summary>
 /// The demo installation of Tarnby Components Ltd (an invented company): one user per role, a MARR policy, an open
-/// budget cycle and three proposals. Written once, into an empty database, in demo mode only; the sign-ins are
+/// budget cycle with a two-year plan, seven submitted proposals (two ways of renewing line 3, two of meeting the paint
+/// shop's emission limit, a solar array and the battery that needs it) and one draft. Written once, into an empty database, in demo mode only; the sign-ins are
 /// printed to the console every start in demo mode.
 /// </summary>
-public sealed partial class DemoScenario(IdentityStore identity, MarrPolicyService marr, CycleService cycles, ProposalService proposals, ILogger<DemoScenario> log)
+public sealed partial class DemoScenario(IdentityStore identity, MarrPolicyService marr, CycleService cycles, ProposalService proposals,
+    PortfolioRulesService rules, ILogger<DemoScenario> log)
 {
     /// <summary>The demo's one password; demo mode only.</summary>
     public const string Password = "tarnby-demo-2027";
@@ -52,6 +55,7 @@ public sealed partial class DemoScenario(IdentityStore identity, MarrPolicyServi
             actors[email] = Actor.Of(user.Id, name, Enum.Parse<Role>(role));
         }
         Actor admin = actors["ines.varga@tarnby.example"], oskar = actors["oskar.lind@tarnby.example"], maren = actors["maren.holt@tarnby.example"];
+        Actor tove = actors["tove.berg@tarnby.example"];
 
         var policy = await marr.AddVersionAsync(admin, new NewMarrPolicy(0.09, RateBasis.Effective, 1, new DateOnly(2027, 1, 1),
             "Board resolution on the cost of capital for the 2027 plan", LowRiskPremium: -0.01, HighRiskPremium: 0.03), cancellationToken).ConfigureAwait(false);
@@ -67,8 +71,51 @@ public sealed partial class DemoScenario(IdentityStore identity, MarrPolicyServi
         var cnc = await proposals.CreateDraftAsync(maren, new ProposalDraft(
             "CNC line 3 replacement",
             "Replace the two 2004 machining centres of line 3 with one five-axis centre and a pallet changer.",
-            ProposalCategory.Replacement, RiskClass.High, new ProposalAssumptions { Model = CncLine() }), cancellationToken).ConfigureAwait(false);
+            ProposalCategory.Replacement, RiskClass.High, new ProposalAssumptions { Model = CncLine(), Replacement = CncLineTiming() }), cancellationToken).ConfigureAwait(false);
         await proposals.SubmitAsync(maren, cnc.Id, cycle.Id, cnc.Revision, cancellationToken).ConfigureAwait(false);
+
+        async Task<ProposalView> SubmitAsync(Actor lead, string title, string description, ProposalCategory category, RiskClass risk, ModelSpec model)
+        {
+            var draft = await proposals.CreateDraftAsync(lead, new ProposalDraft(title, description, category, risk, new ProposalAssumptions { Model = model }), cancellationToken).ConfigureAwait(false);
+            return await proposals.SubmitAsync(lead, draft.Id, cycle.Id, draft.Revision, cancellationToken).ConfigureAwait(false);
+        }
+        var overhaul = await SubmitAsync(maren, "CNC line 3 overhaul",
+            "Rebuild the spindles and controls of the two 2004 machining centres and keep them six more years.",
+            ProposalCategory.Replacement, RiskClass.Standard, Model(6,
+                Single("Spindle and control rebuild", CashFlowCategory.Capital, 0, -215_000),
+                Uniform("Scrap and downtime avoided", CashFlowCategory.Revenue, 1, 6, 61_000),
+                Uniform("Extra service visits", CashFlowCategory.Operating, 1, 6, -6_500),
+                Single("Resale of the old centres", CashFlowCategory.Salvage, 6, 18_000)));
+        var solar = await SubmitAsync(oskar, "Rooftop solar array, dispatch hall",
+            "A 600 kWp array on the dispatch hall roof, built in two phases, selling surplus power at the feed-in tariff.",
+            ProposalCategory.CostReduction, RiskClass.Low, Model(25,
+                Single("Phase 1 array and inverters", CashFlowCategory.Capital, 0, -410_000),
+                Single("Phase 2 array", CashFlowCategory.Capital, 1, -140_000),
+                new() { Type = ElementKind.Geometric, Label = "Electricity not bought", Category = CashFlowCategory.Revenue, First = 1, Last = 25, Amount = 64_000, Growth = 0.02 },
+                Uniform("Cleaning and inspection", CashFlowCategory.Operating, 1, 25, -5_500),
+                new() { Type = ElementKind.Recurring, Label = "Inverter replacement", Category = CashFlowCategory.Capital, First = 12, Last = 12, Every = 12, Amount = -48_000 }));
+        var battery = await SubmitAsync(oskar, "Battery buffer for the solar array",
+            "A 400 kWh battery that stores the array's midday surplus to cut the peak-demand charge.",
+            ProposalCategory.CostReduction, RiskClass.Standard, Model(12,
+                Single("Battery and controls", CashFlowCategory.Capital, 0, -96_000),
+                Uniform("Peak-demand charge avoided", CashFlowCategory.Revenue, 1, 12, 17_500),
+                Uniform("Service contract", CashFlowCategory.Operating, 1, 12, -1_800)));
+        var extraction = await SubmitAsync(maren, "Paint shop extraction with carbon filters",
+            "Meet the 2028 solvent-emission limit by filtering the paint booths' exhaust.",
+            ProposalCategory.Compliance, RiskClass.Low, Model(15,
+                Single("Extraction ducts and filter housings", CashFlowCategory.Capital, 0, -165_000),
+                Uniform("Filter changes and fan power", CashFlowCategory.Operating, 1, 15, -14_000)));
+        var waterBased = await SubmitAsync(maren, "Paint shop conversion to water-based paint",
+            "Meet the 2028 solvent-emission limit by changing to water-based paint, with new booths and a drying tunnel.",
+            ProposalCategory.Compliance, RiskClass.Standard, Model(15,
+                Single("Booths and drying tunnel", CashFlowCategory.Capital, 0, -255_000),
+                Uniform("Solvent and disposal no longer bought", CashFlowCategory.Revenue, 1, 15, 21_000),
+                Uniform("Drying energy", CashFlowCategory.Operating, 1, 15, -9_000)));
+
+        await rules.SaveGroupAsync(tove, cycle.Id, new GroupDraft("Line 3 capacity", false, [cnc.Id, overhaul.Id]), cancellationToken).ConfigureAwait(false);
+        await rules.SaveGroupAsync(tove, cycle.Id, new GroupDraft("Paint shop emission limit", true, [extraction.Id, waterBased.Id]), cancellationToken).ConfigureAwait(false);
+        await rules.AddContingencyAsync(tove, cycle.Id, battery.Id, solar.Id, cancellationToken).ConfigureAwait(false);
+        await rules.SetPlanAsync(tove, cycle.Id, new CyclePlan(null, [250_000m], SelectionObjective.PresentWorth), cycle.Revision, cancellationToken).ConfigureAwait(false);
 
         await proposals.CreateDraftAsync(oskar, new ProposalDraft(
             "Forklift fleet electrification",
@@ -93,7 +140,7 @@ public sealed partial class DemoScenario(IdentityStore identity, MarrPolicyServi
         [
             Single("Five-axis centre and pallet changer", CashFlowCategory.Capital, 0, -640_000),
             Single("Foundations and commissioning", CashFlowCategory.Capital, 0, -48_000),
-            new() { Type = ElementKind.Geometric, Label = "Labour and scrap saved", Category = CashFlowCategory.Revenue, First = 1, Last = 12, Amount = 118_000, Growth = 0.02 },
+            new() { Type = ElementKind.Geometric, Label = "Labour and scrap saved", Category = CashFlowCategory.Revenue, First = 1, Last = 12, Amount = 137_000, Growth = 0.02 },
             new() { Type = ElementKind.Arithmetic, Label = "Service contract", Category = CashFlowCategory.Operating, First = 1, Last = 12, Amount = -9_000, Step = -600 },
             new() { Type = ElementKind.Recurring, Label = "Spindle rebuild", Category = CashFlowCategory.Capital, First = 5, Last = 10, Every = 5, Amount = -45_000 },
             Single("Resale of the centre", CashFlowCategory.Salvage, 12, 60_000),
@@ -114,6 +161,21 @@ public sealed partial class DemoScenario(IdentityStore identity, MarrPolicyServi
             Single("Resale of the trucks", CashFlowCategory.Salvage, 10, 20_000),
         ],
     };
+
+    /// <summary>The two 2004 centres in service and the five-axis centre, year by year (invented figures).</summary>
+    private static ReplacementEstimates CncLineTiming() => new(
+        DefenderValueNow: 70_000,
+        Defender: [new(55_000, 140_000), new(42_000, 175_000), new(31_000, 205_000), new(22_000, 240_000)],
+        Challenger:
+        [
+            new(560_000, 38_000), new(480_000, 41_000), new(415_000, 44_000), new(360_000, 48_000), new(312_000, 53_000), new(270_000, 59_000),
+            new(232_000, 68_000), new(198_000, 80_000), new(168_000, 96_000), new(140_000, 116_000), new(115_000, 140_000), new(92_000, 168_000),
+        ]);
+
+    private static ModelSpec Model(int years, params ElementSpec[] elements) => new() { PeriodsPerYear = 1, Horizon = years, Elements = elements };
+
+    private static ElementSpec Uniform(string label, CashFlowCategory category, int first, int last, double amount) =>
+        new() { Type = ElementKind.Uniform, Label = label, Category = category, First = first, Last = last, Amount = amount };
 
     private static ElementSpec Single(string label, CashFlowCategory category, int period, double amount) =>
         new() { Type = ElementKind.Single, Label = label, Category = category, Period = period, Amount = amount };

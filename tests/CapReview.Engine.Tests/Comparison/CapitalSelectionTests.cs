@@ -63,7 +63,10 @@ public class CapitalSelectionTests
         Assert.True(optimal.Feasible);
         Assert.Equal(["Fuel switch", "Conveyor"], optimal.Chosen);
         Assert.Equal(110, optimal.TotalWorth, 9);
-        Assert.Equal(["Fuel switch", "Conveyor"], CapitalSelection.Greedy(problem).Chosen);
+        Assert.Equal(["Fuel switch", "Conveyor"], CapitalSelection.Greedy(problem, byWorth: true).Chosen);
+
+        // Down a ranking that puts the scrubber first, the greedy fill takes it and then cannot afford the conveyor.
+        Assert.Equal(["Scrubber"], CapitalSelection.Greedy(problem).Chosen);
 
         var unaffordable = problem with { CapitalLimit = 150 };
         var none = CapitalSelection.Optimal(unaffordable, Limit);

@@ -1,0 +1,95 @@
+using System.Globalization;
+using System.Text.RegularExpressions;
+using CapReview.Web.Demo;
+using CapReview.Web.Identity;
+using Microsoft.Extensions.DependencyInjection;
+using Microsoft.Playwright;
+
+namespace CapReview.Browser.Tests;
+
+/// <summary>A board member works through the demo cycle's ranking, portfolio and a replacement's timing in Chromium.</summary>
+public sealed partial class PortfolioInChromium(BrowserFixture browser) : IClassFixture<BrowserFixture>
+{
+    private const string Board = "tove.berg@tarnby.example";
+
+    private async Task<IPage> BoardPageAsync(string path)
+    {
+        using (var scope = browser.App.Services.CreateScope())
+        {
+            await scope.ServiceProvider.GetRequiredService<DemoScenario>().EnsureAsync(CancellationToken.None);
+        }
+        IPage page = await browser.SignedInPageAsync(Board, "Tove Berg", RoleNames.Reviewer, DemoScenario.Password);
+        await page.GotoAsync(browser.App.BaseAddress + path);
+        await page.Locator("[data-testid=interactive]").WaitForAsync(new() { State = WaitForSelectorState.Attached });
+        return page;
+    }
+
+    private static double Money(string text) => double.Parse(text.Replace("−", "-", StringComparison.Ordinal), NumberStyles.Number, CultureInfo.GetCultureInfo("en-IE"));
+
+    [Fact]
+    public async Task The_ranking_sorts_filters_and_shows_the_rules_and_charts()
+    {
+        IPage page = await BoardPageAsync("cycles/1/ranking");
+        ILocator rows = page.GetByTestId("ranking-row");
+        await Assertions.Expect(rows).ToHaveCountAsync(7);
+        var worths = (await page.GetByTestId("ranking-aw").AllInnerTextsAsync()).Select(Money).ToList();
+        Assert.Equal(worths.OrderDescending(), worths);
+        await Assertions.Expect(page.GetByTestId("ranking-table")).ToContainTextAsync("Line 3 capacity");
+        await Assertions.Expect(page.GetByTestId("ranking-table")).ToContainTextAsync("needs P-0004");
+        await Assertions.Expect(page.Locator("#aw-bars .main-svg").First).ToBeVisibleAsync();
+        await Assertions.Expect(page.Locator("#cost-worth-bubbles .main-svg").First).ToBeVisibleAsync();
+        await BrowserFixture.ScreenshotAsync(page, "ranking");
+
+        await page.GetByTestId("sort-cost").ClickAsync();
+        await Assertions.Expect(page.Locator("th[aria-sort=ascending]")).ToContainTextAsync("First cost");
+        await page.Locator("#filter-category").SelectOptionAsync("Compliance");
+        await Assertions.Expect(rows).ToHaveCountAsync(2);
+        await page.Locator("#filter-category").SelectOptionAsync("");
+        await page.Locator("#marr-shift").SelectOptionAsync("2");
+        await Assertions.Expect(page.GetByTestId("ranking-basis")).ToContainTextAsync("raised by 2 points");
+        await Assertions.Expect(page.GetByTestId("swap-result")).ToContainTextAsync("P-");
+    }
+
+    [Fact]
+    public async Task The_portfolio_respects_the_rules_answers_a_what_if_and_exports()
+    {
+        IPage page = await BoardPageAsync("cycles/1/portfolio");
+        await Assertions.Expect(page.GetByTestId("portfolio-verdict")).ToContainTextAsync("Proven optimal.");
+        await Assertions.Expect(page.GetByTestId("portfolio-greedy")).ToContainTextAsync("Filling the budget down the ranking");
+        var funded = await page.Locator("[data-testid=portfolio-row][data-funded=yes]").AllInnerTextsAsync();
+        // The mandatory paint-shop group funds exactly one way; the battery only with the array (P-0004).
+        Assert.Equal(1, funded.Count(f => f.Contains("Paint shop", StringComparison.Ordinal)));
+        Assert.True(!funded.Any(f => f.Contains("Battery", StringComparison.Ordinal)) || funded.Any(f => f.Contains("solar array, dispatch", StringComparison.Ordinal)));
+        Assert.True(funded.Count(f => f.Contains("CNC line 3", StringComparison.Ordinal)) <= 1);
+        await Assertions.Expect(page.Locator("#frontier .main-svg").First).ToBeVisibleAsync();
+        await BrowserFixture.ScreenshotAsync(page, "portfolio");
+
+        await page.Locator("#capital-limit").FillAsync("600000");
+        await page.GetByTestId("recalculate").ClickAsync();
+        await Assertions.Expect(page.GetByTestId("portfolio-verdict")).ToContainTextAsync("within 600,000");
+        var cost = FirstCost().Match(await page.GetByTestId("portfolio-verdict").InnerTextAsync());
+        Assert.True(Money(cost.Groups[1].Value) <= 600_000);
+
+        var csv = await page.APIRequest.GetAsync(browser.App.BaseAddress + "cycles/1/portfolio/csv?limit=600000");
+        Assert.Equal(200, csv.Status);
+        string text = await csv.TextAsync();
+        Assert.StartsWith("# Portfolio Capital plan 2027", text.TrimStart('\uFEFF'), StringComparison.Ordinal);
+        Assert.Contains("Rank,Reference,Title,", text, StringComparison.Ordinal);
+        var xlsx = await page.APIRequest.GetAsync(browser.App.BaseAddress + "cycles/1/portfolio/xlsx");
+        Assert.Equal("PK", System.Text.Encoding.ASCII.GetString((await xlsx.BodyAsync())[..2]));
+    }
+
+    [Fact]
+    public async Task A_replacement_shows_the_cost_by_retirement_year_and_the_advice()
+    {
+        IPage page = await BoardPageAsync("proposals/2/replacement");
+        await page.GetByTestId("replacement-advice").WaitForAsync();
+        await Assertions.Expect(page.GetByTestId("replacement-advice")).ToContainTextAsync("Keep for 1 more year, then replace.");
+        await Assertions.Expect(page.Locator("#service-life .main-svg").First).ToBeVisibleAsync();
+        await Assertions.Expect(page.GetByTestId("challenger-table").Locator("tbody tr")).ToHaveCountAsync(12);
+        await BrowserFixture.ScreenshotAsync(page, "replacement");
+    }
+
+    [GeneratedRegex(@"first cost of ([\d,]+)")]
+    private static partial Regex FirstCost();
+}
