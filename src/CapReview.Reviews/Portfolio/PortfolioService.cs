@@ -47,7 +47,9 @@ public sealed class PortfolioService(CycleRankingService rankings)
         var (problem, excluded) = ProblemOf(ranking, (double)(query.CapitalLimit ?? ranking.Cycle.CapitalLimit), objective);
         Selection optimal = CapitalSelection.Optimal(problem, SolverTimeLimit);
         Selection greedy = CapitalSelection.Greedy(problem);
-        double top = Math.Max(problem.CapitalLimit, problem.Candidates.Where(c => c.Worth > 0).Sum(c => c.FirstCost));
+        // Up to what every worthwhile proposal and the dearest way of meeting each mandatory group would need together.
+        double mandatory = (problem.MandatoryGroups ?? []).Sum(g => problem.Candidates.Where(c => g.Contains(c.Id)).Max(c => c.FirstCost));
+        double top = Math.Max(problem.CapitalLimit, problem.Candidates.Where(c => c.Worth > 0).Sum(c => c.FirstCost) + mandatory);
         var limits = Enumerable.Range(0, FrontierSteps + 1).Select(k => Math.Round(top * k / FrontierSteps, 2))
             .Append(problem.CapitalLimit).Distinct().Order();
         var frontier = CapitalSelection.Frontier(problem, limits, FrontierTimeLimit).Select(f => new FrontierPoint(f.Limit, f.Selection)).ToList();

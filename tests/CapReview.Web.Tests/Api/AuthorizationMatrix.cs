@@ -34,6 +34,11 @@ public sealed partial class AuthorizationMatrix(ApiFactory factory) : IClassFixt
         ["/proposals/{Id:int}"] = ("GET", "/proposals/1", ["signin", "200", "200", "200", "200"]),
         ["/cycles"] = ("GET", "/cycles", ["signin", "denied", "200", "200", "200"]),
         ["/cycles/{Id:int}"] = ("GET", "/cycles/1", ["signin", "denied", "200", "200", "200"]),
+        ["/cycles/{Id:int}/ranking"] = ("GET", "/cycles/1/ranking", ["signin", "denied", "200", "200", "200"]),
+        ["/cycles/{Id:int}/portfolio"] = ("GET", "/cycles/1/portfolio", ["signin", "denied", "200", "200", "200"]),
+        ["/cycles/{id:int}/ranking/{format:regex(^(csv|xlsx)$)}"] = ("GET", "/cycles/1/ranking/csv", ["signin", "denied", "200", "200", "200"]),
+        ["/cycles/{id:int}/portfolio/{format:regex(^(csv|xlsx)$)}"] = ("GET", "/cycles/1/portfolio/xlsx", ["signin", "denied", "200", "200", "200"]),
+        ["/proposals/{Id:int}/replacement"] = ("GET", "/proposals/1/replacement", ["signin", "200", "200", "200", "200"]),
         ["/admin/users"] = ("GET", "/admin/users", ["signin", "denied", "denied", "denied", "200"]),
         ["/admin/marr"] = ("GET", "/admin/marr", ["signin", "denied", "denied", "denied", "200"]),
         ["/admin/cycles"] = ("GET", "/admin/cycles", ["signin", "denied", "denied", "denied", "200"]),
@@ -78,6 +83,7 @@ public sealed partial class AuthorizationMatrix(ApiFactory factory) : IClassFixt
     [MemberData(nameof(Cases))]
     public async Task Each_visitor_gets_the_expected_answer(string route, string who)
     {
+        await EnsureCycleAsync();
         var (method, path, expected) = Rules[route];
         string expect = expected[Array.IndexOf(Who, who)];
         using HttpClient client = who == Anonymous ? NewClient() : await SignedInClientAsync(who);
@@ -95,6 +101,30 @@ public sealed partial class AuthorizationMatrix(ApiFactory factory) : IClassFixt
             var status => ((int)status).ToString(System.Globalization.CultureInfo.InvariantCulture),
         };
         Assert.Equal(expect, actual);
+    }
+
+    private static readonly SemaphoreSlim CycleLock = new(1, 1);
+
+    /// <summary>Cycle 1 exists, so that the cycle's pages and downloads answer for the roles allowed to see them.</summary>
+    private async Task EnsureCycleAsync()
+    {
+        await CycleLock.WaitAsync();
+        try
+        {
+            var cycles = factory.Services.GetRequiredService<CapReview.Reviews.Cycles.CycleService>();
+            if ((await cycles.ListAsync(CancellationToken.None)).Count > 0)
+            {
+                return;
+            }
+            var admin = CapReview.Reviews.Access.Actor.Of("matrix-setup", "Matrix setup", CapReview.Reviews.Access.Role.Administrator);
+            var marr = await factory.Services.GetRequiredService<CapReview.Reviews.Marr.MarrPolicyService>().AddVersionAsync(admin,
+                new CapReview.Reviews.Marr.NewMarrPolicy(0.08, CapReview.Engine.Rates.RateBasis.Effective, 1, new DateOnly(2027, 1, 1), "Matrix policy"), CancellationToken.None);
+            await cycles.CreateAsync(admin, new CapReview.Reviews.Cycles.NewBudgetCycle("Matrix cycle", 1_000_000m, marr.Id, new DateOnly(2027, 1, 1), new DateOnly(2027, 3, 31)), CancellationToken.None);
+        }
+        finally
+        {
+            CycleLock.Release();
+        }
     }
 
     private HttpClient NewClient() => factory.CreateClient(new WebApplicationFactoryClientOptions { AllowAutoRedirect = false, HandleCookies = true });
