@@ -38,6 +38,9 @@ public sealed partial class PortfolioInChromium(BrowserFixture browser) : IClass
         await Assertions.Expect(page.GetByTestId("ranking-table")).ToContainTextAsync("needs P-0004");
         await Assertions.Expect(page.Locator("#aw-bars .main-svg").First).ToBeVisibleAsync();
         await Assertions.Expect(page.Locator("#cost-worth-bubbles .main-svg").First).ToBeVisibleAsync();
+        // The line 3 group is compared at the higher MARR of its two proposals (the replacement is high risk: 12%).
+        await Assertions.Expect(page.GetByTestId("group-choice").First).ToContainTextAsync("12.00 %");
+        await Assertions.Expect(page.GetByTestId("incremental-steps").First.Locator("tbody tr")).ToHaveCountAsync(2);
         await BrowserFixture.ScreenshotAsync(page, "ranking");
 
         await page.GetByTestId("sort-cost").ClickAsync();

@@ -150,4 +150,30 @@ public sealed class PortfolioTests(ReviewsDatabase db) : IClassFixture<ReviewsDa
         var none = plain with { Assumptions = plain.Assumptions with { Replacement = estimates with { Challenger = [] } } };
         Assert.StartsWith("replacement.challenger:", (await Assert.ThrowsAsync<RuleViolationException>(() => db.Proposals.CreateDraftAsync(Lead, none, None))).Message);
     }
+
+    [Fact]
+    public async Task A_group_is_chosen_at_the_highest_marr_of_its_members_and_both_methods_agree()
+    {
+        var cycle = await db.OpenCycleAsync("Groups 2027");
+        var safe = await db.Proposals.CreateDraftAsync(Lead, Draft("Rebuild", -60_000, saving: 13_000), None);
+        var boldDraft = Draft("New unit", -150_000, saving: 30_000);
+        var own = new MarrOverride(new Engine.Specifications.RateSpec { Value = 0.12, Basis = Engine.Rates.RateBasis.Effective }, "Unproven technology");
+        var bold = await db.Proposals.CreateDraftAsync(Lead, boldDraft with { Assumptions = boldDraft.Assumptions with { MarrOverride = own } }, None);
+        await db.Proposals.SubmitAsync(Lead, safe.Id, cycle.Id, safe.Revision, None);
+        await db.Proposals.SubmitAsync(Lead, bold.Id, cycle.Id, bold.Revision, None);
+        await db.PortfolioRules.SaveGroupAsync(Reviewer, cycle.Id, new GroupDraft("Unit", false, [safe.Id, bold.Id]), None);
+        var ranking = await db.Rankings.RankAsync(Reviewer, cycle.Id, 0, None);
+
+        var analysis = GroupAnalyses.Of(ranking).Single();
+        // The rebuild is judged at the policy's 8%, the new unit at its own 12%: the group at the higher.
+        Assert.Equal(0.12, analysis.Marr!.Value.EffectiveAnnual(), 12);
+        Assert.StartsWith($"the highest MARR of its proposals ({bold.Reference}'s)", analysis.MarrNote);
+        var decision = analysis.Decision!;
+        Assert.Equal(decision.BestByAnnualWorth, decision.BestByIncrementalAnalysis);
+        // Outside reference: Microsoft.VisualBasic.Financial.PV at 12% over ten years: 19,507 against 13,453.
+        Assert.Equal(bold.Reference, decision.BestByAnnualWorth);
+        Assert.Equal(-150_000 - Financial.PV(0.12, 10, 30_000), decision.PresentWorths[bold.Reference], 6);
+        Assert.Equal(-60_000 - Financial.PV(0.12, 10, 13_000), decision.PresentWorths[safe.Reference], 6);
+        Assert.Equal(2, decision.Steps.Count);
+    }
 }

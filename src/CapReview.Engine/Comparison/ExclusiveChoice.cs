@@ -28,12 +28,14 @@ public sealed record IncrementalStep(
 
 /// <summary>The choice among mutually exclusive alternatives, by annual worth and by the incremental analysis.</summary>
 /// <param name="AnnualWorths">Each alternative's annual worth per year over its own life (repeatability).</param>
+/// <param name="PresentWorths">Each alternative's present worth over the common horizon, its life renewed like for like.</param>
 /// <param name="BestByAnnualWorth">The alternative with the highest annual worth, or "do nothing".</param>
 /// <param name="CommonHorizon">The least common multiple of the lives, in periods.</param>
 /// <param name="Steps">The incremental comparisons in order of first cost.</param>
 /// <param name="BestByIncrementalAnalysis">What the last winning challenger is; equals <paramref name="BestByAnnualWorth"/>.</param>
 public sealed record ExclusiveDecision(
     IReadOnlyDictionary<string, double> AnnualWorths,
+    IReadOnlyDictionary<string, double> PresentWorths,
     string BestByAnnualWorth,
     int CommonHorizon,
     IReadOnlyList<IncrementalStep> Steps,
@@ -71,6 +73,7 @@ public static class ExclusiveChoice
         var best = worths.OrderByDescending(w => w.Value).First();
         string bestByWorth = !mandatory && best.Value < 0.0 ? DoNothing : best.Key;
 
+        var presentWorths = alternatives.ToDictionary(a => a.Name, a => FlowWorth.PresentWorth(CommonHorizon.Repeat(a.Model.NetFlows, horizon), i));
         var ordered = alternatives.OrderBy(a => a.FirstCost).ThenBy(a => a.Name, StringComparer.Ordinal).ToList();
         var steps = new List<IncrementalStep>();
         Candidate defender = mandatory
@@ -86,7 +89,7 @@ public static class ExclusiveChoice
                 defender = challenger;
             }
         }
-        return new ExclusiveDecision(worths, bestByWorth, horizon, steps, defender.Name);
+        return new ExclusiveDecision(worths, presentWorths, bestByWorth, horizon, steps, defender.Name);
     }
 
     private static IncrementalStep Compare(Candidate defender, Candidate challenger, double i, int p)

@@ -27,6 +27,9 @@ public class ExclusiveChoiceTests
         Close.Assert(7_000 - Financial.Pmt(0.10, 3, -20_000), decision.AnnualWorths["Refurbished press"], 1e-9);
         Close.Assert(11_000 - Financial.Pmt(0.10, 6, -45_000) + 5_000 * -Financial.Pmt(0.10, 6, 0, 1), decision.AnnualWorths["New press"], 1e-9);
         Assert.Equal(6, decision.CommonHorizon);
+        // Over the six-year horizon the refurbished press is bought twice: PW = AW (P/A, 10%, 6), Financial.PV.
+        Close.Assert(-Financial.PV(0.10, 6, decision.AnnualWorths["Refurbished press"]), decision.PresentWorths["Refurbished press"], 1e-9);
+        Close.Assert(-Financial.PV(0.10, 6, decision.AnnualWorths["New press"]), decision.PresentWorths["New press"], 1e-9);
         Assert.Equal("New press", decision.BestByAnnualWorth);
         Assert.Equal("New press", decision.BestByIncrementalAnalysis);
         Assert.Equal(2, decision.Steps.Count);
