@@ -31,11 +31,8 @@ public static class StudyPeriodWorth
         {
             throw new ArgumentOutOfRangeException(nameof(valueAtEnd), valueAtEnd, "The value at the end of the study period must be a finite number.");
         }
+        // The renewals may run past period 1,200 (at most a life less one period); only the window up to T is discounted.
         int covered = (studyPeriod + life - 1) / life * life;
-        if (covered > CompoundInterest.MaxPeriods)
-        {
-            throw new ArgumentOutOfRangeException(nameof(studyPeriod), studyPeriod, "Renewing the life to cover the study period goes beyond 1,200 periods.");
-        }
         double[] flows = CommonHorizon.Repeat(model.NetFlows, covered);
         double[] window = new double[studyPeriod + 1];
         Array.Copy(flows, window, studyPeriod + 1);

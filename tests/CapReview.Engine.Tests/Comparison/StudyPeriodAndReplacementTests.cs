@@ -53,6 +53,22 @@ public class StudyPeriodWorthTests
     }
 }
 
+public class StudyPeriodLimitTests
+{
+    [Fact]
+    public void A_study_period_of_1200_periods_is_covered_even_when_the_last_renewal_runs_past_it()
+    {
+        // Monthly, a 7-month life and the longest study period: the 172nd renewal ends at month 1,204.
+        var model = Models.Valid(7, 12, new SingleAmount("Tooling", Capital, 0, -700), new UniformSeries("Output", Revenue, 1, 7, 110));
+        var result = StudyPeriodWorth.Compute(model, 0.01, 1200, valueAtEnd: 300);
+        // Outside reference: Microsoft.VisualBasic.Financial.PV: 1,200 months of output, a new set of tooling every
+        // 7 months up to month 1,197, and the last one's value at month 1,200.
+        double tooling = Enumerable.Range(0, 172).Sum(j => -700 * Math.Pow(1.01, -7 * j));
+        double expected = tooling - Financial.PV(0.01, 1200, 110) - Financial.PV(0.01, 1200, 0, 300);
+        Close.Assert(expected, result.PresentWorth, 1e-9);
+    }
+}
+
 public class EconomicServiceLifeTests
 {
     // An invented forklift: 40,000 new, losing value, costing more to run each year.
