@@ -30,17 +30,6 @@ public sealed class QuickEvaluationState(ModelDraft draft, CultureInfo culture)
         Errors = [.. reading.Errors, .. outcome.Errors.Where(e => !unreadable.Contains(e.Field))];
         _errors = Errors.GroupBy(e => e.Field).ToDictionary(g => g.Key, g => g.First().Message);
         Result = Errors.Count == 0 ? outcome.Value : null;
-        Profile = Result is null ? [] : ProfileOf(Result);
-    }
-
-    /// <summary>From 0% (or the lowest root) to beyond both the MARR and the highest root, so that every crossing shows.</summary>
-    private static IReadOnlyList<ProfilePoint> ProfileOf(Evaluation result)
-    {
-        double marr = result.Marr.EffectiveAnnual();
-        double highest = Math.Max(marr, result.RatesOfReturn.Count > 0 ? result.RatesOfReturn[^1] : 0.0);
-        double lowest = Math.Min(0.0, result.RatesOfReturn.Count > 0 ? result.RatesOfReturn[0] : 0.0);
-        double to = Math.Min(RateOfReturnSearch.HighestAnnual, Math.Max(0.30, highest * 1.5 + 0.05));
-        double from = Math.Max(-0.95, lowest - (lowest < 0 ? 0.05 : 0.0));
-        return PresentWorthProfile.Compute(result.NetFlows, result.Model.PeriodsPerYear, from, to, 121);
+        Profile = Result is null ? [] : EvaluationProfile.Of(Result);
     }
 }

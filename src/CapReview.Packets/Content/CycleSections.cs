@@ -1,0 +1,45 @@
+using CapReview.Packets.Layout;
+using CapReview.Reviews.Decisions;
+using CapReview.Reviews.Portfolio;
+
+namespace CapReview.Packets.Content;
+
+/// <summary>The cycle cover's ranking of the approved proposals and the funded portfolio against the capital limit.</summary>
+internal static class CycleSections
+{
+    public static void RankingAndPortfolio(PageFlow flow, PortfolioResult portfolio, CyclePacketData data, PacketFormat f)
+    {
+        CycleRanking ranking = portfolio.Ranking;
+        flow.Heading("Ranking of the approved proposals", PacketStyle.Heading1);
+        flow.Text($"By {ranking.Basis}, each at its MARR.", PacketStyle.Small, PacketStyle.SoftBrush);
+        flow.Gap(2);
+        TableWriter.Draw(flow,
+        [
+            new("Rank", 0.6, true), new("Proposal", 3.2), new("AW a year", 1.2, true), new("PW", 1.2, true), new("Rate of return", 1.1, true),
+            new("First cost", 1.2, true), new("Life, years", 0.8, true),
+        ],
+            ranking.Rows.Select(r => new TableRow(
+            [
+                r.Ranked.Rank.ToString(f.Culture), $"{r.Proposal.Reference} {r.Proposal.Title}", f.Money(r.Ranked.AnnualWorth), f.Money(r.Ranked.PresentWorth),
+                r.Ranked.Evaluation.RatesOfReturn.Count switch { 0 => "none", 1 => f.Percent(r.Ranked.Evaluation.RatesOfReturn[0]), _ => "several" },
+                f.Money(r.Ranked.FirstCost), f.Number(r.Ranked.LifeYears, 1),
+            ])));
+
+        var approved = data.Decided.Where(d => d.Decision.Outcome == DecisionOutcome.Approve).Select(d => d.Proposal.Reference).ToHashSet();
+        var funded = ranking.Rows.Where(r => approved.Contains(r.Proposal.Reference)).ToList();
+        double cost = funded.Sum(r => r.Ranked.FirstCost);
+        flow.Heading("The funded portfolio", PacketStyle.Heading1, keepWith: 80);
+        flow.Pairs(
+        [
+            ("Approved", $"{funded.Count} proposals, first cost {f.Money(cost)} {f.CurrencyCode} of the capital limit of {f.Money(data.Cycle.CapitalLimit)} {f.CurrencyCode}" +
+                (cost > (double)data.Cycle.CapitalLimit ? " (above the limit)" : "")),
+            ("Total present worth", $"{f.Money(funded.Sum(r => r.Ranked.PresentWorth))} {f.CurrencyCode}"),
+            ("Optimal selection", portfolio.Optimal.Feasible
+                ? $"{string.Join(", ", portfolio.Optimal.Chosen)}: total {(portfolio.Objective == SelectionObjective.AnnualWorth ? "annual" : "present")} worth {f.Money(portfolio.Optimal.TotalWorth)} {f.CurrencyCode}, first cost {f.Money(portfolio.Optimal.TotalCost)}{(portfolio.Optimal.ProvenOptimal ? ", proven optimal" : ", not proven optimal")}"
+                : "no set of the approved proposals meets the cycle's rules"),
+            ("Greedy fill by ranking", $"{string.Join(", ", portfolio.Greedy.Chosen)}: {f.Money(portfolio.Greedy.TotalWorth)} {f.CurrencyCode}, {f.Money(portfolio.Advantage)} less than the optimal selection"),
+        ]);
+        flow.Text("The optimal selection is the constraint solver's choice among the approved proposals within the capital limits, exclusive groups and contingencies; the board's decisions are the record.", PacketStyle.Small, PacketStyle.SoftBrush);
+        flow.Gap(6);
+    }
+}

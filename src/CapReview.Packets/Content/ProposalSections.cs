@@ -1,0 +1,204 @@
+using CapReview.Engine.CashFlows;
+using CapReview.Engine.Comparison;
+using CapReview.Engine.Evaluation;
+using CapReview.Engine.Measures;
+using CapReview.Packets.Charts;
+using CapReview.Packets.Layout;
+using CapReview.Reviews.Common;
+using CapReview.Reviews.Decisions;
+using CapReview.Reviews.Marr;
+using CapReview.Reviews.Proposals;
+using PdfSharp.Pdf;
+
+namespace CapReview.Packets.Content;
+
+/// <summary>
+/// The sections of one proposal's record: the decision and sign-offs, the measures and what they mean, the two charts,
+/// the cash flows per period and per element, the version history with its changes, and the cautions.
+/// </summary>
+internal static class ProposalSections
+{
+    public static void Write(PageFlow flow, ProposalPacketData data, PacketFormat f, PdfOutline parent)
+    {
+        VersionView version = data.Version;
+        var marr = version.Assumptions.MarrOverride is null ? data.Marr.RateFor(data.Proposal.RiskClass) : (Engine.Rates.AnnualRate?)null;
+        Evaluation? evaluation = VersionComparison.Evaluate(version.Assumptions, data.Marr.RateFor(data.Proposal.RiskClass));
+
+        flow.Bookmark("Decision and sign-off", parent);
+        flow.Heading("Decision and sign-off", PacketStyle.Heading1);
+        flow.Pairs(
+        [
+            ("Decision", OutcomeText(data.Decision.Outcome)),
+            ("Conditions", data.Decision.Conditions.Length == 0 ? "none" : data.Decision.Conditions),
+            ("Recorded", f.Time(data.Decision.DecidedAt)),
+            ("On version", $"{version.Number}, submitted {(version.FrozenAt is { } at ? f.Time(at) : "–")}"),
+            ("Assumptions SHA-256", version.AssumptionsHash),
+            ("MARR policy", $"version {data.Marr.Number}, SHA-256 {MarrPolicyDocument.Hash(data.Marr)}"),
+        ]);
+        flow.Gap(4);
+        flow.Text($"The board's sign-offs of the decisions of {data.Cycle.Name} ({data.SignOffs.Count} of {data.Cycle.RequiredSignOffs} required):", PacketStyle.BodyBold);
+        flow.Gap(2);
+        TableWriter.Draw(flow, [new("Board member", 3), new("Signed off", 2)],
+            data.SignOffs.Count == 0 ? [new TableRow(["none yet", ""])] : data.SignOffs.Select(s => new TableRow([s.DisplayName, f.Time(s.SignedAt)])));
+
+        flow.Bookmark("Measures", parent);
+        flow.Heading("What the proposal is worth", PacketStyle.Heading1);
+        if (evaluation is null)
+        {
+            flow.Text("The model of this version is not complete, so no measure can be stated.", PacketStyle.Body);
+            return;
+        }
+        Summary(flow, data, evaluation, marr is null ? version.Assumptions.MarrOverride!.Reason : null, f);
+
+        flow.Bookmark("Charts", parent);
+        flow.Heading("Cash flows and the present worth profile", PacketStyle.Heading1, keepWith: 240);
+        flow.Figure(210, (g, area) => CashFlowDiagramDrawing.Draw(g, area, evaluation.NetFlows, evaluation.Model.PeriodsPerYear, f),
+            $"Net cash flow of each period, {f.CurrencyCode}: receipts up, payments down.");
+        var profile = EvaluationProfile.Of(evaluation);
+        flow.Figure(210, (g, area) => WorthProfileDrawing.Draw(g, area, profile, evaluation.RatesOfReturn, evaluation.Marr.EffectiveAnnual(), f),
+            "Present worth at each annual rate; the dashed line is the MARR, each diamond a rate of return (where the worth is zero).");
+
+        flow.Bookmark("Cash-flow tables", parent);
+        flow.Heading("Cash flows per period", PacketStyle.Heading1);
+        PerPeriod(flow, evaluation, f);
+        flow.Heading("Cash flows per element", PacketStyle.Heading1);
+        PerElement(flow, evaluation, version.Assumptions.Model, f);
+
+        flow.Bookmark("Version history", parent);
+        History(flow, data, f);
+        flow.Note("Cautions", Cautions.Estimates, PacketStyle.Amber);
+    }
+
+    internal static string OutcomeText(DecisionOutcome outcome) => outcome switch
+    {
+        DecisionOutcome.Approve => "Approved",
+        DecisionOutcome.Reject => "Rejected",
+        _ => "Returned for changes",
+    };
+
+    private static void Summary(PageFlow flow, ProposalPacketData data, Evaluation e, string? overrideReason, PacketFormat f)
+    {
+        double marr = e.Marr.EffectiveAnnual();
+        string marrText = overrideReason is null
+            ? $"{f.Percent(marr)} a year effective: policy version {data.Marr.Number} for risk class {data.Proposal.RiskClass}"
+            : $"{f.Percent(marr)} a year effective: the proposal's own MARR ({overrideReason})";
+        var basis = data.Cycle.StudyPeriodYears is int years
+            ? ProposalRanking.Rank([new RankingEntry(data.Proposal.Reference, e.Model, e.Marr, data.Version.Assumptions.ValueAtStudyEnd)], years)[0]
+            : null;
+        string rate = e.RatesOfReturn.Count switch
+        {
+            0 => "none: the flows have no rate at which their worth is zero",
+            1 => $"{f.Percent(e.RatesOfReturn[0])} a year (unique)",
+            _ => $"several: {string.Join(", ", e.RatesOfReturn.Select(f.Percent))}; no single rate describes the proposal",
+        };
+        flow.Pairs(
+        [
+            ("MARR", marrText),
+            ("Life", $"{f.Number(e.Model.Years, 2)} years ({e.Model.Horizon} periods of {(e.Model.PeriodsPerYear == 1 ? "a year" : $"1/{e.Model.PeriodsPerYear} year")})"),
+            ("Basis", basis?.Basis ?? ProposalRanking.Repeatability),
+            ("Present worth", $"{f.Money(e.PresentWorth)} {f.CurrencyCode}" + (basis is null ? "" : $" over its life; {f.Money(basis.PresentWorth)} over the study period")),
+            ("Annual worth", $"{f.Money(basis?.AnnualWorth ?? e.AnnualWorth)} {f.CurrencyCode} a year"),
+            ("Future worth", e.FutureWorth is double fw ? $"{f.Money(fw)} {f.CurrencyCode} at the end of the life" : "not stated"),
+            ("Rate of return", rate),
+            ("External rate of return", f.Percent(e.ExternalRate, "none")),
+            ("Simple payback", e.SimplePaybackYears is double sp ? $"{f.Number(sp, 2)} years" : "not within the life"),
+            ("Discounted payback", e.DiscountedPaybackYears is double dp ? $"{f.Number(dp, 2)} years" : "not within the life"),
+            ("Benefit-cost ratio", e.BenefitCost.Conventional is double bc ? $"{f.Number(bc, 2)} (modified {(e.BenefitCost.Modified is double m ? f.Number(m, 2) : "–")})" : "not defined"),
+        ]);
+        flow.Gap(4);
+        flow.Note("In plain words", Meaning(data, e, basis?.AnnualWorth ?? e.AnnualWorth, f), PacketStyle.BrandSoft);
+    }
+
+    /// <summary>One paragraph a reader without the methods can act on.</summary>
+    internal static string Meaning(ProposalPacketData data, Evaluation e, double annualWorth, PacketFormat f)
+    {
+        double marr = e.Marr.EffectiveAnnual();
+        string worth = e.PresentWorth >= 0
+            ? $"At a MARR of {f.Percent(marr)} a year the proposal is worth {f.Money(e.PresentWorth)} {f.CurrencyCode} more today than leaving the money to earn the MARR elsewhere, the same as {f.Money(annualWorth)} {f.CurrencyCode} a year."
+            : $"At a MARR of {f.Percent(marr)} a year the proposal is worth {f.Money(-e.PresentWorth)} {f.CurrencyCode} less today than leaving the money to earn the MARR elsewhere, the same as a loss of {f.Money(-annualWorth)} {f.CurrencyCode} a year.";
+        string rate = e.RatesOfReturn.Count switch
+        {
+            1 when e.RatesOfReturn[0] >= marr => $" It earns {f.Percent(e.RatesOfReturn[0])} a year, above the MARR.",
+            1 => $" It earns {f.Percent(e.RatesOfReturn[0])} a year, below the MARR.",
+            0 => " No single rate of return describes its flows; judge it by its worth" + (e.ExternalRate is double x ? $" and its external rate of {f.Percent(x)}." : "."),
+            _ => " Its flows have several rates of return, so none of them describes it; judge it by its worth" + (e.ExternalRate is double y ? $" and its external rate of {f.Percent(y)}." : "."),
+        };
+        string payback = e.DiscountedPaybackYears is double dp
+            ? $" It recovers its first cost with interest at the MARR after {f.Number(dp, 1)} years."
+            : " It does not recover its first cost with interest at the MARR within its life.";
+        return worth + rate + payback + $" The board's decision: {OutcomeText(data.Decision.Outcome).ToLowerInvariant()}.";
+    }
+
+    private static void PerPeriod(PageFlow flow, Evaluation e, PacketFormat f)
+    {
+        var model = e.Model;
+        var categories = new[] { CashFlowCategory.Capital, CashFlowCategory.Operating, CashFlowCategory.Revenue, CashFlowCategory.Salvage };
+        var byCategory = categories.ToDictionary(c => c, c => new double[model.Horizon + 1]);
+        for (int k = 0; k < model.Elements.Count; k++)
+        {
+            double[] flows = model.FlowsOf(k);
+            var target = byCategory[model.Elements[k].Category];
+            for (int t = 0; t < flows.Length; t++)
+            {
+                target[t] += flows[t];
+            }
+        }
+        double i = e.MarrPerPeriod, cumulative = 0, discount = 1;
+        var rows = new List<TableRow>();
+        for (int t = 0; t <= model.Horizon; t++)
+        {
+            double discounted = model.NetFlows[t] * discount;
+            cumulative += discounted;
+            rows.Add(new TableRow([t.ToString(f.Culture), .. categories.Select(c => f.Money(byCategory[c][t])), f.Money(model.NetFlows[t]), f.Money(discounted), f.Money(cumulative)]));
+            discount /= 1 + i;
+        }
+        rows.Add(new TableRow(["Total", .. categories.Select(c => f.Money(byCategory[c].Sum())), f.Money(model.NetFlows.Sum()), f.Money(cumulative), ""], Bold: true));
+        TableWriter.Draw(flow,
+        [
+            new("Period", 0.8), new("Capital", 1.2, true), new("Operating", 1.2, true), new("Revenue", 1.2, true), new("Salvage", 1.2, true),
+            new("Net", 1.2, true), new("Discounted at MARR", 1.3, true), new("Cumulative discounted", 1.4, true),
+        ], rows);
+        flow.Text($"Amounts in {f.CurrencyCode}; discounted at {f.Percent(e.MarrPerPeriod)} a period to period 0. The cumulative column crosses zero at the discounted payback.", PacketStyle.Small, PacketStyle.SoftBrush);
+    }
+
+    private static void PerElement(PageFlow flow, Evaluation e, Engine.Specifications.ModelSpec spec, PacketFormat f)
+    {
+        var rows = new List<TableRow>();
+        for (int k = 0; k < e.Model.Elements.Count; k++)
+        {
+            var entered = spec.Elements![k]!;
+            double pw = FlowWorth.PresentWorth(e.Model.FlowsOf(k), e.MarrPerPeriod);
+            string periods = entered.Period is int p ? p.ToString(f.Culture) : $"{entered.First}–{entered.Last}" + (entered.Every is int every ? $" every {every}" : "");
+            string shape = entered.Type switch
+            {
+                Engine.Specifications.ElementKind.Arithmetic => $"{f.Money(entered.Amount ?? 0)}, then {f.Money(entered.Step ?? 0)} a period",
+                Engine.Specifications.ElementKind.Geometric => $"{f.Money(entered.Amount ?? 0)}, then {f.Percent(entered.Growth ?? 0)} a period",
+                _ => f.Money(entered.Amount ?? 0),
+            };
+            rows.Add(new TableRow([entered.Label ?? "", entered.Type?.ToString() ?? "", entered.Category?.ToString() ?? "", periods, shape, f.Money(pw)]));
+        }
+        rows.Add(new TableRow(["Present worth", "", "", "", "", f.Money(e.PresentWorth)], Bold: true));
+        TableWriter.Draw(flow, [new("Element", 2.6), new("Shape", 1.1), new("Category", 1.1), new("Periods", 1.1), new("Amount", 2.2, true), new("PW at MARR", 1.4, true)], rows);
+    }
+
+    private static void History(PageFlow flow, ProposalPacketData data, PacketFormat f)
+    {
+        flow.Heading("Version history", PacketStyle.Heading1);
+        var versions = data.Proposal.Versions.Where(v => v.Number <= data.Version.Number).ToList();
+        TableWriter.Draw(flow, [new("Version", 0.7, true), new("Made", 1.6), new("Reason", 2.6), new("State", 1.6), new("Assumptions SHA-256", 3.2)],
+            versions.Select(v => new TableRow([v.Number.ToString(f.Culture), f.Time(v.CreatedAt), v.Reason, v.IsFrozen ? "submitted" : "draft", v.AssumptionsHash])));
+        var policy = data.Marr.RateFor(data.Proposal.RiskClass);
+        for (int k = 1; k < versions.Count; k++)
+        {
+            var difference = VersionComparison.Compare(versions[k - 1], versions[k], policy);
+            flow.Heading($"Changes from version {difference.From} to version {difference.To}", PacketStyle.Heading2);
+            TableWriter.Draw(flow, [new("Field", 3), new("Before", 2, true), new("After", 2, true)],
+                difference.Fields.Count == 0 ? [new TableRow(["no field changed", "", ""])] : difference.Fields.Select(c => new TableRow([c.Path, c.Before ?? "–", c.After ?? "–"])));
+        }
+        if (versions.Count == 1)
+        {
+            flow.Text("The decision rests on the first version; there are no earlier versions to compare.", PacketStyle.Body);
+            flow.Gap(6);
+        }
+    }
+}

@@ -1,0 +1,130 @@
+using System.Diagnostics;
+using CapReview.Packets.Layout;
+using CapReview.Reviews.Common;
+using CapReview.Reviews.Marr;
+using UglyToad.PdfPig;
+using UglyToad.PdfPig.DocumentLayoutAnalysis.TextExtractor;
+using PigDocument = UglyToad.PdfPig.PdfDocument;
+
+namespace CapReview.Packets.Tests;
+
+public sealed class ProposalPacketTests
+{
+    private static readonly byte[] Packet = PacketRenderer.Proposal(PacketSamples.ProposalData(), PacketSamples.Certificate);
+
+    private static string Text(byte[] pdf)
+    {
+        using PigDocument document = PigDocument.Open(pdf);
+        return string.Join("\n", document.GetPages().Select(p => ContentOrderTextExtractor.GetText(p)));
+    }
+
+    [Fact]
+    public void The_packet_states_the_decision_the_hashes_the_sign_offs_and_the_cautions()
+    {
+        string text = Text(Packet);
+        var data = PacketSamples.ProposalData();
+        Assert.Contains("Tarnby Components Ltd", text);
+        Assert.Contains("P-0002", text);
+        Assert.Contains("CNC line 3 replacement", text);
+        Assert.Contains("APPROVED", text);
+        Assert.Contains("Order before the March price rise", text);
+        Assert.Contains(data.Version.AssumptionsHash, text.Replace("\n", "", StringComparison.Ordinal));
+        Assert.Contains(MarrPolicyDocument.Hash(PacketSamples.Marr), text.Replace("\n", "", StringComparison.Ordinal));
+        Assert.Contains("Tove Berg", text);
+        Assert.Contains("Aino Salo", text);
+        Assert.Contains("Development signature", text);
+        Assert.Contains(Cautions.Estimates[..60], text.Replace("\n", " ", StringComparison.Ordinal));
+        Assert.Contains("Changes from version 1 to version 2", text);
+        Assert.Contains("model.elements[1].amount", text);
+    }
+
+    [Fact]
+    public void The_measures_are_the_engines_at_the_policy_marr_with_thousands_separators()
+    {
+        var data = PacketSamples.ProposalData();
+        var evaluation = Reviews.Proposals.VersionComparison.Evaluate(data.Version.Assumptions, PacketSamples.Marr.RateFor(data.Proposal.RiskClass))!;
+        var format = new PacketFormat(PacketSamples.Organisation.Culture, "EUR");
+        string text = Text(Packet);
+        Assert.Contains($"{format.Money(evaluation.PresentWorth)} EUR", text);
+        Assert.Contains($"{format.Money(evaluation.AnnualWorth)} EUR a year", text);
+        Assert.Contains(format.Percent(evaluation.RatesOfReturn.Single()) + " a year (unique)", text);
+        Assert.Contains("9.00 % a year effective: policy version 1 for risk class Standard", text);
+        Assert.Matches(@"\d{1,3},\d{3}", format.Money(evaluation.PresentWorth));
+    }
+
+    [Fact]
+    public void Pages_are_numbered_bookmarked_and_sized_to_the_chosen_paper()
+    {
+        using PigDocument a4 = PigDocument.Open(Packet);
+        int pages = a4.NumberOfPages;
+        Assert.True(pages >= 4, $"{pages} pages");
+        Assert.Contains($"page 1 of {pages}", ContentOrderTextExtractor.GetText(a4.GetPage(1)));
+        Assert.Contains($"page {pages} of {pages}", ContentOrderTextExtractor.GetText(a4.GetPage(pages)));
+        Assert.Equal(595, Math.Round(a4.GetPage(1).Width));
+        Assert.Equal(842, Math.Round(a4.GetPage(1).Height));
+        Assert.True(a4.TryGetBookmarks(out var bookmarks));
+        Assert.Equal("P-0002 CNC line 3 replacement", bookmarks.Roots.Single().Title);
+        Assert.Contains("Version history", bookmarks.Roots.Single().Children.Select(c => c.Title));
+
+        using PigDocument letter = PigDocument.Open(PacketRenderer.Proposal(PacketSamples.ProposalData(PaperSize.Letter), PacketSamples.Certificate));
+        Assert.Equal(612, Math.Round(letter.GetPage(1).Width));
+        Assert.Equal(792, Math.Round(letter.GetPage(1).Height));
+    }
+
+    [Fact]
+    public void The_signature_verifies_with_pdfsig_and_a_changed_byte_makes_it_fail()
+    {
+        string folder = Directory.CreateTempSubdirectory("capreview-pdfsig-").FullName;
+        string good = Path.Combine(folder, "packet.pdf"), bad = Path.Combine(folder, "tampered.pdf");
+        File.WriteAllBytes(good, Packet);
+        byte[] tampered = (byte[])Packet.Clone();
+        // Change one digit inside the page content, outside the signature's own bytes.
+        int at = FindOutsideSignature(tampered);
+        tampered[at] = (byte)(tampered[at] == (byte)'1' ? '2' : '1');
+        File.WriteAllBytes(bad, tampered);
+
+        Assert.Contains("Signature is Valid.", Pdfsig(good));
+        Assert.DoesNotContain("Signature is Valid.", Pdfsig(bad));
+        Assert.True(SignatureCheck.Verifies(Packet));
+        Assert.False(SignatureCheck.Verifies(tampered));
+    }
+
+    private static int FindOutsideSignature(byte[] pdf)
+    {
+        var (start, gapStart, gapEnd) = SignatureCheck.Ranges(pdf);
+        for (int k = pdf.Length / 3; k < pdf.Length; k++)
+        {
+            if ((k < gapStart || k >= gapEnd) && k >= start && pdf[k] is (byte)'0' or (byte)'1' or (byte)'2')
+            {
+                return k;
+            }
+        }
+        throw new InvalidOperationException("No digit outside the signature.");
+    }
+
+    internal static string Pdfsig(string path)
+    {
+        using var process = Process.Start(new ProcessStartInfo("pdfsig", [path]) { RedirectStandardOutput = true, RedirectStandardError = true })
+            ?? throw new InvalidOperationException("pdfsig (Debian poppler-utils) is not installed.");
+        string output = process.StandardOutput.ReadToEnd() + process.StandardError.ReadToEnd();
+        process.WaitForExit();
+        return output;
+    }
+}
+
+/// <summary>Writes sample packets for looking at (CAPREVIEW_PACKETS=folder); does nothing otherwise.</summary>
+public sealed class SamplePacketFiles
+{
+    [Fact]
+    public void Write_sample_packets_when_asked()
+    {
+        string? folder = Environment.GetEnvironmentVariable("CAPREVIEW_PACKETS");
+        if (string.IsNullOrEmpty(folder))
+        {
+            return;
+        }
+        Directory.CreateDirectory(folder);
+        File.WriteAllBytes(Path.Combine(folder, "proposal.pdf"), PacketRenderer.Proposal(PacketSamples.ProposalData(), PacketSamples.Certificate));
+        File.WriteAllBytes(Path.Combine(folder, "cycle.pdf"), PacketRenderer.Cycle(PacketSamples.CycleData(4), PacketSamples.Certificate));
+    }
+}
