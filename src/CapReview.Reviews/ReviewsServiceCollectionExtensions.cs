@@ -34,6 +34,8 @@ public static class ReviewsServiceCollectionExtensions
         services.AddSingleton<CycleRankingService>();
         services.AddSingleton<PortfolioService>();
         services.AddSingleton<ReplacementService>();
+        services.AddSingleton<Records.PacketArchive>();
+        services.AddSingleton<Records.DecisionRecords>();
         return services;
     }
 }

@@ -128,3 +128,38 @@ public sealed class SamplePacketFiles
         File.WriteAllBytes(Path.Combine(folder, "cycle.pdf"), PacketRenderer.Cycle(PacketSamples.CycleData(4), PacketSamples.Certificate));
     }
 }
+
+public sealed class CyclePacketTests
+{
+    [Fact]
+    public void A_cycle_packet_of_30_proposals_renders_with_a_bookmark_for_each_and_page_numbers()
+    {
+        byte[] packet = PacketRenderer.Cycle(PacketSamples.CycleData(30), PacketSamples.Certificate);
+        using var pdf = UglyToad.PdfPig.PdfDocument.Open(packet);
+        Assert.True(pdf.NumberOfPages > 90, $"{pdf.NumberOfPages} pages");
+        Assert.True(pdf.TryGetBookmarks(out var bookmarks));
+        Assert.Equal(31, bookmarks.Roots.Count);
+        Assert.Contains($"page {pdf.NumberOfPages} of {pdf.NumberOfPages}",
+            UglyToad.PdfPig.DocumentLayoutAnalysis.TextExtractor.ContentOrderTextExtractor.GetText(pdf.GetPage(pdf.NumberOfPages)));
+        Assert.True(SignatureCheck.Verifies(packet));
+    }
+
+    [Fact]
+    public void Making_a_packet_again_for_the_same_version_cites_the_same_assumptions_hash()
+    {
+        var data = PacketSamples.ProposalData();
+        // Every SHA-256 the cover cites (assumptions, MARR policy), in order; a wrapped hash is joined again.
+        string[] Hashes(byte[] pdf)
+        {
+            using var document = UglyToad.PdfPig.PdfDocument.Open(pdf);
+            string text = UglyToad.PdfPig.DocumentLayoutAnalysis.TextExtractor.ContentOrderTextExtractor.GetText(document.GetPage(1)).Replace("\n", "", StringComparison.Ordinal);
+            return [.. System.Text.RegularExpressions.Regex.Matches(text, "[0-9a-f]{64}").Select(m => m.Value)];
+        }
+        string[] first = Hashes(PacketRenderer.Proposal(data, PacketSamples.Certificate));
+        string[] second = Hashes(PacketRenderer.Proposal(data with { GeneratedAt = data.GeneratedAt.AddDays(1) }, PacketSamples.Certificate));
+        string recomputed = Reviews.Proposals.AssumptionsDocument.Hash(Reviews.Proposals.AssumptionsDocument.Serialize(data.Version.Assumptions));
+        Assert.Equal(data.Version.AssumptionsHash, recomputed);
+        Assert.Contains(recomputed, first);
+        Assert.Equal(first, second);
+    }
+}

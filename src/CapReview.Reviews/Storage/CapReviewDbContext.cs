@@ -7,6 +7,7 @@ using CapReview.Reviews.Marr;
 using CapReview.Reviews.Organisation;
 using CapReview.Reviews.Portfolio;
 using CapReview.Reviews.Proposals;
+using CapReview.Reviews.Records;
 using Microsoft.EntityFrameworkCore;
 using Microsoft.EntityFrameworkCore.ChangeTracking;
 
@@ -40,6 +41,8 @@ public sealed class CapReviewDbContext(DbContextOptions<CapReviewDbContext> opti
 
     public DbSet<Contingency> Contingencies => Set<Contingency>();
 
+    public DbSet<ApprovalPacket> ApprovalPackets => Set<ApprovalPacket>();
+
     public override int SaveChanges(bool acceptAllChangesOnSuccess)
     {
         RefuseChangesToWrittenOnceRows();
@@ -70,6 +73,8 @@ public sealed class CapReviewDbContext(DbContextOptions<CapReviewDbContext> opti
                     throw new RuleViolationException("A MARR policy version cannot be changed or deleted; add a new version.");
                 case Decision or SignOff or ProposalComment:
                     throw new RuleViolationException("Decisions and sign-offs are written once: record a new decision instead.");
+                case ApprovalPacket:
+                    throw new RuleViolationException("An approval packet is stored once and never changed.");
             }
         }
     }
@@ -182,6 +187,22 @@ public sealed class CapReviewDbContext(DbContextOptions<CapReviewDbContext> opti
             c.HasOne<BudgetCycle>().WithMany().HasForeignKey(x => x.BudgetCycleId).OnDelete(DeleteBehavior.Restrict);
             c.HasOne<Proposal>().WithMany().HasForeignKey(x => x.DependentProposalId).OnDelete(DeleteBehavior.Restrict);
             c.HasOne<Proposal>().WithMany().HasForeignKey(x => x.PrerequisiteProposalId).OnDelete(DeleteBehavior.Restrict);
+        });
+
+        modelBuilder.Entity<ApprovalPacket>(p =>
+        {
+            p.ToTable("approval_packet");
+            p.Property(x => x.Kind).HasConversion<string>().HasMaxLength(20);
+            p.Property(x => x.AssumptionsHash).HasMaxLength(64);
+            p.Property(x => x.FileName).HasMaxLength(200);
+            p.Property(x => x.FileSha256).HasMaxLength(64);
+            p.Property(x => x.CertificateSubject).HasMaxLength(400);
+            p.Property(x => x.CertificateThumbprint).HasMaxLength(64);
+            // One packet per cycle and per decided proposal; a second attempt finds the first.
+            p.HasIndex(x => new { x.Kind, x.BudgetCycleId, x.ProposalId }).IsUnique();
+            p.HasOne<BudgetCycle>().WithMany().HasForeignKey(x => x.BudgetCycleId).OnDelete(DeleteBehavior.Restrict);
+            p.HasOne<Proposal>().WithMany().HasForeignKey(x => x.ProposalId).OnDelete(DeleteBehavior.Restrict);
+            p.HasOne<MarrPolicyVersion>().WithMany().HasForeignKey(x => x.MarrPolicyVersionId).OnDelete(DeleteBehavior.Restrict);
         });
 
         modelBuilder.Entity<AuditEvent>(a =>

@@ -1,5 +1,6 @@
 using System.Text.Json;
 using System.Text.Json.Serialization;
+using CapReview.Packets;
 using CapReview.Reviews;
 using CapReview.Reviews.Storage;
 using CapReview.Web.Api;
@@ -7,6 +8,7 @@ using CapReview.Web.Components;
 using CapReview.Web.Demo;
 using CapReview.Web.Exports;
 using CapReview.Web.Identity;
+using CapReview.Web.Packets;
 using CapReview.Web.Formatting;
 using Microsoft.Extensions.Options;
 
@@ -24,6 +26,7 @@ public static class CapReviewHosting
         string connection = storage.SqliteConnectionString(builder.Configuration.GetConnectionString("CapReview"), builder.Environment.ContentRootPath);
         services.AddReviews(connection);
         services.AddCapReviewIdentity(connection);
+        services.AddPackets(PacketSettings.Read(builder.Configuration, connection, builder.Environment.ContentRootPath));
         services.AddScoped<DemoScenario>();
 
         services.AddRazorComponents().AddInteractiveServerComponents();
@@ -81,6 +84,7 @@ public static class CapReviewHosting
         app.MapEvaluationEndpoints();
         app.MapAccountEndpoints();
         app.MapExportEndpoints();
+        app.MapPacketEndpoints();
         app.MapRazorComponents<App>().AddInteractiveServerRenderMode();
         return app;
     }

@@ -38,6 +38,7 @@ public sealed partial class AuthorizationMatrix(ApiFactory factory) : IClassFixt
         ["/cycles/{Id:int}/portfolio"] = ("GET", "/cycles/1/portfolio", ["signin", "denied", "200", "200", "200"]),
         ["/cycles/{id:int}/ranking/{format:regex(^(csv|xlsx)$)}"] = ("GET", "/cycles/1/ranking/csv", ["signin", "denied", "200", "200", "200"]),
         ["/cycles/{id:int}/portfolio/{format:regex(^(csv|xlsx)$)}"] = ("GET", "/cycles/1/portfolio/xlsx", ["signin", "denied", "200", "200", "200"]),
+        ["/packets/{id:int}"] = ("GET", "/packets/1", ["signin", "404", "404", "404", "404"]),
         ["/proposals/{Id:int}/replacement"] = ("GET", "/proposals/1/replacement", ["signin", "200", "200", "200", "200"]),
         ["/admin/users"] = ("GET", "/admin/users", ["signin", "denied", "denied", "denied", "200"]),
         ["/admin/marr"] = ("GET", "/admin/marr", ["signin", "denied", "denied", "denied", "200"]),

@@ -495,6 +495,77 @@ namespace CapReview.Reviews.Storage.Migrations
                     b.ToTable("proposal_version", (string)null);
                 });
 
+            modelBuilder.Entity("CapReview.Reviews.Records.ApprovalPacket", b =>
+                {
+                    b.Property<int>("Id")
+                        .ValueGeneratedOnAdd()
+                        .HasColumnType("INTEGER");
+
+                    b.Property<string>("AssumptionsHash")
+                        .HasMaxLength(64)
+                        .HasColumnType("TEXT");
+
+                    b.Property<int>("BudgetCycleId")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<string>("CertificateSubject")
+                        .IsRequired()
+                        .HasMaxLength(400)
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("CertificateThumbprint")
+                        .IsRequired()
+                        .HasMaxLength(64)
+                        .HasColumnType("TEXT");
+
+                    b.Property<byte[]>("Content")
+                        .IsRequired()
+                        .HasColumnType("BLOB");
+
+                    b.Property<DateTimeOffset>("CreatedAt")
+                        .HasColumnType("TEXT");
+
+                    b.Property<bool>("DevelopmentCertificate")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<string>("FileName")
+                        .IsRequired()
+                        .HasMaxLength(200)
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("FileSha256")
+                        .IsRequired()
+                        .HasMaxLength(64)
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("Kind")
+                        .IsRequired()
+                        .HasMaxLength(20)
+                        .HasColumnType("TEXT");
+
+                    b.Property<int>("MarrPolicyVersionId")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<int?>("ProposalId")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<int?>("VersionNumber")
+                        .HasColumnType("INTEGER");
+
+                    b.HasKey("Id");
+
+                    b.HasIndex("BudgetCycleId");
+
+                    b.HasIndex("MarrPolicyVersionId");
+
+                    b.HasIndex("ProposalId");
+
+                    b.HasIndex("Kind", "BudgetCycleId", "ProposalId")
+                        .IsUnique();
+
+                    b.ToTable("approval_packet", (string)null);
+                });
+
             modelBuilder.Entity("CapReview.Reviews.Comments.ProposalComment", b =>
                 {
                     b.HasOne("CapReview.Reviews.Proposals.Proposal", null)
@@ -582,6 +653,26 @@ namespace CapReview.Reviews.Storage.Migrations
                         .HasForeignKey("ProposalId")
                         .OnDelete(DeleteBehavior.Restrict)
                         .IsRequired();
+                });
+
+            modelBuilder.Entity("CapReview.Reviews.Records.ApprovalPacket", b =>
+                {
+                    b.HasOne("CapReview.Reviews.Cycles.BudgetCycle", null)
+                        .WithMany()
+                        .HasForeignKey("BudgetCycleId")
+                        .OnDelete(DeleteBehavior.Restrict)
+                        .IsRequired();
+
+                    b.HasOne("CapReview.Reviews.Marr.MarrPolicyVersion", null)
+                        .WithMany()
+                        .HasForeignKey("MarrPolicyVersionId")
+                        .OnDelete(DeleteBehavior.Restrict)
+                        .IsRequired();
+
+                    b.HasOne("CapReview.Reviews.Proposals.Proposal", null)
+                        .WithMany()
+                        .HasForeignKey("ProposalId")
+                        .OnDelete(DeleteBehavior.Restrict);
                 });
 
             modelBuilder.Entity("CapReview.Reviews.Proposals.Proposal", b =>

@@ -1,0 +1,31 @@
+using CapReview.Reviews.Common;
+using CapReview.Reviews.Cycles;
+using CapReview.Reviews.Decisions;
+using CapReview.Reviews.Marr;
+using CapReview.Reviews.Proposals;
+using Microsoft.EntityFrameworkCore;
+
+namespace CapReview.Reviews.Records;
+
+/// <summary>What a decided cycle's record holds: the cycle, its MARR, the sign-offs and each proposal's latest decision.</summary>
+public sealed record CycleRecord(BudgetCycle Cycle, MarrPolicyVersion Marr, IReadOnlyList<SignOff> SignOffs, IReadOnlyList<(ProposalView Proposal, Decision Decision)> Decided);
+
+/// <summary>Reads the record of a cycle for its packets.</summary>
+public sealed class DecisionRecords(ReviewWork work)
+{
+    public Task<CycleRecord> ForCycleAsync(int cycleId, CancellationToken cancellationToken) =>
+        work.ReadAsync(async db =>
+        {
+            BudgetCycle cycle = await db.BudgetCycles.SingleOrDefaultAsync(c => c.Id == cycleId, cancellationToken).ConfigureAwait(false)
+                ?? throw new NotFoundException("There is no such budget cycle.");
+            var marr = await db.MarrPolicyVersions.SingleAsync(m => m.Id == cycle.MarrPolicyVersionId, cancellationToken).ConfigureAwait(false);
+            var signOffs = await db.SignOffs.Where(s => s.BudgetCycleId == cycleId).OrderBy(s => s.Id).ToListAsync(cancellationToken).ConfigureAwait(false);
+            var proposals = await db.Proposals.Include(p => p.Versions).Where(p => p.BudgetCycleId == cycleId).OrderBy(p => p.Id)
+                .ToListAsync(cancellationToken).ConfigureAwait(false);
+            var ids = proposals.Select(p => p.Id).ToList();
+            var latest = (await db.Decisions.Where(d => ids.Contains(d.ProposalId)).ToListAsync(cancellationToken).ConfigureAwait(false))
+                .GroupBy(d => d.ProposalId).ToDictionary(g => g.Key, g => g.OrderBy(d => d.Id).Last());
+            var decided = proposals.Where(p => latest.ContainsKey(p.Id)).Select(p => (ProposalView.Of(p), latest[p.Id])).ToList();
+            return new CycleRecord(cycle, marr, signOffs, decided);
+        }, cancellationToken);
+}

@@ -1,0 +1,96 @@
+using CapReview.Reviews.Common;
+using CapReview.Reviews.Proposals;
+using CapReview.Reviews.Records;
+using Microsoft.EntityFrameworkCore;
+using UglyToad.PdfPig.DocumentLayoutAnalysis.TextExtractor;
+using static CapReview.Packets.Tests.PacketDatabase;
+using PigDocument = UglyToad.PdfPig.PdfDocument;
+
+namespace CapReview.Packets.Tests;
+
+public sealed class PacketFlowTests(PacketDatabase db) : IClassFixture<PacketDatabase>
+{
+    private static readonly CancellationToken None = CancellationToken.None;
+
+    [Fact]
+    public async Task A_decided_cycle_gets_one_signed_packet_per_decided_proposal_and_one_for_the_cycle_made_once()
+    {
+        var (cycle, proposals) = await db.DecidedCycleAsync("Packets 2027", (120_000, 24_000), (80_000, 15_000), (60_000, 7_000));
+        var made = await db.Get<PacketService>().PublishCycleAsync(Board, cycle.Id, None);
+        Assert.Equal(4, made.Count);
+        Assert.Single(made, p => p.Kind == PacketKind.Cycle);
+        var again = await db.Get<PacketService>().PublishCycleAsync(Finance, cycle.Id, None);
+        Assert.Equal(made.Select(p => (p.Id, p.FileSha256)), again.Select(p => (p.Id, p.FileSha256)));
+
+        var archive = db.Get<PacketArchive>();
+        var first = await archive.ForProposalAsync(Lead, proposals[0].Id, None);
+        var stored = await archive.DownloadAsync(Lead, first!.Id, None);
+        Assert.Equal(PacketArchive.Sha256(stored.Content), stored.FileSha256);
+        Assert.Equal(proposals[0].Latest.AssumptionsHash, stored.AssumptionsHash);
+        using (PigDocument pdf = PigDocument.Open(stored.Content))
+        {
+            string text = string.Join("\n", pdf.GetPages().Select(p => ContentOrderTextExtractor.GetText(p)));
+            Assert.Contains("Install in August", text);
+            Assert.Contains("Tove Board", text);
+            Assert.Contains("Aino Board", text);
+            Assert.Contains(proposals[0].Latest.AssumptionsHash, text.Replace("\n", "", StringComparison.Ordinal));
+        }
+        Assert.Contains("Signature is Valid.", Pdfsig(stored.Content));
+
+        var cyclePacket = made.Single(p => p.Kind == PacketKind.Cycle);
+        using (PigDocument pdf = PigDocument.Open((await archive.DownloadAsync(Finance, cyclePacket.Id, None)).Content))
+        {
+            Assert.True(pdf.TryGetBookmarks(out var bookmarks));
+            Assert.Equal(["Cycle summary", .. proposals.Select(p => $"{p.Reference} {p.Title}")], bookmarks.Roots.Select(b => b.Title));
+            Assert.Contains("Rejected", string.Join("\n", pdf.GetPages().Take(2).Select(p => ContentOrderTextExtractor.GetText(p))));
+        }
+
+        await using var context = db.NewContext();
+        var downloads = await context.AuditEvents.Where(e => e.Action == "packet.downloaded").Select(e => e.UserId).ToListAsync();
+        Assert.Equal([Lead.UserId, Finance.UserId], downloads);
+    }
+
+    [Fact]
+    public async Task Leads_see_only_their_own_packets_and_an_altered_stored_packet_is_not_served()
+    {
+        var (cycle, proposals) = await db.DecidedCycleAsync("Access 2027", (50_000, 9_000));
+        var made = await db.Get<PacketService>().PublishCycleAsync(Board, cycle.Id, None);
+        var archive = db.Get<PacketArchive>();
+        Assert.Single(await archive.ListAsync(Lead, cycle.Id, None));
+        Assert.Empty(await archive.ListAsync(OtherLead, cycle.Id, None));
+        Assert.Null(await archive.ForProposalAsync(OtherLead, proposals[0].Id, None));
+        int proposalPacket = made.Single(p => p.Kind == PacketKind.Proposal).Id;
+        int cyclePacket = made.Single(p => p.Kind == PacketKind.Cycle).Id;
+        await Assert.ThrowsAsync<NotFoundException>(() => archive.DownloadAsync(OtherLead, proposalPacket, None));
+        await Assert.ThrowsAsync<NotFoundException>(() => archive.DownloadAsync(Lead, cyclePacket, None));
+        await Assert.ThrowsAsync<AccessDeniedException>(() => db.Get<PacketService>().PublishCycleAsync(Lead, cycle.Id, None));
+
+        await using (var context = db.NewContext())
+        {
+            // Someone with database access swaps the stored file.
+            await context.Database.ExecuteSqlRawAsync("UPDATE approval_packet SET Content = X'255044462D' WHERE Id = {0}", proposalPacket);
+            var packet = await context.ApprovalPackets.SingleAsync(p => p.Id == proposalPacket);
+            packet.FileName = "changed.pdf";
+            Assert.Throws<RuleViolationException>(() => context.SaveChanges());
+        }
+        await Assert.ThrowsAsync<RuleViolationException>(() => archive.DownloadAsync(Finance, proposalPacket, None));
+    }
+
+    [Fact]
+    public async Task Packets_wait_for_the_cycle_to_be_decided()
+    {
+        var marr = await db.Get<Reviews.Marr.MarrPolicyService>().AddVersionAsync(Admin,
+            new Reviews.Marr.NewMarrPolicy(0.08, Engine.Rates.RateBasis.Effective, 1, new DateOnly(2027, 1, 1), "Open"), None);
+        var open = await db.Get<Reviews.Cycles.CycleService>().CreateAsync(Admin,
+            new Reviews.Cycles.NewBudgetCycle("Still open 2027", 1_000m, marr.Id, new DateOnly(2027, 1, 1), new DateOnly(2027, 2, 1)), None);
+        var refusal = await Assert.ThrowsAsync<RuleViolationException>(() => db.Get<PacketService>().PublishCycleAsync(Board, open.Id, None));
+        Assert.Contains("decided", refusal.Message);
+    }
+
+    private static string Pdfsig(byte[] pdf)
+    {
+        string path = Path.Combine(Directory.CreateTempSubdirectory("capreview-pdfsig-").FullName, "packet.pdf");
+        File.WriteAllBytes(path, pdf);
+        return ProposalPacketTests.Pdfsig(path);
+    }
+}
