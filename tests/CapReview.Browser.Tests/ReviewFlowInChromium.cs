@@ -68,6 +68,17 @@ public sealed class ReviewFlowInChromium(BrowserFixture browser) : IClassFixture
         await Assertions.Expect(second.GetByTestId("cycle-status")).ToContainTextAsync("Decided");
         await Assertions.Expect(second.GetByTestId("sign-offs")).ToContainTextAsync("Ulla Board");
         await Assertions.Expect(second.GetByTestId("sign-offs")).ToContainTextAsync("Jon Board");
+        // The deciding sign-off makes the signed packets: one for the proposal, one for the cycle.
+        await Assertions.Expect(second.GetByTestId("cycle-message")).ToContainTextAsync("2 signed packets are stored.");
+        await Assertions.Expect(second.GetByTestId("packets").Locator("tbody tr")).ToHaveCountAsync(2);
+        string href = (await second.GetByTestId("packets").Locator("a").First.GetAttributeAsync("href"))!;
+        var download = await second.APIRequest.GetAsync(browser.App.BaseAddress + href);
+        Assert.Equal("application/pdf", download.Headers["content-type"]);
+        Assert.Equal("%PDF", System.Text.Encoding.ASCII.GetString((await download.BodyAsync())[..4]));
         await BrowserFixture.ScreenshotAsync(second, "cycle-decided");
+
+        // The lead finds the packet of the proposal on its page.
+        await lead.ReloadAsync();
+        await Assertions.Expect(lead.GetByTestId("packet-link")).ToBeVisibleAsync();
     }
 }
