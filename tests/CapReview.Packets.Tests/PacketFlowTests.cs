@@ -38,7 +38,13 @@ public sealed class PacketFlowTests(PacketDatabase db) : IClassFixture<PacketDat
         Assert.Contains("Signature is Valid.", Pdfsig(stored.Content));
 
         var cyclePacket = made.Single(p => p.Kind == PacketKind.Cycle);
-        using (PigDocument pdf = PigDocument.Open((await archive.DownloadAsync(Finance, cyclePacket.Id, None)).Content))
+        byte[] cycleBytes = (await archive.DownloadAsync(Finance, cyclePacket.Id, None)).Content;
+        if (Environment.GetEnvironmentVariable("CAPREVIEW_PACKETS") is { Length: > 0 } folder)
+        {
+            Directory.CreateDirectory(folder);
+            File.WriteAllBytes(Path.Combine(folder, "stored-cycle.pdf"), cycleBytes);
+        }
+        using (PigDocument pdf = PigDocument.Open(cycleBytes))
         {
             Assert.True(pdf.TryGetBookmarks(out var bookmarks));
             Assert.Equal(["Cycle summary", .. proposals.Select(p => $"{p.Reference} {p.Title}")], bookmarks.Roots.Select(b => b.Title));

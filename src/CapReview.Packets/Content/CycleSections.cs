@@ -37,7 +37,8 @@ internal static class CycleSections
             ("Optimal selection", portfolio.Optimal.Feasible
                 ? $"{string.Join(", ", portfolio.Optimal.Chosen)}: total {(portfolio.Objective == SelectionObjective.AnnualWorth ? "annual" : "present")} worth {f.Money(portfolio.Optimal.TotalWorth)} {f.CurrencyCode}, first cost {f.Money(portfolio.Optimal.TotalCost)}{(portfolio.Optimal.ProvenOptimal ? ", proven optimal" : ", not proven optimal")}"
                 : "no set of the approved proposals meets the cycle's rules"),
-            ("Greedy fill by ranking", $"{string.Join(", ", portfolio.Greedy.Chosen)}: {f.Money(portfolio.Greedy.TotalWorth)} {f.CurrencyCode}, {f.Money(portfolio.Advantage)} less than the optimal selection"),
+            ("Greedy fill by ranking", $"{string.Join(", ", portfolio.Greedy.Chosen)}: {f.Money(portfolio.Greedy.TotalWorth)} {f.CurrencyCode}, " +
+                (Math.Abs(portfolio.Advantage) < 0.5 ? "the same as the optimal selection" : $"{f.Money(portfolio.Advantage)} less than the optimal selection")),
         ]);
         flow.Text("The optimal selection is the constraint solver's choice among the approved proposals within the capital limits, exclusive groups and contingencies; the board's decisions are the record.", PacketStyle.Small, PacketStyle.SoftBrush);
         flow.Gap(6);

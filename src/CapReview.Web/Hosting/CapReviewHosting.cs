@@ -15,7 +15,7 @@ using Microsoft.Extensions.Options;
 namespace CapReview.Web.Hosting;
 
 /// <summary>The composition root: what the web host registers and how its pipeline runs.</summary>
-public static class CapReviewHosting
+public static partial class CapReviewHosting
 {
     public static WebApplicationBuilder AddCapReview(this WebApplicationBuilder builder)
     {
@@ -51,7 +51,17 @@ public static class CapReviewHosting
             .ConfigureAwait(false);
         using IServiceScope scope = app.Services.CreateScope();
         await scope.ServiceProvider.GetRequiredService<IdentityStore>().InitializeAsync(app.Lifetime.ApplicationStopping).ConfigureAwait(false);
+
+        // The signing certificate is loaded (or the development one made) on first run, not at the first sign-off.
+        var certificate = app.Services.GetRequiredService<CapReview.Packets.Signing.PacketCertificateSource>().Get(organisation.Name);
+        if (certificate.Development)
+        {
+            DevelopmentSigning(app.Logger, app.Services.GetRequiredService<PacketOptions>().Signing.DevelopmentCertificatePath);
+        }
     }
+
+    [LoggerMessage(Level = LogLevel.Warning, Message = "Packets are signed with a development certificate ({Path}); configure Packets:Signing:CertificatePath for the organisation's.")]
+    private static partial void DevelopmentSigning(ILogger logger, string path);
 
     /// <summary>In demo mode (Demo:Enabled), writes the demo data into an empty database and prints the sign-ins.</summary>
     public static async Task EnsureDemoAsync(this WebApplication app)

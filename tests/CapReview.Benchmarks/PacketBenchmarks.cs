@@ -1,0 +1,122 @@
+using System.Globalization;
+using BenchmarkDotNet.Attributes;
+using CapReview.Packets;
+using CapReview.Packets.Content;
+using CapReview.Packets.Signing;
+using CapReview.Reviews.Cycles;
+using CapReview.Reviews.Decisions;
+using CapReview.Reviews.Marr;
+using CapReview.Reviews.Proposals;
+
+namespace CapReview.Benchmarks;
+
+/// <summary>
+/// Targets: a single-proposal packet under 300 ms; a 30-proposal cycle packet under 5 s with peak memory under
+/// 300 MB (the peak is measured by <c>-- packet-memory</c>, in a process of its own). Each packet is laid out, its
+/// charts drawn, signed (RSA 3072, SHA-256) and written out; the benchmark model is the 40-period, 10-element one.
+/// </summary>
+[MemoryDiagnoser]
+public class PacketBenchmarks
+{
+    private PacketCertificate _certificate = null!;
+    private ProposalPacketData _proposal = null!;
+    private CyclePacketData _cycle = null!;
+    private string _folder = "";
+
+    [GlobalSetup]
+    public void Setup()
+    {
+        _folder = Directory.CreateTempSubdirectory("capreview-bench-packets-").FullName;
+        _certificate = PacketCertificate.Load(new PacketSigningOptions { DevelopmentCertificatePath = Path.Combine(_folder, "signing.pfx") }, BenchmarkPackets.Organisation.Name);
+        _proposal = BenchmarkPackets.Proposal(1, new Random(2027));
+        _cycle = BenchmarkPackets.Cycle(30);
+    }
+
+    [GlobalCleanup]
+    public void Cleanup()
+    {
+        _certificate.Dispose();
+        Directory.Delete(_folder, recursive: true);
+    }
+
+    [Benchmark(Description = "Single-proposal packet: lay out, draw, sign, write")]
+    public int Proposal() => PacketRenderer.Proposal(_proposal, _certificate).Length;
+
+    [Benchmark(Description = "Cycle packet of 30 proposals: lay out, draw, sign, write")]
+    public int Cycle() => PacketRenderer.Cycle(_cycle, _certificate).Length;
+}
+
+/// <summary>Invented packet contents for the benchmarks: proposals on the benchmark model, decided and signed off.</summary>
+internal static class BenchmarkPackets
+{
+    public static readonly PacketOrganisation Organisation = new("Benchmark Works Ltd", "EUR", CultureInfo.GetCultureInfo("en-IE"));
+    private static readonly DateTimeOffset Made = new(2027, 3, 30, 9, 0, 0, TimeSpan.Zero);
+
+    private static readonly BudgetCycle BenchCycle = new()
+    {
+        Id = 1, Name = "Benchmark plan", CapitalLimit = 90_000_000m, MarrPolicyVersionId = 1, OpensOn = new DateOnly(2027, 1, 1),
+        ClosesOn = new DateOnly(2027, 3, 1), Status = CycleStatus.Decided, RequiredSignOffs = 2,
+    };
+
+    private static readonly MarrPolicyVersion Policy = new()
+    {
+        Id = 1, Number = 1, Rate = 0.09, Basis = Engine.Rates.RateBasis.Effective, EffectiveFrom = new DateOnly(2027, 1, 1), SetBy = "bench", Reason = "Benchmark",
+    };
+
+    private static readonly SignOff[] Signed =
+    [
+        new() { BudgetCycleId = 1, UserId = "b1", DisplayName = "First Member", SignedAt = Made, DecisionsSigned = "[]" },
+        new() { BudgetCycleId = 1, UserId = "b2", DisplayName = "Second Member", SignedAt = Made, DecisionsSigned = "[]" },
+    ];
+
+    public static ProposalPacketData Proposal(int id, Random random)
+    {
+        var (proposal, decision) = Decided(id, random);
+        return new ProposalPacketData(Organisation, BenchCycle, Policy, proposal, decision, Signed, Made, new SigningNotice("", "", true));
+    }
+
+    public static CyclePacketData Cycle(int proposals)
+    {
+        var random = new Random(2027);
+        return new CyclePacketData(Organisation, BenchCycle, Policy, Signed, [.. Enumerable.Range(1, proposals).Select(k => Decided(k, random))], null, Made,
+            new SigningNotice("", "", true));
+    }
+
+    private static (ProposalView, Decision) Decided(int id, Random random)
+    {
+        VersionView Version(int number, Engine.Specifications.ModelSpec model)
+        {
+            var assumptions = new ProposalAssumptions { Model = model with { Rate = null } };
+            return new VersionView(number, "lead", Made.AddDays(number - 30), number == 1 ? "First draft" : "Revised", true, Made.AddDays(number - 29),
+                AssumptionsDocument.Hash(AssumptionsDocument.Serialize(assumptions)), assumptions);
+        }
+        var versions = new[] { Version(1, BenchmarkModels.VariedSpec(random)), Version(2, BenchmarkModels.VariedSpec(random)) };
+        var proposal = new ProposalView(id, $"P-{id:D4}", "lead", $"Plant line {id}", "", ProposalCategory.Expansion, RiskClass.Standard, ProposalStatus.Approved, 1, 3, versions);
+        var decision = new Decision
+        {
+            ProposalId = id, BudgetCycleId = 1, VersionNumber = 2, AssumptionsHash = versions[1].AssumptionsHash, MarrPolicyVersionId = 1,
+            Outcome = DecisionOutcome.Approve, DecidedBy = "b1", DecidedAt = Made,
+        };
+        return (proposal, decision);
+    }
+}
+
+/// <summary>`-- packet-memory`: the peak working set of a process that makes the 30-proposal cycle packet.</summary>
+internal static class PacketMemoryReport
+{
+    public static void Print()
+    {
+        string folder = Directory.CreateTempSubdirectory("capreview-packet-memory-").FullName;
+        using var certificate = PacketCertificate.Load(new PacketSigningOptions { DevelopmentCertificatePath = Path.Combine(folder, "signing.pfx") }, "Benchmark Works Ltd");
+        var data = BenchmarkPackets.Cycle(30);
+        using var process = System.Diagnostics.Process.GetCurrentProcess();
+        long before = process.PeakWorkingSet64;
+        var watch = System.Diagnostics.Stopwatch.StartNew();
+        int bytes = PacketRenderer.Cycle(data, certificate).Length;
+        watch.Stop();
+        process.Refresh();
+        Console.WriteLine(string.Create(CultureInfo.InvariantCulture,
+            $"30-proposal cycle packet: {bytes / 1024.0:0} KB in {watch.Elapsed.TotalMilliseconds:0} ms; peak working set {process.PeakWorkingSet64 / 1048576.0:0} MB (before: {before / 1048576.0:0} MB)"));
+        Directory.Delete(folder, recursive: true);
+    }
+}
