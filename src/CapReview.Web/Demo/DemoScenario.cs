@@ -13,13 +13,14 @@ using CapReview.Web.QuickEvaluation;
 namespace CapReview.Web.Demo;
 
 /// <summary>
-/// The demo installation of Tarnby Components Ltd (an invented company): one user per role, a MARR policy, an open
-/// budget cycle with a two-year plan, seven submitted proposals (two ways of renewing line 3, two of meeting the paint
-/// shop's emission limit, a solar array and the battery that needs it) and one draft. Written once, into an empty database, in demo mode only; the sign-ins are
-/// printed to the console every start in demo mode.
+/// The demo installation of Tarnby Components Ltd (an invented company): one user per role, a MARR policy per year,
+/// last year's cycle decided with its signed packets (<see cref="DemoDecidedCycle"/>), and an open budget cycle with a
+/// two-year plan, seven submitted proposals (two ways of renewing line 3, two of meeting the paint shop's emission
+/// limit, a solar array and the battery that needs it) and one draft. Written once, into an empty database, in demo
+/// mode only; the sign-ins are printed to the console every start in demo mode.
 /// </summary>
 public sealed partial class DemoScenario(IdentityStore identity, MarrPolicyService marr, CycleService cycles, ProposalService proposals,
-    PortfolioRulesService rules, ILogger<DemoScenario> log)
+    PortfolioRulesService rules, DemoDecidedCycle lastYear, ILogger<DemoScenario> log)
 {
     /// <summary>The demo's one password; demo mode only.</summary>
     public const string Password = "tarnby-demo-2027";
@@ -55,7 +56,8 @@ public sealed partial class DemoScenario(IdentityStore identity, MarrPolicyServi
             actors[email] = Actor.Of(user.Id, name, Enum.Parse<Role>(role));
         }
         Actor admin = actors["ines.varga@tarnby.example"], oskar = actors["oskar.lind@tarnby.example"], maren = actors["maren.holt@tarnby.example"];
-        Actor tove = actors["tove.berg@tarnby.example"];
+        Actor tove = actors["tove.berg@tarnby.example"], aino = actors["aino.salo@tarnby.example"];
+        await lastYear.WriteAsync(admin, oskar, maren, tove, aino, cancellationToken).ConfigureAwait(false);
 
         var policy = await marr.AddVersionAsync(admin, new NewMarrPolicy(0.09, RateBasis.Effective, 1, new DateOnly(2027, 1, 1),
             "Board resolution on the cost of capital for the 2027 plan", LowRiskPremium: -0.01, HighRiskPremium: 0.03), cancellationToken).ConfigureAwait(false);

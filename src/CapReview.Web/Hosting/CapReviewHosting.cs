@@ -28,6 +28,7 @@ public static partial class CapReviewHosting
         services.AddCapReviewIdentity(connection);
         services.AddPackets(PacketSettings.Read(builder.Configuration, connection, builder.Environment.ContentRootPath));
         services.AddScoped<DemoScenario>();
+        services.AddScoped<DemoDecidedCycle>();
 
         services.AddRazorComponents().AddInteractiveServerComponents();
         services.AddProblemDetails();
