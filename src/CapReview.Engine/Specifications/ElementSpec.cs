@@ -34,4 +34,10 @@ public sealed record ElementSpec
 
     /// <summary>The growth per period of a geometric gradient, as a fraction.</summary>
     public double? Growth { get; init; }
+
+    /// <summary>The money the amounts are in; null for actual (then-current) money.</summary>
+    public Inflation.MoneyBasis? Money { get; init; }
+
+    /// <summary>For constant money: the element's own price escalation a year; null for general inflation.</summary>
+    public double? Escalation { get; init; }
 }

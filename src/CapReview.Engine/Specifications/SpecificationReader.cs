@@ -1,5 +1,6 @@
 using CapReview.Engine.CashFlows;
 using CapReview.Engine.Evaluation;
+using CapReview.Engine.Inflation;
 using CapReview.Engine.Rates;
 using CapReview.Engine.Validation;
 
@@ -14,6 +15,7 @@ public static class SpecificationReader
         ArgumentNullException.ThrowIfNull(spec);
         var errors = new List<InputError>();
         AnnualRate? rate = ReadRate(spec.Rate, errors);
+        GeneralInflation? inflation = ReadInflation(spec, errors);
         if (spec.Horizon is null)
         {
             errors.Add(new("horizon", "Give the horizon: the last period of the model."));
@@ -29,6 +31,10 @@ public static class SpecificationReader
             for (int e = 0; e < spec.Elements.Count; e++)
             {
                 CashFlowElement? element = ReadElement(spec.Elements[e], $"elements[{e}]", errors);
+                if (element is not null && spec.Elements[e]!.Money == MoneyBasis.Constant)
+                {
+                    element = Escalate(element, spec.Elements[e]!, inflation, periodsPerYear, $"elements[{e}]", errors);
+                }
                 if (element is not null)
                 {
                     elements.Add(element);
@@ -48,7 +54,50 @@ public static class SpecificationReader
         {
             return Outcome.Failure<ReadSpecification>(errors);
         }
-        return Outcome.Success(new ReadSpecification(model!.Value!, new EvaluationOptions(rate!.Value)));
+        // A real MARR meets actual money at its market equivalent, (1 + real)(1 + inflation) − 1.
+        AnnualRate marr = inflation is { RealMarr: true } real
+            ? AnnualRate.Effective(InflationAdjustment.MarketRate(rate!.Value.EffectiveAnnual(), real.Rate))
+            : rate!.Value;
+        return Outcome.Success(new ReadSpecification(model!.Value!, new EvaluationOptions(marr)));
+    }
+
+    private sealed record GeneralInflation(double Rate, int BaseYear, bool RealMarr);
+
+    private static GeneralInflation? ReadInflation(ModelSpec spec, List<InputError> errors)
+    {
+        if (spec.Inflation is not { } entered)
+        {
+            return null;
+        }
+        if (entered.Rate is not double rate || !double.IsFinite(rate) || rate <= -1 || rate > 10)
+        {
+            errors.Add(new("inflation.rate", "Give general inflation as a yearly rate above −100%, e.g. 0.02 for 2%."));
+            return null;
+        }
+        int baseYear = entered.BaseYear ?? 0;
+        if (baseYear is < 0 or > 100)
+        {
+            errors.Add(new("inflation.baseYear", "The base year is 0 (today's money) to 100."));
+            return null;
+        }
+        return new GeneralInflation(rate, baseYear, entered.RealMarr ?? false);
+    }
+
+    private static EscalatedElement? Escalate(CashFlowElement element, ElementSpec spec, GeneralInflation? inflation, int periodsPerYear, string path, List<InputError> errors)
+    {
+        double? yearly = spec.Escalation ?? inflation?.Rate;
+        if (yearly is not double escalation)
+        {
+            errors.Add(new($"{path}.escalation", "An element in constant money needs its escalation, or the general inflation rate (inflation.rate)."));
+            return null;
+        }
+        if (!double.IsFinite(escalation) || escalation <= -1 || escalation > 10)
+        {
+            errors.Add(new($"{path}.escalation", "The escalation must be above −100% and at most 1000% a year."));
+            return null;
+        }
+        double perPeriod = Math.Exp(Numerics.StableMath.Log1p(escalation) / periodsPerYear) - 1.0;
+        return new EscalatedElement(element, perPeriod, (inflation?.BaseYear ?? 0) * periodsPerYear);
     }
 
     private static AnnualRate? ReadRate(RateSpec? spec, List<InputError> errors)
