@@ -10,7 +10,8 @@ namespace CapReview.Engine.Comparison;
 /// <param name="Model">The validated cash-flow model; its horizon is the life.</param>
 /// <param name="Marr">The policy's MARR for its risk class, or its documented override.</param>
 /// <param name="ValueAtStudyEnd">Market value at the end of a study period shorter than the life, or the stated value of the renewal in service at the end of a longer one.</param>
-public sealed record RankingEntry(string Id, CashFlowModel Model, AnnualRate Marr, double? ValueAtStudyEnd = null);
+/// <param name="CapitalFrom">The model whose capital outlays the budget counts when <paramref name="Model"/> is not it (after-tax flows); null for the model itself.</param>
+public sealed record RankingEntry(string Id, CashFlowModel Model, AnnualRate Marr, double? ValueAtStudyEnd = null, CashFlowModel? CapitalFrom = null);
 
 /// <summary>A ranked proposal: every measure at its MARR, and the annual and present worth on the board's common basis.</summary>
 /// <param name="Id">The proposal's reference.</param>
@@ -20,6 +21,7 @@ public sealed record RankingEntry(string Id, CashFlowModel Model, AnnualRate Mar
 /// <param name="PresentWorth">Present worth on the ranking's basis: over the life, or over the study period.</param>
 /// <param name="Basis">How the life was put on the common basis, in words.</param>
 /// <param name="LaterCapital">Capital outlays in budget years 1, 2, … of the life (year 0 is the first cost).</param>
+/// <param name="FirstCost">The outlay now (positive).</param>
 public sealed record RankedProposal(
     string Id,
     int Rank,
@@ -27,11 +29,9 @@ public sealed record RankedProposal(
     double AnnualWorth,
     double PresentWorth,
     string Basis,
-    IReadOnlyList<double> LaterCapital)
+    IReadOnlyList<double> LaterCapital,
+    double FirstCost)
 {
-    /// <summary>The outlay now (positive).</summary>
-    public double FirstCost => Math.Max(0.0, -Evaluation.NetFlows[0]);
-
     public double LifeYears => Evaluation.Model.Years;
 }
 
@@ -68,7 +68,8 @@ public static class ProposalRanking
         return [.. ranked
             .OrderByDescending(r => r.AnnualWorth)
             .ThenBy(r => r.Entry.Id, StringComparer.Ordinal)
-            .Select((r, index) => new RankedProposal(r.Entry.Id, index + 1, r.Evaluation, r.AnnualWorth, r.PresentWorth, r.Basis, LaterCapital(r.Entry.Model)))];
+            .Select((r, index) => new RankedProposal(r.Entry.Id, index + 1, r.Evaluation, r.AnnualWorth, r.PresentWorth, r.Basis,
+                LaterCapital(r.Entry.CapitalFrom ?? r.Entry.Model), Math.Max(0.0, -(r.Entry.CapitalFrom ?? r.Entry.Model).NetFlows[0])))];
     }
 
     /// <summary>Capital outlays per budget year: year k holds periods in (k − 1, k] years; year 0 is period 0 alone.</summary>

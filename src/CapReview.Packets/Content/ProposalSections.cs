@@ -22,7 +22,7 @@ internal static class ProposalSections
     {
         VersionView version = data.Version;
         var marr = version.Assumptions.MarrOverride is null ? data.Marr.RateFor(data.Proposal.RiskClass) : (Engine.Rates.AnnualRate?)null;
-        Evaluation? evaluation = VersionComparison.Evaluate(version.Assumptions, data.Marr.RateFor(data.Proposal.RiskClass));
+        Evaluation? evaluation = VersionComparison.Evaluate(version.Assumptions, data.Marr, data.Proposal.RiskClass);
 
         flow.Bookmark("Decision and sign-off", parent);
         flow.Heading("Decision and sign-off", PacketStyle.Heading1);

@@ -26,6 +26,14 @@ public sealed class MarrPolicyService(ReviewWork work, AuditTrail audit, TimePro
         {
             throw new RuleViolationException("A risk premium must lie between -50 and +100 percentage points.");
         }
+        if (!double.IsFinite(policy.InflationRate) || policy.InflationRate is <= -0.5 or > 1.0)
+        {
+            throw new RuleViolationException("inflationRate: general inflation must lie between −50 % and 100 % a year.");
+        }
+        if (policy.AfterTaxRate is double afterTax && (!double.IsFinite(afterTax) || afterTax is <= -0.5 or > 1.0))
+        {
+            throw new RuleViolationException("afterTaxRate: the after-tax MARR must lie between −50 % and 100 % a year.");
+        }
         if (string.IsNullOrWhiteSpace(policy.Reason))
         {
             throw new RuleViolationException("Say why the MARR is set or changed.");
@@ -43,6 +51,9 @@ public sealed class MarrPolicyService(ReviewWork work, AuditTrail audit, TimePro
                 LowRiskPremium = policy.LowRiskPremium,
                 StandardRiskPremium = policy.StandardRiskPremium,
                 HighRiskPremium = policy.HighRiskPremium,
+                InflationRate = policy.InflationRate,
+                RealMarr = policy.RealMarr,
+                AfterTaxRate = policy.AfterTaxRate,
                 SetBy = actor.UserId,
                 Reason = policy.Reason.Trim(),
                 CreatedAt = clock.GetUtcNow(),
@@ -68,4 +79,7 @@ public sealed record NewMarrPolicy(
     string Reason,
     double LowRiskPremium = 0.0,
     double StandardRiskPremium = 0.0,
-    double HighRiskPremium = 0.0);
+    double HighRiskPremium = 0.0,
+    double InflationRate = 0.0,
+    bool RealMarr = false,
+    double? AfterTaxRate = null);

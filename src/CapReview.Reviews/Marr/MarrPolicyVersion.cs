@@ -28,6 +28,15 @@ public sealed class MarrPolicyVersion
 
     public double HighRiskPremium { get; set; }
 
+    /// <summary>General inflation a year, applied to proposal amounts given in constant money.</summary>
+    public double InflationRate { get; set; }
+
+    /// <summary>Whether <see cref="Rate"/> is a real (inflation-free) MARR; the market MARR is then (1 + real)(1 + inflation) − 1.</summary>
+    public bool RealMarr { get; set; }
+
+    /// <summary>The after-tax MARR (effective annual); null for the MARR times (1 − the proposal's tax rate).</summary>
+    public double? AfterTaxRate { get; set; }
+
     public required string SetBy { get; set; }
 
     public required string Reason { get; set; }

@@ -25,10 +25,13 @@ public sealed record UnrankedProposal(ProposalView Proposal, string Reason);
 public sealed record CycleRanking(BudgetCycle Cycle, MarrPolicyVersion Marr, double MarrShift, IReadOnlyList<RankingRow> Rows,
     IReadOnlyList<UnrankedProposal> Unranked, PortfolioRules Rules)
 {
+    /// <summary>Ranked on after-tax flows at the after-tax MARR.</summary>
+    public bool AfterTax { get; init; }
+
     /// <summary>The basis of the ranking in words.</summary>
-    public string Basis => Cycle.StudyPeriodYears is int years
+    public string Basis => (AfterTax ? "after-tax " : "") + (Cycle.StudyPeriodYears is int years
         ? $"annual worth over a study period of {years} years"
-        : "annual worth over each proposal's own life (repeatability)";
+        : "annual worth over each proposal's own life (repeatability)");
 
     /// <summary>The annual MARR values at which two ranked proposals' annual worths over their lives are equal, between 0 % and 40 %.</summary>
     public IReadOnlyList<double> SwapRates(string first, string second)

@@ -1,4 +1,5 @@
 using CapReview.Engine.Comparison;
+using CapReview.Engine.Evaluation;
 using CapReview.Engine.Rates;
 using CapReview.Engine.Specifications;
 using CapReview.Reviews.Access;
@@ -18,8 +19,11 @@ public sealed class CycleRankingService(ReviewWork work)
 {
     private static readonly ProposalStatus[] Ranked = [ProposalStatus.Submitted, ProposalStatus.InReview, ProposalStatus.Approved];
 
-    /// <summary>The ranking, with every MARR shifted by <paramref name="marrShift"/> effective annual points for a what-if (0 for the cycle's own).</summary>
-    public Task<CycleRanking> RankAsync(Actor actor, int cycleId, double marrShift, CancellationToken cancellationToken)
+    /// <summary>
+    /// The ranking, with every MARR shifted by <paramref name="marrShift"/> effective annual points for a what-if (0 for
+    /// the cycle's own); with <paramref name="afterTax"/>, on the after-tax flows at the after-tax MARR.
+    /// </summary>
+    public Task<CycleRanking> RankAsync(Actor actor, int cycleId, double marrShift, CancellationToken cancellationToken, bool afterTax = false)
     {
         ArgumentNullException.ThrowIfNull(actor);
         if (!(actor.Has(Role.Reviewer) || actor.Has(Role.Finance) || actor.Has(Role.Administrator)))
@@ -39,11 +43,11 @@ public sealed class CycleRankingService(ReviewWork work)
                 .Where(p => p.BudgetCycleId == cycleId && Ranked.Contains(p.Status))
                 .OrderBy(p => p.Id).ToListAsync(cancellationToken).ConfigureAwait(false);
             PortfolioRules rules = await PortfolioRulesService.LoadAsync(db, cycleId, cancellationToken).ConfigureAwait(false);
-            return Rank(cycle, marr, [.. proposals.Select(ProposalView.Of)], rules, marrShift);
+            return Rank(cycle, marr, [.. proposals.Select(ProposalView.Of)], rules, marrShift, afterTax);
         }, cancellationToken);
     }
 
-    internal static CycleRanking Rank(BudgetCycle cycle, Marr.MarrPolicyVersion marr, IReadOnlyList<ProposalView> proposals, PortfolioRules rules, double marrShift)
+    internal static CycleRanking Rank(BudgetCycle cycle, Marr.MarrPolicyVersion marr, IReadOnlyList<ProposalView> proposals, PortfolioRules rules, double marrShift, bool afterTax)
     {
         var entries = new List<RankingEntry>();
         var sources = new Dictionary<string, (ProposalView Proposal, VersionView Version)>(StringComparer.Ordinal);
@@ -56,21 +60,36 @@ public sealed class CycleRankingService(ReviewWork work)
                 unranked.Add(new(proposal, "no submitted version"));
                 continue;
             }
-            AnnualRate rate = marr.RateFor(proposal.RiskClass);
-            RateSpec spec = version.Assumptions.MarrOverride?.Rate ?? new RateSpec
+            ModelSpec model = ProposalTerms.Model(version.Assumptions, marr, proposal.RiskClass);
+            if (afterTax)
             {
-                Value = rate.Value,
-                Basis = rate.Basis,
-                CompoundingsPerYear = rate.Basis == RateBasis.Nominal ? rate.CompoundingsPerYear : null,
-            };
-            var read = SpecificationReader.Read(version.Assumptions.Model with { Rate = spec });
-            if (!read.IsValid)
-            {
-                var error = read.Errors[0];
-                unranked.Add(new(proposal, $"the model is not complete: {error.Field}: {error.Message}"));
-                continue;
+                if (ProposalTerms.Tax(version.Assumptions, marr) is not { } tax)
+                {
+                    unranked.Add(new(proposal, "it has no tax settings, so it has no after-tax figures"));
+                    continue;
+                }
+                var evaluated = AfterTaxEvaluator.Evaluate(model, tax);
+                if (!evaluated.IsValid)
+                {
+                    var error = evaluated.Errors[0];
+                    unranked.Add(new(proposal, $"the tax settings are not complete: {error.Field}: {error.Message}"));
+                    continue;
+                }
+                // The after-tax flows ranked as a model of their own; their value at a study period's end is not taxed again.
+                entries.Add(new RankingEntry(proposal.Reference, evaluated.Value!.AfterTax.Model, evaluated.Value.AfterTax.Marr, version.Assumptions.ValueAtStudyEnd,
+                    CapitalFrom: evaluated.Value.BeforeTax.Model));
             }
-            entries.Add(new RankingEntry(proposal.Reference, read.Value!.Model, read.Value.Options.Marr, version.Assumptions.ValueAtStudyEnd));
+            else
+            {
+                var read = SpecificationReader.Read(model);
+                if (!read.IsValid)
+                {
+                    var error = read.Errors[0];
+                    unranked.Add(new(proposal, $"the model is not complete: {error.Field}: {error.Message}"));
+                    continue;
+                }
+                entries.Add(new RankingEntry(proposal.Reference, read.Value!.Model, read.Value.Options.Marr, version.Assumptions.ValueAtStudyEnd));
+            }
             sources[proposal.Reference] = (proposal, version);
         }
         var byId = proposals.ToDictionary(p => p.Id);
@@ -81,6 +100,6 @@ public sealed class CycleRankingService(ReviewWork work)
                 .Select(id => byId.TryGetValue(id, out var p) ? p.Reference : $"#{id}").ToList();
             return new RankingRow(proposal, version, ranked.Evaluation.Marr, ranked, rules.GroupOf(proposal.Id), prerequisites);
         }).ToList();
-        return new CycleRanking(cycle, marr, marrShift, rows, unranked, rules);
+        return new CycleRanking(cycle, marr, marrShift, rows, unranked, rules) { AfterTax = afterTax };
     }
 }

@@ -4,7 +4,7 @@ using CapReview.Reviews.Access;
 namespace CapReview.Reviews.Portfolio;
 
 /// <summary>A what-if on the portfolio: another MARR, another capital limit now, or the other objective.</summary>
-public sealed record PortfolioQuery(double MarrShift = 0.0, decimal? CapitalLimit = null, SelectionObjective? Objective = null);
+public sealed record PortfolioQuery(double MarrShift = 0.0, decimal? CapitalLimit = null, SelectionObjective? Objective = null, bool AfterTax = false);
 
 /// <summary>A point of the efficient frontier: the best total worth at a capital limit.</summary>
 public sealed record FrontierPoint(double Limit, Selection Selection);
@@ -42,7 +42,7 @@ public sealed class PortfolioService(CycleRankingService rankings)
         {
             throw new Common.RuleViolationException("capitalLimit: the capital limit cannot be negative.");
         }
-        CycleRanking ranking = await rankings.RankAsync(actor, cycleId, query.MarrShift, cancellationToken).ConfigureAwait(false);
+        CycleRanking ranking = await rankings.RankAsync(actor, cycleId, query.MarrShift, cancellationToken, query.AfterTax).ConfigureAwait(false);
         SelectionObjective objective = query.Objective ?? ranking.Cycle.Objective;
         var (problem, excluded) = ProblemOf(ranking, (double)(query.CapitalLimit ?? ranking.Cycle.CapitalLimit), objective);
         Selection optimal = CapitalSelection.Optimal(problem, SolverTimeLimit);

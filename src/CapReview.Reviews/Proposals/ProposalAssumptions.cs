@@ -23,6 +23,9 @@ public sealed record ProposalAssumptions
 
     /// <summary>A MARR that replaces the policy's for this proposal, with the reason; null to use the policy.</summary>
     public MarrOverride? MarrOverride { get; init; }
+
+    /// <summary>The after-tax settings (tax rates, depreciation, credits, losses, financing); null for a before-tax proposal.</summary>
+    public TaxSpec? Tax { get; init; }
 }
 
 /// <summary>A proposal's own MARR in place of the policy's, and why.</summary>

@@ -53,6 +53,10 @@ public static class VersionComparison
         return new VersionDifference(before.Number, after.Number, fields, measures);
     }
 
+    /// <summary>The version's measures under a policy (its MARR for the risk class, its inflation), or null when the model is not complete.</summary>
+    public static Evaluation? Evaluate(ProposalAssumptions assumptions, Marr.MarrPolicyVersion policy, RiskClass risk) =>
+        Evaluator.Evaluate(ProposalTerms.Model(assumptions, policy, risk)).Value;
+
     /// <summary>The version's measures, or null when its model is not complete.</summary>
     public static Evaluation? Evaluate(ProposalAssumptions assumptions, AnnualRate policyMarr)
     {

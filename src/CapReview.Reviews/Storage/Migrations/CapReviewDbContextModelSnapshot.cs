@@ -255,6 +255,9 @@ namespace CapReview.Reviews.Storage.Migrations
                         .ValueGeneratedOnAdd()
                         .HasColumnType("INTEGER");
 
+                    b.Property<double?>("AfterTaxRate")
+                        .HasColumnType("REAL");
+
                     b.Property<string>("Basis")
                         .IsRequired()
                         .HasMaxLength(20)
@@ -272,6 +275,9 @@ namespace CapReview.Reviews.Storage.Migrations
                     b.Property<double>("HighRiskPremium")
                         .HasColumnType("REAL");
 
+                    b.Property<double>("InflationRate")
+                        .HasColumnType("REAL");
+
                     b.Property<double>("LowRiskPremium")
                         .HasColumnType("REAL");
 
@@ -280,6 +286,9 @@ namespace CapReview.Reviews.Storage.Migrations
 
                     b.Property<double>("Rate")
                         .HasColumnType("REAL");
+
+                    b.Property<bool>("RealMarr")
+                        .HasColumnType("INTEGER");
 
                     b.Property<string>("Reason")
                         .IsRequired()
