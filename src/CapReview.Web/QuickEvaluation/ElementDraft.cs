@@ -32,6 +32,12 @@ public sealed class ElementDraft
     /// <summary>Growth per period in percent.</summary>
     public string GrowthPercent { get; set; } = "0";
 
+    /// <summary>The money the amounts are in: actual, or constant money of the base year.</summary>
+    public Engine.Inflation.MoneyBasis Money { get; set; } = Engine.Inflation.MoneyBasis.Actual;
+
+    /// <summary>For constant money, the element's own escalation in percent a year; blank for general inflation.</summary>
+    public string EscalationPercent { get; set; } = "";
+
     public bool Uses(string field) => field switch
     {
         "period" => Type == ElementKind.Single,
@@ -39,6 +45,7 @@ public sealed class ElementDraft
         "every" => Type == ElementKind.Recurring,
         "step" => Type == ElementKind.Arithmetic,
         "growth" => Type == ElementKind.Geometric,
+        "escalation" => Money == Engine.Inflation.MoneyBasis.Constant,
         _ => true,
     };
 }

@@ -22,6 +22,15 @@ public sealed class ModelDraft
 
     public List<ElementDraft> Elements { get; } = [];
 
+    /// <summary>General inflation in percent a year; blank when every amount is in actual money.</summary>
+    public string InflationPercent { get; set; } = "";
+
+    /// <summary>The MARR typed is a real (inflation-free) rate.</summary>
+    public bool RealMarr { get; set; }
+
+    /// <summary>The year whose money constant amounts are in (0: today's).</summary>
+    public string BaseYear { get; set; } = "0";
+
     /// <summary>The draft of a stored model, its numbers written in <paramref name="culture"/> as a person would type them.</summary>
     public static ModelDraft FromSpec(ModelSpec spec, CultureInfo culture, double marrPercent)
     {
@@ -33,6 +42,9 @@ public sealed class ModelDraft
             Horizon = Whole(spec.Horizon),
             PeriodsPerYear = spec.PeriodsPerYear ?? 1,
             MarrPercent = Number(marrPercent),
+            InflationPercent = spec.Inflation?.Rate is double inflation ? Number(inflation * 100) : "",
+            RealMarr = spec.Inflation?.RealMarr ?? false,
+            BaseYear = Whole(spec.Inflation?.BaseYear ?? 0),
         };
         foreach (ElementSpec? e in spec.Elements ?? [])
         {
@@ -52,6 +64,8 @@ public sealed class ModelDraft
                 Amount = Number(e.Amount ?? 0),
                 Step = Number(e.Step ?? 0),
                 GrowthPercent = Number((e.Growth ?? 0) * 100),
+                Money = e.Money ?? Engine.Inflation.MoneyBasis.Actual,
+                EscalationPercent = e.Escalation is double escalation ? Number(escalation * 100) : "",
             });
         }
         return draft;
@@ -88,6 +102,9 @@ public sealed class ModelDraft
                 Amount = Real(row.Amount, $"{path}.amount", culture, errors),
                 Step = row.Uses("step") ? Real(row.Step, $"{path}.step", culture, errors) : null,
                 Growth = row.Uses("growth") ? Real(row.GrowthPercent, $"{path}.growth", culture, errors) / 100.0 : null,
+                Money = row.Money == Engine.Inflation.MoneyBasis.Constant ? Engine.Inflation.MoneyBasis.Constant : null,
+                Escalation = row.Uses("escalation") && row.EscalationPercent.Trim().Length > 0
+                    ? Real(row.EscalationPercent, $"{path}.escalation", culture, errors) / 100.0 : null,
             });
         }
         var spec = new ModelSpec
@@ -101,6 +118,12 @@ public sealed class ModelDraft
                 CompoundingsPerYear = Basis == RateBasis.Nominal ? Whole(CompoundingsPerYear, "rate.compoundingsPerYear", culture, errors) : null,
             },
             Elements = elements,
+            Inflation = InflationPercent.Trim().Length == 0 && !RealMarr ? null : new InflationSpec
+            {
+                Rate = InflationPercent.Trim().Length == 0 ? 0 : Real(InflationPercent, "inflation.rate", culture, errors) / 100.0,
+                BaseYear = Whole(BaseYear.Trim().Length == 0 ? "0" : BaseYear, "inflation.baseYear", culture, errors),
+                RealMarr = RealMarr ? true : null,
+            },
         };
         return new DraftReading(spec, errors);
     }

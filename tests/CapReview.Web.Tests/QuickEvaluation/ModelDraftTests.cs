@@ -22,6 +22,31 @@ public class ModelDraftTests
     }
 
     [Fact]
+    public void Constant_money_escalation_and_general_inflation_survive_a_round_trip()
+    {
+        var spec = new ModelSpec
+        {
+            Horizon = 10,
+            Inflation = new InflationSpec { Rate = 0.025, BaseYear = 1, RealMarr = true },
+            Elements =
+            [
+                new ElementSpec { Type = ElementKind.Uniform, Label = "Energy", Category = Engine.CashFlows.CashFlowCategory.Revenue, First = 1, Last = 10, Amount = 900, Money = Engine.Inflation.MoneyBasis.Constant, Escalation = 0.04 },
+                new ElementSpec { Type = ElementKind.Single, Label = "Unit", Category = Engine.CashFlows.CashFlowCategory.Capital, Period = 0, Amount = -5_000 },
+            ],
+        };
+        var read = ModelDraft.FromSpec(spec, Irish, 6).Read(Irish);
+        Assert.Empty(read.Errors);
+        Assert.Equal(0.025, read.Spec.Inflation!.Rate!.Value, 15);
+        Assert.Equal(1, read.Spec.Inflation.BaseYear);
+        Assert.True(read.Spec.Inflation.RealMarr);
+        Assert.Equal(Engine.Inflation.MoneyBasis.Constant, read.Spec.Elements![0]!.Money);
+        Assert.Equal(0.04, read.Spec.Elements[0]!.Escalation!.Value, 15);
+        Assert.Null(read.Spec.Elements[1]!.Money);
+        // Nothing typed about inflation stays nothing: the stored model, and its hash, do not change.
+        Assert.Null(new ModelDraft { Horizon = "5" }.Read(Irish).Spec.Inflation);
+    }
+
+    [Fact]
     public void Accepts_a_typographic_minus_sign()
     {
         var draft = new ModelDraft();
