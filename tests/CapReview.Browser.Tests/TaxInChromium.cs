@@ -1,0 +1,41 @@
+using CapReview.Reviews.Access;
+using CapReview.Reviews.Proposals;
+using CapReview.Web.Demo;
+using CapReview.Web.Identity;
+using Microsoft.Extensions.DependencyInjection;
+using Microsoft.Playwright;
+
+namespace CapReview.Browser.Tests;
+
+/// <summary>A lead puts the demo's forklift draft on an after-tax basis with MACRS, saves it and finds it again.</summary>
+public sealed class TaxInChromium(BrowserFixture browser) : IClassFixture<BrowserFixture>
+{
+    [Fact]
+    public async Task A_lead_sets_taxes_and_depreciation_and_sees_the_after_tax_table()
+    {
+        int draftId;
+        using (var scope = browser.App.Services.CreateScope())
+        {
+            await scope.ServiceProvider.GetRequiredService<DemoScenario>().EnsureAsync(CancellationToken.None);
+            var oskar = await scope.ServiceProvider.GetRequiredService<IdentityStore>().FindByEmailAsync("oskar.lind@tarnby.example");
+            var own = await scope.ServiceProvider.GetRequiredService<ProposalService>().ListOwnAsync(Actor.Of(oskar!.Id, "Oskar Lind", Role.ProjectLead), CancellationToken.None);
+            draftId = own.Single(p => p.Title == "Forklift fleet electrification").Id;
+        }
+        IPage page = await browser.SignedInPageAsync("oskar.lind@tarnby.example", "Oskar Lind", RoleNames.ProjectLead, DemoScenario.Password);
+        await page.GotoAsync(browser.App.BaseAddress + $"proposals/{draftId}");
+        await page.Locator("[data-testid=interactive]").WaitForAsync(new() { State = WaitForSelectorState.Attached });
+        await Assertions.Expect(page.GetByTestId("tax-caution")).ToContainTextAsync("Tax rules vary by jurisdiction");
+        await page.Locator("#tax-enabled").CheckAsync();
+        await page.Locator("#macrs-class").SelectOptionAsync("FiveYear");
+        await Assertions.Expect(page.GetByTestId("after-tax-table").Locator("tbody tr")).ToHaveCountAsync(11);
+        await Assertions.Expect(page.GetByTestId("after-tax-present")).Not.ToBeEmptyAsync();
+        await page.GetByRole(AriaRole.Button, new() { Name = "Save draft" }).ClickAsync();
+        await Assertions.Expect(page.GetByTestId("editor-message")).ToHaveTextAsync("Saved.");
+        await BrowserFixture.ScreenshotAsync(page, "proposal-after-tax");
+
+        await page.ReloadAsync();
+        await page.Locator("[data-testid=interactive]").WaitForAsync(new() { State = WaitForSelectorState.Attached });
+        await Assertions.Expect(page.Locator("#tax-enabled")).ToBeCheckedAsync();
+        await Assertions.Expect(page.Locator("#macrs-class")).ToHaveValueAsync("FiveYear");
+    }
+}
