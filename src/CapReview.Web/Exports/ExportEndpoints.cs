@@ -9,8 +9,8 @@ namespace CapReview.Web.Exports;
 
 /// <summary>
 /// Downloads of a cycle's ranking and funded portfolio as CSV or XLSX, for the board, finance and administrators,
-/// with the same what-if settings as the pages: <c>shift</c> (MARR points), <c>limit</c> (capital now) and
-/// <c>objective</c> (presentWorth or annualWorth).
+/// with the same what-if settings as the pages: <c>shift</c> (MARR points), <c>limit</c> (capital now),
+/// <c>objective</c> (presentWorth or annualWorth) and <c>basis</c> (beforeTax or afterTax).
 /// </summary>
 public static class ExportEndpoints
 {
@@ -25,9 +25,13 @@ public static class ExportEndpoints
     }
 
     /// <summary>The page's query for the same what-if, e.g. <c>?shift=2&amp;limit=1500000</c>.</summary>
-    public static string Query(double shiftPoints, decimal? limit, SelectionObjective? objective)
+    public static string Query(double shiftPoints, decimal? limit, SelectionObjective? objective, bool afterTax = false)
     {
         var parts = new List<string>();
+        if (afterTax)
+        {
+            parts.Add("basis=afterTax");
+        }
         if (shiftPoints != 0)
         {
             parts.Add("shift=" + shiftPoints.ToString(CultureInfo.InvariantCulture));
@@ -51,7 +55,7 @@ public static class ExportEndpoints
         }
         return await RunAsync(async () =>
         {
-            var ranking = await rankings.RankAsync(ActorFactory.From(context.User)!, id, query.MarrShift, cancellationToken).ConfigureAwait(false);
+            var ranking = await rankings.RankAsync(ActorFactory.From(context.User)!, id, query.MarrShift, cancellationToken, query.AfterTax).ConfigureAwait(false);
             return File(RankingExport.Table(ranking, display.CurrencyCode), format);
         }).ConfigureAwait(false);
     }
@@ -110,6 +114,15 @@ public static class ExportEndpoints
                 return false;
             }
             query = query with { CapitalLimit = limit };
+        }
+        if (q.TryGetValue("basis", out var basisText))
+        {
+            if (basisText.ToString() is not ("afterTax" or "beforeTax"))
+            {
+                problem = Invalid("basis", "Choose beforeTax or afterTax.");
+                return false;
+            }
+            query = query with { AfterTax = basisText.ToString() == "afterTax" };
         }
         if (q.TryGetValue("objective", out var objectiveText))
         {
