@@ -53,6 +53,26 @@ public sealed class ProposalPacketTests
     }
 
     [Fact]
+    public void A_version_with_tax_settings_carries_its_depreciation_schedule_after_tax_table_and_the_tax_caution()
+    {
+        var tax = new Engine.Specifications.TaxSpec
+        {
+            IncomeTaxRate = 0.25,
+            Depreciation = new Engine.Specifications.DepreciationSpec { Method = Engine.Specifications.DepreciationMethod.Macrs, PropertyClass = Engine.Depreciation.MacrsClass.SevenYear },
+        };
+        var data = PacketSamples.ProposalData(tax: tax);
+        string text = Text(PacketRenderer.Proposal(data, PacketSamples.Certificate));
+        Assert.Contains("Depreciation schedule", text);
+        Assert.Contains("After-tax cash flows", text);
+        Assert.Contains("Tax and depreciation rules vary by jurisdiction and by year", text.Replace("\n", " ", StringComparison.Ordinal));
+        // IRS Publication 946, Table A-1: 7-year property, half-year convention, year 1 at 14.29 %.
+        Assert.Contains("14.29 %", text);
+        var result = Engine.Evaluation.AfterTaxEvaluator.Evaluate(Reviews.Proposals.ProposalTerms.Model(data.Version.Assumptions, PacketSamples.Marr, data.Proposal.RiskClass), tax).Value!;
+        Assert.Contains(new PacketFormat(PacketSamples.Organisation.Culture, "EUR").Money(result.AfterTax.PresentWorth), text);
+        Assert.DoesNotContain("Depreciation schedule", Text(Packet));
+    }
+
+    [Fact]
     public void Pages_are_numbered_bookmarked_and_sized_to_the_chosen_paper()
     {
         using PigDocument a4 = PigDocument.Open(Packet);
@@ -126,6 +146,13 @@ public sealed class SamplePacketFiles
         Directory.CreateDirectory(folder);
         File.WriteAllBytes(Path.Combine(folder, "proposal.pdf"), PacketRenderer.Proposal(PacketSamples.ProposalData(), PacketSamples.Certificate));
         File.WriteAllBytes(Path.Combine(folder, "cycle.pdf"), PacketRenderer.Cycle(PacketSamples.CycleData(4), PacketSamples.Certificate));
+        var tax = new Engine.Specifications.TaxSpec
+        {
+            IncomeTaxRate = 0.25,
+            Depreciation = new Engine.Specifications.DepreciationSpec { Method = Engine.Specifications.DepreciationMethod.Macrs, PropertyClass = Engine.Depreciation.MacrsClass.SevenYear },
+            Loan = new Engine.Specifications.LoanSpec { Share = 0.5, Rate = 0.06, Term = 6 },
+        };
+        File.WriteAllBytes(Path.Combine(folder, "after-tax.pdf"), PacketRenderer.Proposal(PacketSamples.ProposalData(tax: tax), PacketSamples.Certificate));
     }
 }
 

@@ -64,6 +64,12 @@ internal static class ProposalSections
         flow.Heading("Cash flows per element", PacketStyle.Heading1);
         PerElement(flow, evaluation, version.Assumptions.Model, f);
 
+        if (ProposalTerms.Tax(version.Assumptions, data.Marr) is { } tax)
+        {
+            flow.Bookmark("After tax", parent);
+            AfterTax(flow, AfterTaxEvaluator.Evaluate(ProposalTerms.Model(version.Assumptions, data.Marr, data.Proposal.RiskClass), tax), f);
+        }
+
         flow.Bookmark("Version history", parent);
         History(flow, data, f);
         flow.Note("Cautions", Cautions.Estimates, PacketStyle.Amber);
@@ -181,11 +187,61 @@ internal static class ProposalSections
         TableWriter.Draw(flow, [new("Element", 2.6), new("Shape", 1.1), new("Category", 1.1), new("Periods", 1.1), new("Amount", 2.2, true), new("PW at MARR", 1.4, true)], rows);
     }
 
+    private static void AfterTax(PageFlow flow, Engine.Validation.Outcome<AfterTaxEvaluation> outcome, PacketFormat f)
+    {
+        flow.Heading("After tax", PacketStyle.Heading1);
+        flow.Note("Taxes", "Tax and depreciation rules vary by jurisdiction and by year. The after-tax figures are estimates from the rates and methods "
+            + "entered with this version, not tax advice; the organisation's tax advisers decide how the investment is treated.", PacketStyle.Amber);
+        if (outcome.Value is not { } r)
+        {
+            flow.Text("The tax settings of this version are not complete: " + string.Join("; ", outcome.Errors.Select(e => $"{e.Field}: {e.Message}")), PacketStyle.Body);
+            return;
+        }
+        string Rate(Evaluation e) => e.RatesOfReturn.Count switch { 0 => "none", 1 => f.Percent(e.RatesOfReturn[0]) + " (unique)", _ => "several" };
+        var pairs = new List<(string, string)>
+        {
+            ("Income-tax rate", f.Percent(r.Settings.IncomeTaxRate) + (r.Settings.GainTaxRate is double g ? $"; on a gain at disposal {f.Percent(g)}" : "")),
+            ("Depreciation", r.Settings.Depreciation.Method),
+            ("Losses", r.Settings.Losses == Engine.Taxes.LossTreatment.Offset ? "offset against other income in their year" : "carried forward against later income"),
+            ("After-tax MARR", $"{f.Percent(r.AfterTax.Marr.EffectiveAnnual())}: {r.AfterTaxMarrBasis}"),
+            ("After-tax present worth", $"{f.Money(r.AfterTax.PresentWorth)} {f.CurrencyCode} (before tax {f.Money(r.BeforeTax.PresentWorth)})"),
+            ("After-tax annual worth", $"{f.Money(r.AfterTax.AnnualWorth)} {f.CurrencyCode} a year"),
+            ("After-tax rate of return", Rate(r.AfterTax)),
+            ("Disposal", $"book value {f.Money(r.Table.BookValueAtDisposal)}, {(r.Table.GainOnDisposal >= 0 ? "gain" : "loss")} {f.Money(Math.Abs(r.Table.GainOnDisposal))}"),
+        };
+        if (r.Settings.Financing is { } loan && r.Equity is { } equity)
+        {
+            pairs.Add(("Financing", $"{f.Percent(loan.Share)} of the first cost borrowed at {f.Percent(loan.Rate)} over {loan.Term} years; equity present worth {f.Money(equity.PresentWorth)} {f.CurrencyCode}, rate of return {Rate(equity)}"));
+        }
+        flow.Pairs(pairs);
+        flow.Heading("Depreciation schedule", PacketStyle.Heading2);
+        var schedule = r.Settings.Depreciation.DisposedIn(r.Table.Rows.Count - 1, r.Settings.DisposalYearShare);
+        TableWriter.Draw(flow, [new("Tax year", 1, true), new("Depreciation", 2, true), new("Share of basis", 1.5, true), new("Book value at year end", 2, true)],
+            schedule.Amounts.Select((a, k) => new TableRow([(k + 1).ToString(f.Culture), f.Money(a), f.Percent(schedule.Basis == 0 ? 0 : a / schedule.Basis), f.Money(schedule.BookValueAfter(k + 1))])));
+        flow.Heading("After-tax cash flows", PacketStyle.Heading2);
+        bool equityColumn = r.Equity is not null;
+        var columns = new List<TableColumn>
+        {
+            new("Year", 0.7, true), new("Before tax", 1.2, true), new("Depreciation", 1.2, true), new("Taxable income", 1.3, true),
+            new("Tax", 1.1, true), new("Credit", 1, true), new("After tax", 1.2, true),
+        };
+        if (equityColumn)
+        {
+            columns.Add(new("Equity", 1.2, true));
+        }
+        TableWriter.Draw(flow, columns, r.Table.Rows.Select(row => new TableRow(
+        [
+            row.Period.ToString(f.Culture), f.Money(row.BeforeTax), f.Money(row.Depreciation), f.Money(row.TaxableIncome), f.Money(row.Tax), f.Money(row.Credit), f.Money(row.AfterTax),
+            .. equityColumn ? new[] { f.Money(row.Equity) } : [],
+        ])));
+        flow.Text($"Amounts in {f.CurrencyCode}. A negative tax is a saving against the organisation's other income.", PacketStyle.Small, PacketStyle.SoftBrush);
+    }
+
     private static void History(PageFlow flow, ProposalPacketData data, PacketFormat f)
     {
         flow.Heading("Version history", PacketStyle.Heading1);
         var versions = data.Proposal.Versions.Where(v => v.Number <= data.Version.Number).ToList();
-        TableWriter.Draw(flow, [new("Version", 0.7, true), new("Made", 1.6), new("Reason", 2.6), new("State", 1.6), new("Assumptions SHA-256", 3.2)],
+        TableWriter.Draw(flow, [new("Version", 0.9, true), new("Made", 1.6), new("Reason", 2.6), new("State", 1.6), new("Assumptions SHA-256", 3.2)],
             versions.Select(v => new TableRow([v.Number.ToString(f.Culture), f.Time(v.CreatedAt), v.Reason, v.IsFrozen ? "submitted" : "draft", v.AssumptionsHash])));
         var policy = data.Marr.RateFor(data.Proposal.RiskClass);
         for (int k = 1; k < versions.Count; k++)
