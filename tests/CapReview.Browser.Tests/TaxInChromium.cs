@@ -7,7 +7,7 @@ using Microsoft.Playwright;
 
 namespace CapReview.Browser.Tests;
 
-/// <summary>A lead puts the demo's forklift draft on an after-tax basis with MACRS, saves it and finds it again.</summary>
+/// <summary>A lead puts the demo's forklift draft on an after-tax basis with MACRS, adds a risk analysis, saves it and finds it again.</summary>
 public sealed class TaxInChromium(BrowserFixture browser) : IClassFixture<BrowserFixture>
 {
     [Fact]
@@ -37,5 +37,22 @@ public sealed class TaxInChromium(BrowserFixture browser) : IClassFixture<Browse
         await page.Locator("[data-testid=interactive]").WaitForAsync(new() { State = WaitForSelectorState.Attached });
         await Assertions.Expect(page.Locator("#tax-enabled")).ToBeCheckedAsync();
         await Assertions.Expect(page.Locator("#macrs-class")).ToHaveValueAsync("FiveYear");
+
+        // The risk panel: the diesel saving is uncertain; the tornado, the simulation, and the parameter kept with the draft.
+        await page.GetByTestId("add-parameter").ClickAsync();
+        await page.Locator("#risk-target-0").SelectOptionAsync("elements[2].amount");
+        await Assertions.Expect(page.GetByTestId("tornado-table").Locator("tbody tr")).ToHaveCountAsync(1);
+        await Assertions.Expect(page.GetByTestId("scenarios-table")).ToContainTextAsync("Pessimistic");
+        await page.Locator("#risk-trials").FillAsync("20000");
+        await page.GetByTestId("run-simulation").ClickAsync();
+        await Assertions.Expect(page.GetByTestId("probability-of-loss")).ToContainTextAsync("%");
+        await Assertions.Expect(page.GetByTestId("risk-message")).ToContainTextAsync("20,000 trials run with seed 2027");
+        await Assertions.Expect(page.Locator("#pw-histogram .main-svg").First).ToBeVisibleAsync();
+        await BrowserFixture.ScreenshotAsync(page, "proposal-risk");
+        await page.GetByRole(AriaRole.Button, new() { Name = "Save draft" }).ClickAsync();
+        await Assertions.Expect(page.GetByTestId("editor-message")).ToHaveTextAsync("Saved.");
+        await page.ReloadAsync();
+        await page.Locator("[data-testid=interactive]").WaitForAsync(new() { State = WaitForSelectorState.Attached });
+        await Assertions.Expect(page.Locator("#risk-target-0")).ToHaveValueAsync("elements[2].amount");
     }
 }

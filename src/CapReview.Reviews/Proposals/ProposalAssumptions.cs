@@ -26,6 +26,9 @@ public sealed record ProposalAssumptions
 
     /// <summary>The after-tax settings (tax rates, depreciation, credits, losses, financing); null for a before-tax proposal.</summary>
     public TaxSpec? Tax { get; init; }
+
+    /// <summary>The uncertain parameters and the simulation's trials and seed; null when no risk analysis was set up.</summary>
+    public RiskSpec? Risk { get; init; }
 }
 
 /// <summary>A proposal's own MARR in place of the policy's, and why.</summary>

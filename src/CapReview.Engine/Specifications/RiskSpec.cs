@@ -1,0 +1,104 @@
+using CapReview.Engine.Risk;
+using CapReview.Engine.Validation;
+
+namespace CapReview.Engine.Specifications;
+
+/// <summary>The uncertain parameters of a proposal and its simulation settings, as entered and stored with a version.</summary>
+public sealed record RiskSpec
+{
+    public IReadOnlyList<ParameterSpec?>? Parameters { get; init; }
+
+    /// <summary>Trials of the simulation; default 10,000, at most 1,000,000.</summary>
+    public int? Trials { get; init; }
+
+    /// <summary>The seed the simulation's draws follow, recorded so its numbers can be made again.</summary>
+    public int? Seed { get; init; }
+}
+
+/// <summary>One uncertain parameter as entered.</summary>
+public sealed record ParameterSpec
+{
+    public string? Name { get; init; }
+
+    /// <summary>The input's field path, e.g. elements[1].amount, rate, horizon.</summary>
+    public string? Target { get; init; }
+
+    public double? Low { get; init; }
+
+    public double? MostLikely { get; init; }
+
+    public double? High { get; init; }
+
+    public DistributionKind? Distribution { get; init; }
+
+    public IReadOnlyList<DiscreteOutcome>? Outcomes { get; init; }
+}
+
+/// <summary>The parameters and simulation settings as read.</summary>
+public sealed record RiskSettings(IReadOnlyList<UncertainParameter> Parameters, int Trials, int Seed);
+
+/// <summary>Reads a <see cref="RiskSpec"/>, naming each bad field under "risk".</summary>
+public static class RiskSpecReader
+{
+    public static Outcome<RiskSettings> Read(RiskSpec spec, ProposalCase proposal)
+    {
+        ArgumentNullException.ThrowIfNull(spec);
+        ArgumentNullException.ThrowIfNull(proposal);
+        var errors = new List<InputError>();
+        var parameters = new List<UncertainParameter>();
+        for (int k = 0; k < (spec.Parameters?.Count ?? 0); k++)
+        {
+            string path = $"risk.parameters[{k}]";
+            ParameterSpec? p = spec.Parameters![k];
+            if (p is null || string.IsNullOrWhiteSpace(p.Name))
+            {
+                errors.Add(new($"{path}.name", "Name the parameter."));
+                continue;
+            }
+            if (p.Target is null || !Varies(proposal, p.Target))
+            {
+                errors.Add(new($"{path}.target", "Choose an input of the model to vary."));
+                continue;
+            }
+            if (p.Low is not double low || p.MostLikely is not double likely || p.High is not double high || !double.IsFinite(low) || !double.IsFinite(likely) || !double.IsFinite(high))
+            {
+                errors.Add(new($"{path}.low", "Give the low, most likely and high values."));
+                continue;
+            }
+            if (!(low <= likely && likely <= high))
+            {
+                errors.Add(new($"{path}.mostLikely", "The values must run low ≤ most likely ≤ high."));
+                continue;
+            }
+            var parameter = new UncertainParameter(p.Name.Trim(), p.Target, low, likely, high, p.Distribution ?? DistributionKind.Triangular, p.Outcomes);
+            try
+            {
+                _ = MonteCarlo.Run(proposal, [parameter], 1, 1);
+                parameters.Add(parameter);
+            }
+            catch (ArgumentException ex)
+            {
+                errors.Add(new($"{path}.distribution", ex.Message.Split(" (Parameter", 2)[0]));
+            }
+        }
+        int trials = spec.Trials ?? MonteCarlo.DefaultTrials;
+        if (trials is < 1 or > MonteCarlo.MaxTrials)
+        {
+            errors.Add(new("risk.trials", "Run 1 to 1,000,000 trials."));
+        }
+        return errors.Count > 0 ? Outcome.Failure<RiskSettings>(errors) : Outcome.Success(new RiskSettings(parameters, trials, spec.Seed ?? 1));
+    }
+
+    private static bool Varies(ProposalCase proposal, string target)
+    {
+        try
+        {
+            _ = proposal.With(target, proposal.ValueAt(target) ?? 0);
+            return true;
+        }
+        catch (ArgumentException)
+        {
+            return false;
+        }
+    }
+}

@@ -1,0 +1,97 @@
+using System.Globalization;
+using CapReview.Engine.Risk;
+using CapReview.Engine.Specifications;
+using CapReview.Engine.Validation;
+
+namespace CapReview.Web.ProposalForms;
+
+/// <summary>One uncertain parameter as typed.</summary>
+public sealed class ParameterDraft
+{
+    public string Name { get; set; } = "";
+
+    public string Target { get; set; } = "";
+
+    public string Low { get; set; } = "";
+
+    public string MostLikely { get; set; } = "";
+
+    public string High { get; set; } = "";
+
+    public DistributionKind Distribution { get; set; } = DistributionKind.Triangular;
+}
+
+/// <summary>The risk analysis as a lead types it: the parameters, the trials and the seed.</summary>
+public sealed class RiskDraft
+{
+    public List<ParameterDraft> Parameters { get; } = [];
+
+    public string Trials { get; set; } = "10000";
+
+    public string Seed { get; set; } = "2027";
+
+    public static RiskDraft From(RiskSpec? spec, CultureInfo culture)
+    {
+        var draft = new RiskDraft();
+        if (spec is null)
+        {
+            return draft;
+        }
+        string Number(double? v) => v?.ToString("0.############", culture) ?? "";
+        draft.Parameters.AddRange((spec.Parameters ?? []).Where(p => p is not null).Select(p => new ParameterDraft
+        {
+            Name = p!.Name ?? "",
+            Target = p.Target ?? "",
+            Low = Number(p.Low),
+            MostLikely = Number(p.MostLikely),
+            High = Number(p.High),
+            Distribution = p.Distribution ?? DistributionKind.Triangular,
+        }));
+        draft.Trials = (spec.Trials ?? MonteCarlo.DefaultTrials).ToString(culture);
+        draft.Seed = (spec.Seed ?? 1).ToString(culture);
+        return draft;
+    }
+
+    /// <summary>The stored form, null when no parameter is set, with the fields that did not parse.</summary>
+    public (RiskSpec? Spec, IReadOnlyList<InputError> Errors) Read(CultureInfo culture)
+    {
+        if (Parameters.Count == 0)
+        {
+            return (null, []);
+        }
+        var errors = new List<InputError>();
+        double? Number(string text, string field)
+        {
+            if (double.TryParse(text.Trim().Replace('−', '-'), NumberStyles.Float | NumberStyles.AllowThousands, culture, out double v) && double.IsFinite(v))
+            {
+                return v;
+            }
+            errors.Add(new(field, $"“{text.Trim()}” is not a number."));
+            return null;
+        }
+        int? Whole(string text, string field)
+        {
+            if (int.TryParse(text.Trim(), NumberStyles.Integer | NumberStyles.AllowThousands, culture, out int v))
+            {
+                return v;
+            }
+            errors.Add(new(field, $"“{text.Trim()}” is not a whole number."));
+            return null;
+        }
+        var spec = new RiskSpec
+        {
+            Parameters = [.. Parameters.Select((p, k) => new ParameterSpec
+            {
+                Name = p.Name,
+                Target = p.Target,
+                Low = Number(p.Low, $"risk.parameters[{k}].low"),
+                MostLikely = Number(p.MostLikely, $"risk.parameters[{k}].mostLikely"),
+                High = Number(p.High, $"risk.parameters[{k}].high"),
+                Distribution = p.Distribution,
+            })],
+            Trials = Whole(Trials, "risk.trials"),
+            Seed = Whole(Seed, "risk.seed"),
+        };
+        return (spec, errors);
+    }
+}
