@@ -78,4 +78,16 @@ public sealed class BrowserFixture : IAsyncLifetime
         Directory.CreateDirectory(folder);
         await page.ScreenshotAsync(new PageScreenshotOptions { Path = Path.Combine(folder, name + ".png"), FullPage = true });
     }
+
+    /// <summary>A screenshot of one part of the page, when CAPREVIEW_SCREENSHOTS names a folder.</summary>
+    public static async Task ScreenshotAsync(ILocator part, string name)
+    {
+        string? folder = Environment.GetEnvironmentVariable("CAPREVIEW_SCREENSHOTS");
+        if (string.IsNullOrEmpty(folder))
+        {
+            return;
+        }
+        Directory.CreateDirectory(folder);
+        await part.ScreenshotAsync(new LocatorScreenshotOptions { Path = Path.Combine(folder, name + ".png") });
+    }
 }
