@@ -50,18 +50,18 @@ internal static class PacketSamples
         ],
     };
 
-    public static VersionView Version(int number, ModelSpec model, string reason, bool frozen, TaxSpec? tax = null)
+    public static VersionView Version(int number, ModelSpec model, string reason, bool frozen, TaxSpec? tax = null, RiskSpec? risk = null)
     {
-        var assumptions = new ProposalAssumptions { Model = model, Tax = tax };
+        var assumptions = new ProposalAssumptions { Model = model, Tax = tax, Risk = risk };
         string json = AssumptionsDocument.Serialize(assumptions);
         return new VersionView(number, "lead-1", Now.AddDays(-60 + number), reason, frozen, frozen ? Now.AddDays(-59 + number) : null,
             AssumptionsDocument.Hash(json), assumptions);
     }
 
-    public static (ProposalView Proposal, Decision Decision) Decided(int id, DecisionOutcome outcome = DecisionOutcome.Approve, double saving = 137_000, TaxSpec? tax = null)
+    public static (ProposalView Proposal, Decision Decision) Decided(int id, DecisionOutcome outcome = DecisionOutcome.Approve, double saving = 137_000, TaxSpec? tax = null, RiskSpec? risk = null)
     {
         var v1 = Version(1, Model(saving - 10_000), "First draft", frozen: true);
-        var v2 = Version(2, Model(saving), "Savings re-estimated after the supplier's trial run", frozen: true, tax);
+        var v2 = Version(2, Model(saving), "Savings re-estimated after the supplier's trial run", frozen: true, tax, risk);
         var proposal = new ProposalView(id, $"P-{id:D4}", "lead-1", id == 2 ? "CNC line 3 replacement" : $"Machining cell {id}", "Replace two machining centres.",
             ProposalCategory.Replacement, RiskClass.Standard, ProposalStatus.Approved, 1, 3, [v1, v2]);
         var decision = new Decision
@@ -72,9 +72,9 @@ internal static class PacketSamples
         return (proposal, decision);
     }
 
-    public static ProposalPacketData ProposalData(PaperSize paper = PaperSize.A4, TaxSpec? tax = null)
+    public static ProposalPacketData ProposalData(PaperSize paper = PaperSize.A4, TaxSpec? tax = null, RiskSpec? risk = null)
     {
-        var (proposal, decision) = Decided(2, tax: tax);
+        var (proposal, decision) = Decided(2, tax: tax, risk: risk);
         return new ProposalPacketData(Organisation, Cycle, Marr, proposal, decision, SignOffs, Now, new SigningNotice("", "", true), paper);
     }
 

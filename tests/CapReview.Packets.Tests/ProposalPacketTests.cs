@@ -73,6 +73,27 @@ public sealed class ProposalPacketTests
     }
 
     [Fact]
+    public void A_version_with_a_risk_analysis_carries_the_tornado_the_distribution_the_seed_and_the_trials()
+    {
+        var risk = new Engine.Specifications.RiskSpec
+        {
+            Trials = 4_000,
+            Seed = 99,
+            Parameters = [new Engine.Specifications.ParameterSpec { Name = "Labour saved", Target = "elements[1].amount", Low = 100_000, MostLikely = 137_000, High = 150_000 }],
+        };
+        var data = PacketSamples.ProposalData(risk: risk);
+        string text = Text(PacketRenderer.Proposal(data, PacketSamples.Certificate));
+        Assert.Contains("Sensitivity and risk", text);
+        Assert.Contains("4,000 trials, seed 99", text);
+        var proposal = new Engine.Risk.ProposalCase(Reviews.Proposals.ProposalTerms.Model(data.Version.Assumptions, PacketSamples.Marr, data.Proposal.RiskClass));
+        var result = Engine.Risk.MonteCarlo.Run(proposal, [new("Labour saved", "elements[1].amount", 100_000, 137_000, 150_000)], 4_000, 99);
+        Assert.Contains(new PacketFormat(PacketSamples.Organisation.Culture, "EUR").Percent(result.ProbabilityOfLoss) + " of the trials", text);
+        using PigDocument pdf = PigDocument.Open(PacketRenderer.Proposal(data, PacketSamples.Certificate));
+        Assert.True(pdf.TryGetBookmarks(out var bookmarks));
+        Assert.Contains("Risk", bookmarks.Roots.Single().Children.Select(c => c.Title));
+    }
+
+    [Fact]
     public void Pages_are_numbered_bookmarked_and_sized_to_the_chosen_paper()
     {
         using PigDocument a4 = PigDocument.Open(Packet);
@@ -152,7 +173,16 @@ public sealed class SamplePacketFiles
             Depreciation = new Engine.Specifications.DepreciationSpec { Method = Engine.Specifications.DepreciationMethod.Macrs, PropertyClass = Engine.Depreciation.MacrsClass.SevenYear },
             Loan = new Engine.Specifications.LoanSpec { Share = 0.5, Rate = 0.06, Term = 6 },
         };
-        File.WriteAllBytes(Path.Combine(folder, "after-tax.pdf"), PacketRenderer.Proposal(PacketSamples.ProposalData(tax: tax), PacketSamples.Certificate));
+        var risk = new Engine.Specifications.RiskSpec
+        {
+            Seed = 7,
+            Parameters =
+            [
+                new Engine.Specifications.ParameterSpec { Name = "Labour saved", Target = "elements[1].amount", Low = 100_000, MostLikely = 137_000, High = 150_000 },
+                new Engine.Specifications.ParameterSpec { Name = "MARR", Target = "rate", Low = 0.07, MostLikely = 0.09, High = 0.12, Distribution = Engine.Risk.DistributionKind.Pert },
+            ],
+        };
+        File.WriteAllBytes(Path.Combine(folder, "after-tax.pdf"), PacketRenderer.Proposal(PacketSamples.ProposalData(tax: tax, risk: risk), PacketSamples.Certificate));
     }
 }
 

@@ -70,6 +70,13 @@ internal static class ProposalSections
             AfterTax(flow, AfterTaxEvaluator.Evaluate(ProposalTerms.Model(version.Assumptions, data.Marr, data.Proposal.RiskClass), tax), f);
         }
 
+        if (version.Assumptions.Risk is { } risk)
+        {
+            flow.Bookmark("Risk", parent);
+            var proposal = new Engine.Risk.ProposalCase(ProposalTerms.Model(version.Assumptions, data.Marr, data.Proposal.RiskClass), ProposalTerms.Tax(version.Assumptions, data.Marr));
+            Risk(flow, proposal, risk, f);
+        }
+
         flow.Bookmark("Version history", parent);
         History(flow, data, f);
         flow.Note("Cautions", Cautions.Estimates, PacketStyle.Amber);
@@ -235,6 +242,35 @@ internal static class ProposalSections
             .. equityColumn ? new[] { f.Money(row.Equity) } : [],
         ])));
         flow.Text($"Amounts in {f.CurrencyCode}. A negative tax is a saving against the organisation's other income.", PacketStyle.Small, PacketStyle.SoftBrush);
+    }
+
+    private static void Risk(PageFlow flow, Engine.Risk.ProposalCase proposal, Engine.Specifications.RiskSpec spec, PacketFormat f)
+    {
+        flow.Heading("Sensitivity and risk", PacketStyle.Heading1);
+        var read = Engine.Specifications.RiskSpecReader.Read(spec, proposal);
+        if (read.Value is not { Parameters.Count: > 0 } settings)
+        {
+            flow.Text("The risk settings of this version are not complete: " + string.Join("; ", read.Errors.Select(e => $"{e.Field}: {e.Message}")), PacketStyle.Body);
+            return;
+        }
+        var bars = Engine.Risk.Sensitivity.Tornado(proposal, settings.Parameters, Engine.Risk.RiskMeasure.PresentWorth);
+        double basis = Engine.Risk.Sensitivity.MostLikely(proposal, settings.Parameters).Measure(Engine.Risk.RiskMeasure.PresentWorth);
+        TableWriter.Draw(flow, [new("Parameter", 2.4), new("Input", 1.8), new("Low", 1.1, true), new("Most likely", 1.1, true), new("High", 1.1, true), new("Distribution", 1.2)],
+            settings.Parameters.Select(p => new TableRow([p.Name, p.Target, Value(p.Low), Value(p.MostLikely), Value(p.High), p.Distribution.ToString()])));
+        flow.Figure(Math.Max(90, 34 + 26 * bars.Count), (g, area) => Charts.TornadoDrawing.Draw(g, area, bars, basis, f),
+            $"Tornado: present worth with each parameter at its low (red-brown) and high (green) value, the others at most likely ({f.Money(basis)} {f.CurrencyCode}).");
+        var result = Engine.Risk.MonteCarlo.Run(proposal, settings.Parameters, settings.Trials, settings.Seed);
+        // Amounts to whole units; rates and other small values to four decimals.
+        string Value(double v) => Math.Abs(v) >= 100 ? f.Number(v, 0) : f.Number(v, 4);
+        flow.Figure(190, (g, area) => Charts.DistributionDrawing.Draw(g, area, result, f),
+            $"Present worth in {result.Trials.ToString("N0", f.Culture)} trials with seed {result.Seed}; the same seed and trial count give the same figures.");
+        flow.Pairs(
+        [
+            ("Trials and seed", $"{result.Trials.ToString("N0", f.Culture)} trials, seed {result.Seed}"),
+            ("Probability of a loss", $"{f.Percent(result.ProbabilityOfLoss)} of the trials have a present worth below zero"),
+            ("Present worth", $"mean {f.Money(result.PresentWorth.Mean)}, P5 {f.Money(result.PresentWorth.P5)}, P50 {f.Money(result.PresentWorth.P50)}, P95 {f.Money(result.PresentWorth.P95)} {f.CurrencyCode}"),
+            ("Annual worth", $"mean {f.Money(result.AnnualWorth.Mean)}, P5 {f.Money(result.AnnualWorth.P5)}, P95 {f.Money(result.AnnualWorth.P95)} {f.CurrencyCode} a year"),
+        ]);
     }
 
     private static void History(PageFlow flow, ProposalPacketData data, PacketFormat f)
