@@ -59,6 +59,9 @@ public sealed partial class PortfolioInChromium(BrowserFixture browser) : IClass
         await page.Locator("#filter-category").SelectOptionAsync("Compliance");
         await Assertions.Expect(rows).ToHaveCountAsync(2);
         await page.Locator("#filter-category").SelectOptionAsync("");
+        // The solar array carries a risk analysis (seed 2027): its probability of a loss shows beside it.
+        await page.Locator("#show-risk").CheckAsync();
+        await Assertions.Expect(page.GetByTestId("ranking-row").Filter(new() { HasText = "Rooftop solar" }).GetByTestId("ranking-loss")).ToContainTextAsync("%");
         await page.Locator("#marr-shift").SelectOptionAsync("2");
         await Assertions.Expect(page.GetByTestId("ranking-basis")).ToContainTextAsync("raised by 2 points");
         await Assertions.Expect(page.GetByTestId("swap-result")).ToContainTextAsync("P-");

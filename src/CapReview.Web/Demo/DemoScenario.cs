@@ -76,9 +76,10 @@ public sealed partial class DemoScenario(IdentityStore identity, MarrPolicyServi
             ProposalCategory.Replacement, RiskClass.High, new ProposalAssumptions { Model = CncLine(), Replacement = CncLineTiming() }), cancellationToken).ConfigureAwait(false);
         await proposals.SubmitAsync(maren, cnc.Id, cycle.Id, cnc.Revision, cancellationToken).ConfigureAwait(false);
 
-        async Task<ProposalView> SubmitAsync(Actor lead, string title, string description, ProposalCategory category, RiskClass risk, ModelSpec model)
+        async Task<ProposalView> SubmitAsync(Actor lead, string title, string description, ProposalCategory category, RiskClass risk, ModelSpec model, RiskSpec? uncertainty = null)
         {
-            var draft = await proposals.CreateDraftAsync(lead, new ProposalDraft(title, description, category, risk, new ProposalAssumptions { Model = model }), cancellationToken).ConfigureAwait(false);
+            var draft = await proposals.CreateDraftAsync(lead, new ProposalDraft(title, description, category, risk,
+                new ProposalAssumptions { Model = model, Risk = uncertainty }), cancellationToken).ConfigureAwait(false);
             return await proposals.SubmitAsync(lead, draft.Id, cycle.Id, draft.Revision, cancellationToken).ConfigureAwait(false);
         }
         var overhaul = await SubmitAsync(maren, "CNC line 3 overhaul",
@@ -95,7 +96,18 @@ public sealed partial class DemoScenario(IdentityStore identity, MarrPolicyServi
                 Single("Phase 2 array", CashFlowCategory.Capital, 1, -140_000),
                 new() { Type = ElementKind.Geometric, Label = "Electricity not bought", Category = CashFlowCategory.Revenue, First = 1, Last = 25, Amount = 64_000, Growth = 0.02 },
                 Uniform("Cleaning and inspection", CashFlowCategory.Operating, 1, 25, -5_500),
-                new() { Type = ElementKind.Recurring, Label = "Inverter replacement", Category = CashFlowCategory.Capital, First = 12, Last = 12, Every = 12, Amount = -48_000 }));
+                new() { Type = ElementKind.Recurring, Label = "Inverter replacement", Category = CashFlowCategory.Capital, First = 12, Last = 12, Every = 12, Amount = -48_000 }),
+            new RiskSpec
+            {
+                Trials = 10_000,
+                Seed = 2027,
+                Parameters =
+                [
+                    new ParameterSpec { Name = "Electricity not bought", Target = "elements[2].amount", Low = 50_000, MostLikely = 64_000, High = 72_000 },
+                    new ParameterSpec { Name = "Electricity price growth", Target = "elements[2].growth", Low = 0.0, MostLikely = 0.02, High = 0.04, Distribution = Engine.Risk.DistributionKind.Pert },
+                    new ParameterSpec { Name = "Phase 1 cost", Target = "elements[0].amount", Low = -460_000, MostLikely = -410_000, High = -395_000 },
+                ],
+            });
         var battery = await SubmitAsync(oskar, "Battery buffer for the solar array",
             "A 400 kWh battery that stores the array's midday surplus to cut the peak-demand charge.",
             ProposalCategory.CostReduction, RiskClass.Standard, Model(12,
