@@ -47,7 +47,7 @@ public static class MonteCarlo
     private const int Block = 1_024;
 
     public static MonteCarloResult Run(ProposalCase proposal, IReadOnlyList<UncertainParameter> parameters, int trials, int seed,
-        IProgress<double>? progress = null, CancellationToken cancellationToken = default)
+        IReadOnlyList<Correlation>? correlations = null, IProgress<double>? progress = null, CancellationToken cancellationToken = default)
     {
         ArgumentNullException.ThrowIfNull(proposal);
         ArgumentNullException.ThrowIfNull(parameters);
@@ -56,6 +56,7 @@ public static class MonteCarlo
             throw new ArgumentOutOfRangeException(nameof(trials), trials, "Run 1 to 1,000,000 trials.");
         }
         var samplers = parameters.Select(p => new Sampler(p)).ToArray();
+        RankCorrelation? correlation = RankCorrelation.Of(parameters, correlations);
         var pw = new double[trials];
         var aw = new double[trials];
         var ror = new double[trials];
@@ -64,15 +65,27 @@ public static class MonteCarlo
         Parallel.For(0, blocks, new ParallelOptions { CancellationToken = cancellationToken, MaxDegreeOfParallelism = Environment.ProcessorCount }, block =>
         {
             var random = new Random(BlockSeed(seed, block));
+            int start = block * Block, end = Math.Min(trials, start + Block), rows = end - start;
+            // A block's draws, parameter by parameter, then paired as the correlations ask.
+            var draws = new double[samplers.Length][];
+            for (int k = 0; k < samplers.Length; k++)
+            {
+                draws[k] = new double[rows];
+                for (int r = 0; r < rows; r++)
+                {
+                    draws[k][r] = samplers[k].Draw(random);
+                }
+            }
+            correlation?.Apply(draws, rows, random);
             var values = new double[samplers.Length];
             CompiledTrials.Workspace? space = compiled?.NewWorkspace();
-            int end = Math.Min(trials, (block + 1) * Block);
-            for (int t = block * Block; t < end; t++)
+            for (int r = 0; r < rows; r++)
             {
                 for (int k = 0; k < samplers.Length; k++)
                 {
-                    values[k] = samplers[k].Draw(random);
+                    values[k] = draws[k][r];
                 }
+                int t = start + r;
                 (pw[t], aw[t], ror[t]) = compiled is not null ? compiled.Run(values, space!) : Full(proposal, parameters, values);
             }
             progress?.Report((double)Interlocked.Increment(ref done) / blocks);
