@@ -13,6 +13,9 @@ public sealed record RiskSpec
 
     /// <summary>The seed the simulation's draws follow, recorded so its numbers can be made again.</summary>
     public int? Seed { get; init; }
+
+    /// <summary>Rank correlations between parameters, by their names.</summary>
+    public IReadOnlyList<Correlation>? Correlations { get; init; }
 }
 
 /// <summary>One uncertain parameter as entered.</summary>
@@ -35,7 +38,7 @@ public sealed record ParameterSpec
 }
 
 /// <summary>The parameters and simulation settings as read.</summary>
-public sealed record RiskSettings(IReadOnlyList<UncertainParameter> Parameters, int Trials, int Seed);
+public sealed record RiskSettings(IReadOnlyList<UncertainParameter> Parameters, int Trials, int Seed, IReadOnlyList<Correlation> Correlations);
 
 /// <summary>Reads a <see cref="RiskSpec"/>, naming each bad field under "risk".</summary>
 public static class RiskSpecReader
@@ -86,7 +89,19 @@ public static class RiskSpecReader
         {
             errors.Add(new("risk.trials", "Run 1 to 1,000,000 trials."));
         }
-        return errors.Count > 0 ? Outcome.Failure<RiskSettings>(errors) : Outcome.Success(new RiskSettings(parameters, trials, spec.Seed ?? 1));
+        var correlations = spec.Correlations ?? [];
+        if (errors.Count == 0 && correlations.Count > 0)
+        {
+            try
+            {
+                _ = MonteCarlo.Run(proposal, parameters, 1, 1, correlations);
+            }
+            catch (ArgumentException ex)
+            {
+                errors.Add(new("risk.correlations", ex.Message.Split(" (Parameter", 2)[0]));
+            }
+        }
+        return errors.Count > 0 ? Outcome.Failure<RiskSettings>(errors) : Outcome.Success(new RiskSettings(parameters, trials, spec.Seed ?? 1, correlations));
     }
 
     private static bool Varies(ProposalCase proposal, string target)

@@ -259,7 +259,7 @@ internal static class ProposalSections
             settings.Parameters.Select(p => new TableRow([p.Name, p.Target, Value(p.Low), Value(p.MostLikely), Value(p.High), p.Distribution.ToString()])));
         flow.Figure(Math.Max(90, 34 + 26 * bars.Count), (g, area) => Charts.TornadoDrawing.Draw(g, area, bars, basis, f),
             $"Tornado: present worth with each parameter at its low (red-brown) and high (green) value, the others at most likely ({f.Money(basis)} {f.CurrencyCode}).");
-        var result = Engine.Risk.MonteCarlo.Run(proposal, settings.Parameters, settings.Trials, settings.Seed);
+        var result = Engine.Risk.MonteCarlo.Run(proposal, settings.Parameters, settings.Trials, settings.Seed, settings.Correlations);
         // Amounts to whole units; rates and other small values to four decimals.
         string Value(double v) => Math.Abs(v) >= 100 ? f.Number(v, 0) : f.Number(v, 4);
         flow.Figure(190, (g, area) => Charts.DistributionDrawing.Draw(g, area, result, f),

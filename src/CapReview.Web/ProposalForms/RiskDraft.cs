@@ -21,10 +21,22 @@ public sealed class ParameterDraft
     public DistributionKind Distribution { get; set; } = DistributionKind.Triangular;
 }
 
-/// <summary>The risk analysis as a lead types it: the parameters, the trials and the seed.</summary>
+/// <summary>A rank correlation between two parameters as typed.</summary>
+public sealed class CorrelationDraft
+{
+    public string First { get; set; } = "";
+
+    public string Second { get; set; } = "";
+
+    public string Coefficient { get; set; } = "0.5";
+}
+
+/// <summary>The risk analysis as a lead types it: the parameters, their correlations, the trials and the seed.</summary>
 public sealed class RiskDraft
 {
     public List<ParameterDraft> Parameters { get; } = [];
+
+    public List<CorrelationDraft> Correlations { get; } = [];
 
     public string Trials { get; set; } = "10000";
 
@@ -47,6 +59,7 @@ public sealed class RiskDraft
             High = Number(p.High),
             Distribution = p.Distribution ?? DistributionKind.Triangular,
         }));
+        draft.Correlations.AddRange((spec.Correlations ?? []).Select(c => new CorrelationDraft { First = c.First, Second = c.Second, Coefficient = c.Coefficient.ToString("0.############", culture) }));
         draft.Trials = (spec.Trials ?? MonteCarlo.DefaultTrials).ToString(culture);
         draft.Seed = (spec.Seed ?? 1).ToString(culture);
         return draft;
@@ -89,6 +102,8 @@ public sealed class RiskDraft
                 High = Number(p.High, $"risk.parameters[{k}].high"),
                 Distribution = p.Distribution,
             })],
+            Correlations = Correlations.Count == 0 ? null
+                : [.. Correlations.Select((c, k) => new Correlation(c.First, c.Second, Number(c.Coefficient, $"risk.correlations[{k}].coefficient") ?? 0))],
             Trials = Whole(Trials, "risk.trials"),
             Seed = Whole(Seed, "risk.seed"),
         };
