@@ -82,6 +82,12 @@ public sealed partial class PortfolioInChromium(BrowserFixture browser) : IClass
         await Assertions.Expect(page.Locator("#frontier .main-svg").First).ToBeVisibleAsync();
         await BrowserFixture.ScreenshotAsync(page, "portfolio");
 
+        // The portfolio's risk: the solar array's estimates vary (its own seed); the chance each proposal is funded.
+        await page.Locator("#portfolio-trials").FillAsync("300");
+        await page.GetByTestId("simulate-portfolio").ClickAsync();
+        await Assertions.Expect(page.GetByTestId("top-changes")).ToContainTextAsync("In 300 trials");
+        await Assertions.Expect(page.GetByTestId("funded-probability").Locator("tbody tr")).ToHaveCountAsync(7);
+
         await page.Locator("#capital-limit").FillAsync("600000");
         await page.GetByTestId("recalculate").ClickAsync();
         await Assertions.Expect(page.GetByTestId("portfolio-verdict")).ToContainTextAsync("within 600,000");

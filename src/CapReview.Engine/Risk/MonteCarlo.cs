@@ -49,6 +49,14 @@ public static class MonteCarlo
     public static MonteCarloResult Run(ProposalCase proposal, IReadOnlyList<UncertainParameter> parameters, int trials, int seed,
         IReadOnlyList<Correlation>? correlations = null, IProgress<double>? progress = null, CancellationToken cancellationToken = default)
     {
+        var (pw, aw, ror) = Simulate(proposal, parameters, trials, seed, correlations, progress, cancellationToken);
+        return Summarise(pw, aw, ror, seed);
+    }
+
+    /// <summary>Each trial's PW, AW and unique rate of return (NaN where none or where the inputs make no valid model), in trial order.</summary>
+    public static (double[] PresentWorth, double[] AnnualWorth, double[] RateOfReturn) Simulate(ProposalCase proposal, IReadOnlyList<UncertainParameter> parameters,
+        int trials, int seed, IReadOnlyList<Correlation>? correlations = null, IProgress<double>? progress = null, CancellationToken cancellationToken = default)
+    {
         ArgumentNullException.ThrowIfNull(proposal);
         ArgumentNullException.ThrowIfNull(parameters);
         if (trials is < 1 or > MaxTrials)
@@ -90,7 +98,7 @@ public static class MonteCarlo
             }
             progress?.Report((double)Interlocked.Increment(ref done) / blocks);
         });
-        return Summarise(pw, aw, ror, seed);
+        return (pw, aw, ror);
     }
 
     /// <summary>One trial through the entered specification: for parameters the fast path cannot set (the life, inflation, tax).</summary>
