@@ -16,6 +16,18 @@ public sealed record RiskSpec
 
     /// <summary>Rank correlations between parameters, by their names.</summary>
     public IReadOnlyList<Correlation>? Correlations { get; init; }
+
+    /// <summary>The board's named scenarios: values for some parameters, by parameter name; the others at most likely.</summary>
+    public IReadOnlyList<ScenarioSpec?>? Scenarios { get; init; }
+}
+
+/// <summary>A named scenario as entered.</summary>
+public sealed record ScenarioSpec
+{
+    public string? Name { get; init; }
+
+    /// <summary>Values by parameter name.</summary>
+    public IReadOnlyDictionary<string, double>? Values { get; init; }
 }
 
 /// <summary>One uncertain parameter as entered.</summary>
@@ -38,7 +50,11 @@ public sealed record ParameterSpec
 }
 
 /// <summary>The parameters and simulation settings as read.</summary>
-public sealed record RiskSettings(IReadOnlyList<UncertainParameter> Parameters, int Trials, int Seed, IReadOnlyList<Correlation> Correlations);
+public sealed record RiskSettings(IReadOnlyList<UncertainParameter> Parameters, int Trials, int Seed, IReadOnlyList<Correlation> Correlations)
+{
+    /// <summary>The named scenarios with their values keyed by input, as <see cref="Risk.Scenarios"/> takes them.</summary>
+    public IReadOnlyList<Scenario> Named { get; init; } = [];
+}
 
 /// <summary>Reads a <see cref="RiskSpec"/>, naming each bad field under "risk".</summary>
 public static class RiskSpecReader
@@ -101,7 +117,29 @@ public static class RiskSpecReader
                 errors.Add(new("risk.correlations", ex.Message.Split(" (Parameter", 2)[0]));
             }
         }
-        return errors.Count > 0 ? Outcome.Failure<RiskSettings>(errors) : Outcome.Success(new RiskSettings(parameters, trials, spec.Seed ?? 1, correlations));
+        var named = new List<Scenario>();
+        for (int k = 0; k < (spec.Scenarios?.Count ?? 0); k++)
+        {
+            ScenarioSpec? scenario = spec.Scenarios![k];
+            if (scenario is null || string.IsNullOrWhiteSpace(scenario.Name))
+            {
+                errors.Add(new($"risk.scenarios[{k}].name", "Name the scenario."));
+                continue;
+            }
+            var values = new Dictionary<string, double>(StringComparer.Ordinal);
+            foreach (var (name, value) in scenario.Values ?? new Dictionary<string, double>())
+            {
+                UncertainParameter? parameter = parameters.FirstOrDefault(p => p.Name == name);
+                if (parameter is null || !double.IsFinite(value))
+                {
+                    errors.Add(new($"risk.scenarios[{k}].values", $"{name} is not a parameter with a number to set."));
+                    continue;
+                }
+                values[parameter.Target] = value;
+            }
+            named.Add(new Scenario(scenario.Name.Trim(), values));
+        }
+        return errors.Count > 0 ? Outcome.Failure<RiskSettings>(errors) : Outcome.Success(new RiskSettings(parameters, trials, spec.Seed ?? 1, correlations) { Named = named });
     }
 
     private static bool Varies(ProposalCase proposal, string target)

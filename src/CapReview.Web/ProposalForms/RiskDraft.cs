@@ -19,6 +19,17 @@ public sealed class ParameterDraft
     public string High { get; set; } = "";
 
     public DistributionKind Distribution { get; set; } = DistributionKind.Triangular;
+
+    /// <summary>For a discrete parameter: "value : probability" pairs separated by semicolons.</summary>
+    public string Outcomes { get; set; } = "";
+}
+
+/// <summary>A named scenario as typed: its name and a value for each parameter it sets (blank: most likely).</summary>
+public sealed class ScenarioDraft
+{
+    public string Name { get; set; } = "";
+
+    public Dictionary<string, string> Values { get; } = new(StringComparer.Ordinal);
 }
 
 /// <summary>A rank correlation between two parameters as typed.</summary>
@@ -37,6 +48,8 @@ public sealed class RiskDraft
     public List<ParameterDraft> Parameters { get; } = [];
 
     public List<CorrelationDraft> Correlations { get; } = [];
+
+    public List<ScenarioDraft> Scenarios { get; } = [];
 
     public string Trials { get; set; } = "10000";
 
@@ -58,7 +71,21 @@ public sealed class RiskDraft
             MostLikely = Number(p.MostLikely),
             High = Number(p.High),
             Distribution = p.Distribution ?? DistributionKind.Triangular,
+            Outcomes = string.Join("; ", (p.Outcomes ?? []).Select(o => $"{Number(o.Value)} : {Number(o.Probability)}")),
         }));
+        foreach (ScenarioSpec? scenario in spec.Scenarios ?? [])
+        {
+            if (scenario is null)
+            {
+                continue;
+            }
+            var s = new ScenarioDraft { Name = scenario.Name ?? "" };
+            foreach (var (name, value) in scenario.Values ?? new Dictionary<string, double>())
+            {
+                s.Values[name] = Number(value);
+            }
+            draft.Scenarios.Add(s);
+        }
         draft.Correlations.AddRange((spec.Correlations ?? []).Select(c => new CorrelationDraft { First = c.First, Second = c.Second, Coefficient = c.Coefficient.ToString("0.############", culture) }));
         draft.Trials = (spec.Trials ?? MonteCarlo.DefaultTrials).ToString(culture);
         draft.Seed = (spec.Seed ?? 1).ToString(culture);
@@ -91,6 +118,21 @@ public sealed class RiskDraft
             errors.Add(new(field, $"“{text.Trim()}” is not a whole number."));
             return null;
         }
+        List<DiscreteOutcome> Outcomes(string text, string field)
+        {
+            var outcomes = new List<DiscreteOutcome>();
+            foreach (string pair in text.Split(';', StringSplitOptions.RemoveEmptyEntries | StringSplitOptions.TrimEntries))
+            {
+                string[] parts = pair.Split(':', StringSplitOptions.TrimEntries);
+                if (parts.Length != 2)
+                {
+                    errors.Add(new(field, $"“{pair}” is not value : probability."));
+                    continue;
+                }
+                outcomes.Add(new DiscreteOutcome(Number(parts[0], field) ?? 0, Number(parts[1], field) ?? 0));
+            }
+            return outcomes;
+        }
         var spec = new RiskSpec
         {
             Parameters = [.. Parameters.Select((p, k) => new ParameterSpec
@@ -101,6 +143,13 @@ public sealed class RiskDraft
                 MostLikely = Number(p.MostLikely, $"risk.parameters[{k}].mostLikely"),
                 High = Number(p.High, $"risk.parameters[{k}].high"),
                 Distribution = p.Distribution,
+                Outcomes = p.Distribution == DistributionKind.Discrete ? Outcomes(p.Outcomes, $"risk.parameters[{k}].outcomes") : null,
+            })],
+            Scenarios = Scenarios.Count == 0 ? null : [.. Scenarios.Select((s, k) => new ScenarioSpec
+            {
+                Name = s.Name,
+                Values = s.Values.Where(v => v.Value.Trim().Length > 0)
+                    .ToDictionary(v => v.Key, v => Number(v.Value, $"risk.scenarios[{k}].values") ?? 0, StringComparer.Ordinal),
             })],
             Correlations = Correlations.Count == 0 ? null
                 : [.. Correlations.Select((c, k) => new Correlation(c.First, c.Second, Number(c.Coefficient, $"risk.correlations[{k}].coefficient") ?? 0))],

@@ -27,6 +27,30 @@ public class RiskDraftTests
     }
 
     [Fact]
+    public void A_discrete_parameter_and_a_named_scenario_survive_a_round_trip_and_are_read_by_target()
+    {
+        var draft = new RiskDraft();
+        draft.Parameters.Add(new ParameterDraft { Name = "Resale", Target = "elements[0].amount", Low = "0", MostLikely = "100", High = "300", Distribution = DistributionKind.Discrete, Outcomes = "0 : 0.2; 100 : 0.5; 300 : 0.3" });
+        var scenario = new ScenarioDraft { Name = "Market collapses" };
+        scenario.Values["Resale"] = "0";
+        draft.Scenarios.Add(scenario);
+        var (spec, errors) = draft.Read(Irish);
+        Assert.Empty(errors);
+        var again = RiskDraft.From(spec, Irish);
+        Assert.Equal("0 : 0.2; 100 : 0.5; 300 : 0.3", again.Parameters[0].Outcomes);
+        Assert.Equal("0", again.Scenarios[0].Values["Resale"]);
+        var model = new Engine.Specifications.ModelSpec
+        {
+            Horizon = 1,
+            Rate = new Engine.Specifications.RateSpec { Value = 0.1 },
+            Elements = [new Engine.Specifications.ElementSpec { Type = Engine.Specifications.ElementKind.Single, Label = "Resale", Category = Engine.CashFlows.CashFlowCategory.Salvage, Period = 1, Amount = 100 }],
+        };
+        var settings = Engine.Specifications.RiskSpecReader.Read(spec!, new ProposalCase(model)).Value!;
+        Assert.Equal(0, settings.Named.Single().Values["elements[0].amount"]);
+        Assert.Equal(3, settings.Parameters[0].Outcomes!.Count);
+    }
+
+    [Fact]
     public void A_value_that_is_not_a_number_is_named()
     {
         var draft = new RiskDraft();
