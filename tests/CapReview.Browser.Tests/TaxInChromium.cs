@@ -48,6 +48,9 @@ public sealed class TaxInChromium(BrowserFixture browser) : IClassFixture<Browse
         await Assertions.Expect(page.GetByTestId("probability-of-loss")).ToContainTextAsync("%");
         await Assertions.Expect(page.GetByTestId("risk-message")).ToContainTextAsync("20,000 trials run with seed 2027");
         await Assertions.Expect(page.Locator("#pw-histogram .main-svg").First).ToBeVisibleAsync();
+        await Assertions.Expect(page.Locator("#pw-cumulative .main-svg").First).ToBeVisibleAsync();
+        await Assertions.Expect(page.GetByTestId("spider-table").Locator("tbody tr")).ToHaveCountAsync(1);
+        await Assertions.Expect(page.Locator("#spider .main-svg").First).ToBeVisibleAsync();
         await BrowserFixture.ScreenshotAsync(page, "proposal-risk");
         await BrowserFixture.ScreenshotAsync(page.Locator("section[aria-labelledby=risk-heading]"), "risk-panel");
         await page.GetByRole(AriaRole.Button, new() { Name = "Save draft" }).ClickAsync();
