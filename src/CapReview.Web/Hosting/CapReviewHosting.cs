@@ -93,6 +93,7 @@ public static partial class CapReviewHosting
         app.MapStaticAssets();
         app.MapOpenApi("/openapi/{documentName}.json").RequireAuthorization(IdentityRegistration.Api);
         app.MapEvaluationEndpoints();
+        app.MapCycleEndpoints();
         app.MapAccountEndpoints();
         app.MapExportEndpoints();
         app.MapPacketEndpoints();

@@ -45,6 +45,8 @@ public sealed partial class AuthorizationMatrix(ApiFactory factory) : IClassFixt
         ["/admin/cycles"] = ("GET", "/admin/cycles", ["signin", "denied", "denied", "denied", "200"]),
         ["/admin/audit"] = ("GET", "/admin/audit", ["signin", "denied", "denied", "denied", "200"]),
         ["/api/v1/evaluations"] = ("POST", "/api/v1/evaluations", ["401", "200", "200", "200", "200"]),
+        ["/api/v1/cycles"] = ("GET", "/api/v1/cycles", ["401", "200", "200", "200", "200"]),
+        ["/api/v1/cycles/{id:int}/ranking"] = ("GET", "/api/v1/cycles/1/ranking", ["401", "403", "200", "200", "200"]),
         ["/openapi/{documentName}.json"] = ("GET", "/openapi/v1.json", ["401", "200", "200", "200", "200"]),
         ["/signout"] = ("POST", "/signout", ["400", "400", "400", "400", "400"]),
     };

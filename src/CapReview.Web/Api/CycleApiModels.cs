@@ -1,0 +1,39 @@
+using CapReview.Reviews.Cycles;
+using CapReview.Reviews.Portfolio;
+
+namespace CapReview.Web.Api;
+
+/// <summary>A budget cycle as the API shows it.</summary>
+public sealed record CycleResponse(int Id, string Name, string Status, decimal CapitalLimit, IReadOnlyList<decimal> LaterYearLimits, int? StudyPeriodYears,
+    int MarrPolicyVersionId, DateOnly OpensOn, DateOnly ClosesOn, int RequiredSignOffs)
+{
+    public static CycleResponse From(BudgetCycle c)
+    {
+        ArgumentNullException.ThrowIfNull(c);
+        return new(c.Id, c.Name, c.Status.ToString(), c.CapitalLimit, [.. c.LaterYearLimits], c.StudyPeriodYears, c.MarrPolicyVersionId, c.OpensOn, c.ClosesOn, c.RequiredSignOffs);
+    }
+}
+
+/// <summary>One ranked proposal: every measure on the cycle's basis; rates annual effective as fractions.</summary>
+public sealed record RankingRowResponse(int Rank, int ProposalId, string Reference, string Title, int Version, string AssumptionsHash, double Marr,
+    double AnnualWorth, double PresentWorth, IReadOnlyList<double> RatesOfReturn, string RateOfReturnKind, double? ExternalRate, double? DiscountedPaybackYears,
+    double? BenefitCostRatio, double FirstCost, double LifeYears, string Basis, string? ExclusiveGroup, IReadOnlyList<string> Needs);
+
+/// <summary>A cycle's ranking and the proposals left out of it.</summary>
+public sealed record RankingResponse(int CycleId, string Basis, bool AfterTax, double MarrShift, IReadOnlyList<RankingRowResponse> Rows, IReadOnlyList<UnrankedResponse> Unranked)
+{
+    public static RankingResponse From(CycleRanking r)
+    {
+        ArgumentNullException.ThrowIfNull(r);
+        return new(r.Cycle.Id, r.Basis, r.AfterTax, r.MarrShift,
+            [.. r.Rows.Select(x => new RankingRowResponse(x.Ranked.Rank, x.Proposal.Id, x.Proposal.Reference, x.Proposal.Title, x.Version.Number, x.Version.AssumptionsHash,
+                x.Marr.EffectiveAnnual(), x.Ranked.AnnualWorth, x.Ranked.PresentWorth, x.Ranked.Evaluation.RatesOfReturn,
+                x.Ranked.Evaluation.RatesOfReturn.Count switch { 0 => "none", 1 => "unique", _ => "several" }, x.Ranked.Evaluation.ExternalRate,
+                x.Ranked.Evaluation.DiscountedPaybackYears, x.Ranked.Evaluation.BenefitCost.Conventional, x.Ranked.FirstCost, x.Ranked.LifeYears, x.Ranked.Basis,
+                x.Group?.Name, x.Prerequisites))],
+            [.. r.Unranked.Select(u => new UnrankedResponse(u.Proposal.Id, u.Proposal.Reference, u.Reason))]);
+    }
+}
+
+/// <summary>A proposal of the cycle that could not be ranked, and why.</summary>
+public sealed record UnrankedResponse(int ProposalId, string Reference, string Reason);
