@@ -99,6 +99,12 @@ public sealed partial class PortfolioInChromium(BrowserFixture browser) : IClass
         string text = await csv.TextAsync();
         Assert.StartsWith("# Portfolio Capital plan 2027", text.TrimStart('\uFEFF'), StringComparison.Ordinal);
         Assert.Contains("Rank,Reference,Title,", text, StringComparison.Ordinal);
+        // Removing a rule asks first; keeping it changes nothing.
+        await page.GetByTestId("contingencies").GetByRole(AriaRole.Button, new() { Name = "Remove" }).ClickAsync();
+        await Assertions.Expect(page.GetByTestId("contingencies")).ToContainTextAsync("Remove this contingency?");
+        await page.GetByTestId("contingencies").GetByRole(AriaRole.Button, new() { Name = "Keep it" }).ClickAsync();
+        await Assertions.Expect(page.GetByTestId("contingencies").Locator("li")).ToHaveCountAsync(1);
+
         var xlsx = await page.APIRequest.GetAsync(browser.App.BaseAddress + $"cycles/{cycle}/portfolio/xlsx");
         Assert.Equal("PK", System.Text.Encoding.ASCII.GetString((await xlsx.BodyAsync())[..2]));
     }
