@@ -1,5 +1,3 @@
-using System.Globalization;
-using System.Text.RegularExpressions;
 using CapReview.Engine.CashFlows;
 using CapReview.Engine.Factors;
 using CapReview.Engine.Measures;
@@ -14,7 +12,7 @@ namespace CapReview.Engine.Risk;
 /// reading of the entered specification. Available when every parameter is an element field or the MARR and the
 /// proposal is not taxed; otherwise the simulation re-evaluates each trial in full.
 /// </summary>
-internal sealed partial class CompiledTrials
+internal sealed class CompiledTrials
 {
     private readonly CashFlowElement[] _elements;
     private readonly (int Element, string Field)[] _targets;
@@ -46,12 +44,11 @@ internal sealed partial class CompiledTrials
                 targets[k] = (-1, "rate");
                 continue;
             }
-            Match m = ElementField().Match(parameters[k].Target);
-            if (!m.Success)
+            if (ProposalCase.ElementTarget(parameters[k].Target) is not { } element)
             {
                 return null;
             }
-            targets[k] = (int.Parse(m.Groups[1].Value, CultureInfo.InvariantCulture), m.Groups[2].Value);
+            targets[k] = element;
         }
         var read = SpecificationReader.Read(Sensitivity.MostLikely(proposal, parameters).Model);
         if (!read.IsValid || targets.Any(t => t.Item1 >= read.Value!.Model.Elements.Count))
@@ -141,6 +138,4 @@ internal sealed partial class CompiledTrials
         };
     }
 
-    [GeneratedRegex(@"^elements\[(\d+)\]\.(amount|step|growth|escalation|first|last|period)$")]
-    private static partial Regex ElementField();
 }

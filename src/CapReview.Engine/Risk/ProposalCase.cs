@@ -39,19 +39,17 @@ public sealed partial record ProposalCase(ModelSpec Model, TaxSpec? Tax = null)
         {
             return this with { Tax = (Tax ?? throw new ArgumentException("The proposal has no tax settings.", nameof(target))) with { IncomeTaxRate = value } };
         }
-        Match m = ElementField().Match(target);
-        if (!m.Success)
+        if (ElementTarget(target) is not var (index, field))
         {
             throw new ArgumentException($"“{target}” is not an input that can be varied.", nameof(target));
         }
-        int index = int.Parse(m.Groups[1].Value, CultureInfo.InvariantCulture);
         var elements = (Model.Elements ?? []).ToArray();
         if (index >= elements.Length || elements[index] is not { } element)
         {
             throw new ArgumentException($"There is no element {index + 1} to vary.", nameof(target));
         }
         int whole = (int)Math.Round(value, MidpointRounding.AwayFromZero);
-        elements[index] = m.Groups[2].Value switch
+        elements[index] = field switch
         {
             "amount" => element with { Amount = value },
             "step" => element with { Step = value },
@@ -64,16 +62,22 @@ public sealed partial record ProposalCase(ModelSpec Model, TaxSpec? Tax = null)
         return this with { Model = Model with { Elements = elements } };
     }
 
+    /// <summary>Whether <paramref name="target"/> names an input of this proposal that <see cref="With"/> can set.</summary>
+    public bool CanVary(string target) => target switch
+    {
+        "rate" or "horizon" or "inflation.rate" => true,
+        "tax.incomeTaxRate" => Tax is not null,
+        _ => ElementTarget(target) is var (index, _) && index < (Model.Elements?.Count ?? 0) && Model.Elements![index] is not null,
+    };
+
     /// <summary>The value now at <paramref name="target"/>, or null when it is not set.</summary>
     public double? ValueAt(string target)
     {
         ArgumentNullException.ThrowIfNull(target);
-        Match m = ElementField().Match(target);
-        if (m.Success)
+        if (ElementTarget(target) is var (index, field))
         {
-            int index = int.Parse(m.Groups[1].Value, CultureInfo.InvariantCulture);
             ElementSpec? e = index < (Model.Elements?.Count ?? 0) ? Model.Elements![index] : null;
-            return m.Groups[2].Value switch
+            return field switch
             {
                 "amount" => e?.Amount,
                 "step" => e?.Step,
@@ -110,6 +114,13 @@ public sealed partial record ProposalCase(ModelSpec Model, TaxSpec? Tax = null)
     {
         var outcome = Evaluate();
         return outcome.Value is not { } e ? double.NaN : measure == RiskMeasure.AnnualWorth ? e.AnnualWorth : e.PresentWorth;
+    }
+
+    /// <summary>The element and field of a target such as <c>elements[2].amount</c>, or null for any other target.</summary>
+    internal static (int Index, string Field)? ElementTarget(string target)
+    {
+        Match m = ElementField().Match(target);
+        return m.Success ? (int.Parse(m.Groups[1].Value, CultureInfo.InvariantCulture), m.Groups[2].Value) : null;
     }
 
     [GeneratedRegex(@"^elements\[(\d+)\]\.(amount|step|growth|escalation|first|last|period)$")]

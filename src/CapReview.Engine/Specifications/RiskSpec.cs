@@ -74,7 +74,7 @@ public static class RiskSpecReader
                 errors.Add(new($"{path}.name", "Name the parameter."));
                 continue;
             }
-            if (p.Target is null || !Varies(proposal, p.Target))
+            if (p.Target is null || !proposal.CanVary(p.Target))
             {
                 errors.Add(new($"{path}.target", "Choose an input of the model to vary."));
                 continue;
@@ -92,7 +92,7 @@ public static class RiskSpecReader
             var parameter = new UncertainParameter(p.Name.Trim(), p.Target, low, likely, high, p.Distribution ?? DistributionKind.Triangular, p.Outcomes);
             try
             {
-                _ = MonteCarlo.Run(proposal, [parameter], 1, 1);
+                _ = new Sampler(parameter);
                 parameters.Add(parameter);
             }
             catch (ArgumentException ex)
@@ -110,7 +110,7 @@ public static class RiskSpecReader
         {
             try
             {
-                _ = MonteCarlo.Run(proposal, parameters, 1, 1, correlations);
+                _ = RankCorrelation.Of(parameters, correlations);
             }
             catch (ArgumentException ex)
             {
@@ -140,18 +140,5 @@ public static class RiskSpecReader
             named.Add(new Scenario(scenario.Name.Trim(), values));
         }
         return errors.Count > 0 ? Outcome.Failure<RiskSettings>(errors) : Outcome.Success(new RiskSettings(parameters, trials, spec.Seed ?? 1, correlations) { Named = named });
-    }
-
-    private static bool Varies(ProposalCase proposal, string target)
-    {
-        try
-        {
-            _ = proposal.With(target, proposal.ValueAt(target) ?? 0);
-            return true;
-        }
-        catch (ArgumentException)
-        {
-            return false;
-        }
     }
 }
