@@ -21,7 +21,7 @@ internal static class CycleSections
             ranking.Rows.Select(r => new TableRow(
             [
                 r.Ranked.Rank.ToString(f.Culture), $"{r.Proposal.Reference} {r.Proposal.Title}", f.Money(r.Ranked.AnnualWorth), f.Money(r.Ranked.PresentWorth),
-                r.Ranked.Evaluation.RatesOfReturn.Count switch { 0 => "none", 1 => f.Percent(r.Ranked.Evaluation.RatesOfReturn[0]), _ => "several" },
+                f.RateOfReturn(r.Ranked.Evaluation),
                 f.Money(r.Ranked.FirstCost), f.Number(r.Ranked.LifeYears, 1),
             ])));
 

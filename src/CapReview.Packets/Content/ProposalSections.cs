@@ -21,7 +21,6 @@ internal static class ProposalSections
     public static void Write(PageFlow flow, ProposalPacketData data, PacketFormat f, PdfOutline parent)
     {
         VersionView version = data.Version;
-        var marr = version.Assumptions.MarrOverride is null ? data.Marr.RateFor(data.Proposal.RiskClass) : (Engine.Rates.AnnualRate?)null;
         Evaluation? evaluation = VersionComparison.Evaluate(version.Assumptions, data.Marr, data.Proposal.RiskClass);
 
         flow.Bookmark("Decision and sign-off", parent);
@@ -48,7 +47,7 @@ internal static class ProposalSections
             flow.Text("The model of this version is not complete, so no measure can be stated.", PacketStyle.Body);
             return;
         }
-        Summary(flow, data, evaluation, marr is null ? version.Assumptions.MarrOverride!.Reason : null, f);
+        Summary(flow, data, evaluation, version.Assumptions.MarrOverride?.Reason, f);
 
         flow.Bookmark("Charts", parent);
         flow.Heading("Cash flows and the present worth profile", PacketStyle.Heading1, keepWith: 240);

@@ -24,6 +24,13 @@ public sealed class PacketFormat(CultureInfo culture, string currencyCode)
 
     public string Percent(double? fraction, string absent) => fraction is double f ? Percent(f) : absent;
 
+    /// <summary>The rate of return when it is unique, else "none" or "several".</summary>
+    public string RateOfReturn(CapReview.Engine.Evaluation.Evaluation evaluation)
+    {
+        ArgumentNullException.ThrowIfNull(evaluation);
+        return evaluation.RatesOfReturn.Count switch { 0 => "none", 1 => Percent(evaluation.RatesOfReturn[0]), _ => "several" };
+    }
+
     public string Number(double value, int decimals) =>
         Math.Round(value, decimals, MidpointRounding.AwayFromZero).ToString("N" + decimals.ToString(CultureInfo.InvariantCulture), Culture).Replace("-", "−", StringComparison.Ordinal);
 

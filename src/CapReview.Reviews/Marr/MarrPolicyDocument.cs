@@ -1,7 +1,7 @@
 using System.Globalization;
 using System.Security.Cryptography;
 using System.Text;
-using System.Text.Json;
+using System.Text.Json.Nodes;
 
 namespace CapReview.Reviews.Marr;
 
@@ -14,41 +14,31 @@ public static class MarrPolicyDocument
     public static string Serialize(MarrPolicyVersion policy)
     {
         ArgumentNullException.ThrowIfNull(policy);
+        var document = new JsonObject
+        {
+            ["number"] = policy.Number,
+            ["rate"] = Invariant(policy.Rate),
+            ["basis"] = policy.Basis.ToString(),
+            ["compoundingsPerYear"] = policy.CompoundingsPerYear,
+            ["effectiveFrom"] = policy.EffectiveFrom.ToString("yyyy-MM-dd", CultureInfo.InvariantCulture),
+            ["lowRiskPremium"] = Invariant(policy.LowRiskPremium),
+            ["standardRiskPremium"] = Invariant(policy.StandardRiskPremium),
+            ["highRiskPremium"] = Invariant(policy.HighRiskPremium),
+        };
         // Inflation and the after-tax MARR are written only when set, so versions made before they existed keep their hash.
         if (policy.InflationRate != 0 || policy.RealMarr || policy.AfterTaxRate is not null)
         {
-            return JsonSerializer.Serialize(new
-            {
-                number = policy.Number,
-                rate = policy.Rate.ToString("R", CultureInfo.InvariantCulture),
-                basis = policy.Basis.ToString(),
-                compoundingsPerYear = policy.CompoundingsPerYear,
-                effectiveFrom = policy.EffectiveFrom.ToString("yyyy-MM-dd", CultureInfo.InvariantCulture),
-                lowRiskPremium = policy.LowRiskPremium.ToString("R", CultureInfo.InvariantCulture),
-                standardRiskPremium = policy.StandardRiskPremium.ToString("R", CultureInfo.InvariantCulture),
-                highRiskPremium = policy.HighRiskPremium.ToString("R", CultureInfo.InvariantCulture),
-                inflationRate = policy.InflationRate.ToString("R", CultureInfo.InvariantCulture),
-                realMarr = policy.RealMarr,
-                afterTaxRate = policy.AfterTaxRate?.ToString("R", CultureInfo.InvariantCulture),
-                setBy = policy.SetBy,
-                reason = policy.Reason,
-            });
+            document["inflationRate"] = Invariant(policy.InflationRate);
+            document["realMarr"] = policy.RealMarr;
+            document["afterTaxRate"] = policy.AfterTaxRate is double afterTax ? Invariant(afterTax) : null;
         }
-        return JsonSerializer.Serialize(new
-        {
-            number = policy.Number,
-            rate = policy.Rate.ToString("R", CultureInfo.InvariantCulture),
-            basis = policy.Basis.ToString(),
-            compoundingsPerYear = policy.CompoundingsPerYear,
-            effectiveFrom = policy.EffectiveFrom.ToString("yyyy-MM-dd", CultureInfo.InvariantCulture),
-            lowRiskPremium = policy.LowRiskPremium.ToString("R", CultureInfo.InvariantCulture),
-            standardRiskPremium = policy.StandardRiskPremium.ToString("R", CultureInfo.InvariantCulture),
-            highRiskPremium = policy.HighRiskPremium.ToString("R", CultureInfo.InvariantCulture),
-            setBy = policy.SetBy,
-            reason = policy.Reason,
-        });
+        document["setBy"] = policy.SetBy;
+        document["reason"] = policy.Reason;
+        return document.ToJsonString();
     }
 
     public static string Hash(MarrPolicyVersion policy) =>
         Convert.ToHexStringLower(SHA256.HashData(Encoding.UTF8.GetBytes(Serialize(policy))));
+
+    private static string Invariant(double value) => value.ToString("R", CultureInfo.InvariantCulture);
 }

@@ -11,14 +11,13 @@ namespace CapReview.Reviews.Proposals;
 /// </summary>
 public static class ProposalTerms
 {
-    /// <summary>The MARR as quoted: the override's rate, or the policy's for the risk class.</summary>
-    public static AnnualRate QuotedMarr(ProposalAssumptions assumptions, MarrPolicyVersion policy, RiskClass risk)
+    /// <summary>The MARR as quoted: the override's rate, or the policy's for the risk class (none before the first policy).</summary>
+    public static AnnualRate QuotedMarr(ProposalAssumptions assumptions, MarrPolicyVersion? policy, RiskClass risk)
     {
         ArgumentNullException.ThrowIfNull(assumptions);
-        ArgumentNullException.ThrowIfNull(policy);
         return assumptions.MarrOverride is { Rate: var own }
             ? AnnualRate.Create(own.Value ?? double.NaN, own.Basis ?? RateBasis.Effective, own.CompoundingsPerYear ?? 1)
-            : policy.RateFor(risk);
+            : policy?.RateFor(risk) ?? throw new Common.RuleViolationException("There is no MARR policy yet.");
     }
 
     public static ModelSpec Model(ProposalAssumptions assumptions, MarrPolicyVersion policy, RiskClass risk)

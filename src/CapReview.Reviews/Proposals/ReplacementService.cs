@@ -42,15 +42,10 @@ public sealed class ReplacementService(ProposalService proposals, CycleService c
             policy = (await policies.ListAsync(cancellationToken).ConfigureAwait(false)).MaxBy(p => p.Number);
             source = policy is null ? "" : $"the newest MARR policy (version {policy.Number}) for risk class {proposal.RiskClass}";
         }
-        AnnualRate marr;
+        AnnualRate marr = ProposalTerms.QuotedMarr(version.Assumptions, policy, proposal.RiskClass);
         if (version.Assumptions.MarrOverride is { } own)
         {
-            marr = AnnualRate.Create(own.Rate.Value ?? double.NaN, own.Rate.Basis ?? RateBasis.Effective, own.Rate.CompoundingsPerYear ?? 1);
             source = $"the proposal's own MARR ({own.Reason})";
-        }
-        else
-        {
-            marr = policy?.RateFor(proposal.RiskClass) ?? throw new RuleViolationException("There is no MARR policy yet.");
         }
 
         var read = SpecificationReader.Read(version.Assumptions.Model with { Rate = new RateSpec { Value = marr.EffectiveAnnual(), Basis = RateBasis.Effective } });

@@ -1,4 +1,3 @@
-using System.Globalization;
 using CapReview.Reviews.Common;
 using CapReview.Reviews.Cycles;
 using CapReview.Reviews.Portfolio;
@@ -30,20 +29,15 @@ public static class CycleEndpoints
     private static async Task<IResult> ListAsync(CycleService cycles, CancellationToken cancellationToken) =>
         Results.Ok((await cycles.ListAsync(cancellationToken).ConfigureAwait(false)).Select(CycleResponse.From).ToList());
 
-    private static async Task<IResult> RankingAsync(int id, string? basis, string? shift, HttpContext context, CycleRankingService rankings, CancellationToken cancellationToken)
+    private static async Task<IResult> RankingAsync(int id, HttpContext context, CycleRankingService rankings, CancellationToken cancellationToken)
     {
-        if (basis is not (null or "beforeTax" or "afterTax"))
+        if (!WhatIfQuery.TryRead(context.Request.Query, out PortfolioQuery query, out IResult? problem))
         {
-            return Results.ValidationProblem(new Dictionary<string, string[]> { ["basis"] = ["Choose beforeTax or afterTax."] });
-        }
-        double points = 0;
-        if (shift is not null && (!double.TryParse(shift, NumberStyles.Float, CultureInfo.InvariantCulture, out points) || !double.IsFinite(points) || Math.Abs(points) > 10))
-        {
-            return Results.ValidationProblem(new Dictionary<string, string[]> { ["shift"] = ["Give the MARR shift in percentage points, between −10 and 10."] });
+            return problem!;
         }
         try
         {
-            var ranking = await rankings.RankAsync(ActorFactory.From(context.User)!, id, points / 100, cancellationToken, basis == "afterTax").ConfigureAwait(false);
+            var ranking = await rankings.RankAsync(ActorFactory.From(context.User)!, id, query.MarrShift, cancellationToken, query.AfterTax).ConfigureAwait(false);
             return Results.Ok(RankingResponse.From(ranking));
         }
         catch (AccessDeniedException ex)

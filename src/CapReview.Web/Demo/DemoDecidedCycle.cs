@@ -1,6 +1,7 @@
 using CapReview.Engine.CashFlows;
 using CapReview.Engine.Rates;
 using CapReview.Engine.Specifications;
+using static CapReview.Web.Demo.DemoElements;
 using CapReview.Packets;
 using CapReview.Reviews.Access;
 using CapReview.Reviews.Cycles;
@@ -44,12 +45,4 @@ public sealed class DemoDecidedCycle(MarrPolicyService marr, CycleService cycles
         await decisions.SignOffAsync(aino, cycle.Id, cancellationToken).ConfigureAwait(false);
         await packets.PublishCycleAsync(tove, cycle.Id, cancellationToken).ConfigureAwait(false);
     }
-
-    private static ModelSpec Model(int years, params ElementSpec[] elements) => new() { PeriodsPerYear = 1, Horizon = years, Elements = elements };
-
-    private static ElementSpec Single(string label, CashFlowCategory category, int period, double amount) =>
-        new() { Type = ElementKind.Single, Label = label, Category = category, Period = period, Amount = amount };
-
-    private static ElementSpec Uniform(string label, CashFlowCategory category, int first, int last, double amount) =>
-        new() { Type = ElementKind.Uniform, Label = label, Category = category, First = first, Last = last, Amount = amount };
 }

@@ -2,6 +2,7 @@ using System.Globalization;
 using CapReview.Engine.CashFlows;
 using CapReview.Engine.Rates;
 using CapReview.Engine.Specifications;
+using static CapReview.Web.Demo.DemoElements;
 using CapReview.Reviews.Access;
 using CapReview.Reviews.Cycles;
 using CapReview.Reviews.Marr;
@@ -185,12 +186,4 @@ public sealed partial class DemoScenario(IdentityStore identity, MarrPolicyServi
             new(560_000, 38_000), new(480_000, 41_000), new(415_000, 44_000), new(360_000, 48_000), new(312_000, 53_000), new(270_000, 59_000),
             new(232_000, 68_000), new(198_000, 80_000), new(168_000, 96_000), new(140_000, 116_000), new(115_000, 140_000), new(92_000, 168_000),
         ]);
-
-    private static ModelSpec Model(int years, params ElementSpec[] elements) => new() { PeriodsPerYear = 1, Horizon = years, Elements = elements };
-
-    private static ElementSpec Uniform(string label, CashFlowCategory category, int first, int last, double amount) =>
-        new() { Type = ElementKind.Uniform, Label = label, Category = category, First = first, Last = last, Amount = amount };
-
-    private static ElementSpec Single(string label, CashFlowCategory category, int period, double amount) =>
-        new() { Type = ElementKind.Single, Label = label, Category = category, Period = period, Amount = amount };
 }

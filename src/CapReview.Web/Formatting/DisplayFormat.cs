@@ -36,6 +36,15 @@ public sealed class DisplayFormat
     public string Number(double value, int decimals) =>
         Math.Round(value, decimals, MidpointRounding.AwayFromZero).ToString("N" + decimals.ToString(CultureInfo.InvariantCulture), _culture);
 
+    /// <summary>The rate of return when it is unique, else "none" or "several"; <paramref name="absent"/> without an evaluation.</summary>
+    public string RateOfReturn(CapReview.Engine.Evaluation.Evaluation? evaluation, string absent = "—") => evaluation?.RatesOfReturn.Count switch
+    {
+        null => absent,
+        0 => "none",
+        1 => Percent(evaluation.RatesOfReturn[0]),
+        _ => "several",
+    };
+
     /// <summary>An amount as typed into an input: no thousands separators, so it parses back unchanged.</summary>
     public string Editable(double value) => value.ToString("0.############", _culture);
 }
