@@ -38,6 +38,31 @@ public sealed class ElementDraft
     /// <summary>For constant money, the element's own escalation in percent a year; blank for general inflation.</summary>
     public string EscalationPercent { get; set; } = "";
 
+    /// <summary>The row of a stored or imported element, its numbers written in <paramref name="culture"/> as a person would type them.</summary>
+    public static ElementDraft FromSpec(ElementSpec e, System.Globalization.CultureInfo culture)
+    {
+        ArgumentNullException.ThrowIfNull(e);
+        string Whole(int? value) => value?.ToString(culture) ?? "";
+        return new ElementDraft
+        {
+            Type = e.Type ?? ElementKind.Single,
+            Label = e.Label ?? "",
+            Category = e.Category ?? CashFlowCategory.Operating,
+            Period = Whole(e.Period ?? 0),
+            First = Whole(e.First ?? 1),
+            Last = Whole(e.Last ?? 1),
+            Every = Whole(e.Every ?? 1),
+            Amount = Number(e.Amount ?? 0, culture),
+            Step = Number(e.Step ?? 0, culture),
+            GrowthPercent = Number((e.Growth ?? 0) * 100, culture),
+            Money = e.Money ?? Engine.Inflation.MoneyBasis.Actual,
+            EscalationPercent = e.Escalation is double escalation ? Number(escalation * 100, culture) : "",
+        };
+    }
+
+    /// <summary>A number as typed: no thousands separators, up to twelve decimals, blank when absent.</summary>
+    public static string Number(double? value, System.Globalization.CultureInfo culture) => value is double v ? v.ToString("0.############", culture) : "";
+
     public bool Uses(string field) => field switch
     {
         "period" => Type == ElementKind.Single,

@@ -35,7 +35,7 @@ public sealed class ModelDraft
     public static ModelDraft FromSpec(ModelSpec spec, CultureInfo culture, double marrPercent)
     {
         ArgumentNullException.ThrowIfNull(spec);
-        string Number(double? value) => value is double v ? v.ToString("0.############", culture) : "";
+        string Number(double? value) => ElementDraft.Number(value, culture);
         string Whole(int? value) => value?.ToString(culture) ?? "";
         var draft = new ModelDraft
         {
@@ -52,21 +52,7 @@ public sealed class ModelDraft
             {
                 continue;
             }
-            draft.Elements.Add(new ElementDraft
-            {
-                Type = e.Type ?? ElementKind.Single,
-                Label = e.Label ?? "",
-                Category = e.Category ?? CashFlowCategory.Operating,
-                Period = Whole(e.Period ?? 0),
-                First = Whole(e.First ?? 1),
-                Last = Whole(e.Last ?? 1),
-                Every = Whole(e.Every ?? 1),
-                Amount = Number(e.Amount ?? 0),
-                Step = Number(e.Step ?? 0),
-                GrowthPercent = Number((e.Growth ?? 0) * 100),
-                Money = e.Money ?? Engine.Inflation.MoneyBasis.Actual,
-                EscalationPercent = e.Escalation is double escalation ? Number(escalation * 100) : "",
-            });
+            draft.Elements.Add(ElementDraft.FromSpec(e, culture));
         }
         return draft;
     }

@@ -169,4 +169,15 @@ public sealed class ModelImportTests
         Assert.True(preview.CanApply);
         Assert.Equal(5, Assert.Single(preview.Elements).Row);
     }
+
+    [Theory]
+    [InlineData("elements.csv", 6)]
+    [InlineData("periods.csv", 4)]
+    public void The_templates_offered_for_download_import_cleanly(string template, int elements)
+    {
+        string path = Path.Combine(AppContext.BaseDirectory, "../../../../../src/CapReview.Web/wwwroot/templates", template);
+        var preview = ModelImport.Read(template, File.ReadAllBytes(path), English);
+        Assert.True(preview.CanApply, string.Join("; ", preview.Problems));
+        Assert.Equal(elements, preview.Elements.Count);
+    }
 }
