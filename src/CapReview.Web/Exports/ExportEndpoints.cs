@@ -1,4 +1,7 @@
 using CapReview.Reviews.Common;
+using CapReview.Reviews.Cycles;
+using CapReview.Reviews.Marr;
+using CapReview.Reviews.Proposals;
 using CapReview.Reviews.Portfolio;
 using CapReview.Web.Api;
 using CapReview.Web.Formatting;
@@ -8,8 +11,8 @@ using Microsoft.AspNetCore.Authorization;
 namespace CapReview.Web.Exports;
 
 /// <summary>
-/// Downloads of a cycle's ranking and funded portfolio as CSV or XLSX, for the board, finance and administrators,
-/// with the same what-if settings as the pages: <c>shift</c> (MARR points), <c>limit</c> (capital now),
+/// Downloads of a proposal version (one workbook, or one CSV per table), and of a cycle's ranking and funded
+/// portfolio as CSV or XLSX, for the board, finance and administrators, with the same what-if settings as the pages: <c>shift</c> (MARR points), <c>limit</c> (capital now),
 /// <c>objective</c> (presentWorth or annualWorth) and <c>basis</c> (beforeTax or afterTax).
 /// </summary>
 public static class ExportEndpoints
@@ -21,6 +24,10 @@ public static class ExportEndpoints
         var group = routes.MapGroup("/cycles/{id:int}").RequireAuthorization(new AuthorizeAttribute { Roles = Roles }).ExcludeFromDescription();
         group.MapGet("/ranking/{format:regex(^(csv|xlsx)$)}", RankingAsync);
         group.MapGet("/portfolio/{format:regex(^(csv|xlsx)$)}", PortfolioAsync);
+        // A version is for whoever may read the proposal (its lead, the board, finance once decided, administrators), in a browser or with an API token.
+        var version = routes.MapGroup("/proposals/{id:int}/versions/{number:int}").RequireAuthorization(IdentityRegistration.Api).ExcludeFromDescription();
+        version.MapGet("/xlsx", VersionWorkbookAsync);
+        version.MapGet("/csv/{table}", VersionTableAsync);
         return routes;
     }
 
@@ -49,6 +56,41 @@ public static class ExportEndpoints
             return File(PortfolioExport.Table(result, display.CurrencyCode), format);
         }).ConfigureAwait(false);
     }
+
+    private static Task<IResult> VersionWorkbookAsync(int id, int number, HttpContext context, ProposalService proposals, CycleService cycles, MarrPolicyService policies, DisplayFormat display, CancellationToken cancellationToken) =>
+        RunAsync(async () =>
+        {
+            var (proposal, tables) = await VersionTablesAsync(id, number, context, proposals, cycles, policies, display, cancellationToken).ConfigureAwait(false);
+            return Results.File(XlsxExport.Write([.. tables.Select(t => t.Table)]), "application/vnd.openxmlformats-officedocument.spreadsheetml.sheet",
+                $"{proposal.Reference.ToLowerInvariant()}-v{number}.xlsx");
+        });
+
+    private static Task<IResult> VersionTableAsync(int id, int number, string table, HttpContext context, ProposalService proposals, CycleService cycles, MarrPolicyService policies, DisplayFormat display, CancellationToken cancellationToken) =>
+        RunAsync(async () =>
+        {
+            var (proposal, tables) = await VersionTablesAsync(id, number, context, proposals, cycles, policies, display, cancellationToken).ConfigureAwait(false);
+            var found = tables.FirstOrDefault(t => t.Name == table).Table;
+            return found is null
+                ? Results.Problem($"Version {number} has no table “{table}”; it has {string.Join(", ", tables.Select(t => t.Name))}.", statusCode: StatusCodes.Status404NotFound)
+                : Results.File(CsvExport.Write(found), "text/csv; charset=utf-8", $"{proposal.Reference.ToLowerInvariant()}-v{number}-{table}.csv");
+        });
+
+    /// <summary>The version's tables under the policy of the cycle it is in, or the current policy for a draft outside any cycle.</summary>
+    private static async Task<(ProposalView Proposal, IReadOnlyList<(string Name, ExportTable Table)> Tables)> VersionTablesAsync(
+        int id, int number, HttpContext context, ProposalService proposals, CycleService cycles, MarrPolicyService policies, DisplayFormat display, CancellationToken cancellationToken)
+    {
+        ProposalView proposal = await proposals.GetAsync(ActorFactory.From(context.User)!, id, cancellationToken).ConfigureAwait(false);
+        VersionView version = proposal.Versions.FirstOrDefault(v => v.Number == number)
+            ?? throw new NotFoundException($"{proposal.Reference} has no version {number}.");
+        MarrPolicyVersion policy = proposal.BudgetCycleId is int cycleId
+            ? (await cycles.GetAsync(cycleId, cancellationToken).ConfigureAwait(false)).Marr
+            : Latest(await policies.ListAsync(cancellationToken).ConfigureAwait(false));
+        return (proposal, VersionExport.Tables(proposal, version, policy, display.CurrencyCode));
+    }
+
+    private static MarrPolicyVersion Latest(IReadOnlyList<MarrPolicyVersion> versions) =>
+        versions.Count > 0 ? versions[^1] : throw new RuleViolationException("There is no MARR policy yet.");
+
 
     private static async Task<IResult> RunAsync(Func<Task<IResult>> export)
     {

@@ -6,7 +6,7 @@ using DocumentFormat.OpenXml.Spreadsheet;
 namespace CapReview.Web.Exports;
 
 /// <summary>
-/// Writes an <see cref="ExportTable"/> as one worksheet with the Open XML SDK: the title in bold, the notes, a blank
+/// Writes <see cref="ExportTable"/>s as worksheets with the Open XML SDK, each: the title in bold, the notes, a blank
 /// row, the bold header, then the rows with numbers stored as numbers under a money, percent or number format.
 /// </summary>
 public static class XlsxExport
@@ -14,47 +14,60 @@ public static class XlsxExport
     // Cell format indexes in the stylesheet below.
     private const uint Plain = 0, Bold = 1, Money = 2, Percent = 3, Number = 4, Whole = 5;
 
-    public static byte[] Write(ExportTable table)
+    public static byte[] Write(ExportTable table) => Write([table]);
+
+    /// <summary>A workbook with one worksheet per table, in order, each named by its title.</summary>
+    public static byte[] Write(IReadOnlyList<ExportTable> tables)
     {
-        ArgumentNullException.ThrowIfNull(table);
+        ArgumentNullException.ThrowIfNull(tables);
         using var stream = new MemoryStream();
         using (var document = SpreadsheetDocument.Create(stream, SpreadsheetDocumentType.Workbook))
         {
             WorkbookPart workbook = document.AddWorkbookPart();
             workbook.Workbook = new Workbook();
             workbook.AddNewPart<WorkbookStylesPart>().Stylesheet = Styles();
-            WorksheetPart sheet = workbook.AddNewPart<WorksheetPart>();
-            var data = new SheetData();
-            uint rowIndex = 0;
-            Row NewRow() => data.AppendChild(new Row { RowIndex = ++rowIndex });
-
-            NewRow().Append(Text(table.Title, Bold));
-            foreach (string note in table.Notes)
+            var sheets = workbook.Workbook.AppendChild(new Sheets());
+            uint sheetId = 0;
+            foreach (ExportTable table in tables)
             {
-                NewRow().Append(Text(note, Plain));
+                WorksheetPart sheet = workbook.AddNewPart<WorksheetPart>();
+                sheet.Worksheet = Worksheet(table);
+                sheets.AppendChild(new Sheet
+                {
+                    Id = workbook.GetIdOfPart(sheet),
+                    SheetId = ++sheetId,
+                    Name = table.Title.Length > 31 ? table.Title[..31] : table.Title,
+                });
             }
-            NewRow();
-            NewRow().Append(table.Columns.Select(c => Text(c.Header, Bold)));
-            foreach (var values in table.Rows)
-            {
-                NewRow().Append(table.Columns.Select((column, k) => Cell(values[k], column.Kind)));
-            }
-            var columns = new Columns(table.Columns.Select((c, k) => new Column
-            {
-                Min = (uint)k + 1,
-                Max = (uint)k + 1,
-                Width = c.Kind == ExportKind.Text ? 28 : 16,
-                CustomWidth = true,
-            }));
-            sheet.Worksheet = new Worksheet(columns, data);
-            workbook.Workbook.AppendChild(new Sheets(new Sheet
-            {
-                Id = workbook.GetIdOfPart(sheet),
-                SheetId = 1,
-                Name = table.Title.Length > 31 ? table.Title[..31] : table.Title,
-            }));
         }
         return stream.ToArray();
+    }
+
+    private static Worksheet Worksheet(ExportTable table)
+    {
+        var data = new SheetData();
+        uint rowIndex = 0;
+        Row NewRow() => data.AppendChild(new Row { RowIndex = ++rowIndex });
+
+        NewRow().Append(Text(table.Title, Bold));
+        foreach (string note in table.Notes)
+        {
+            NewRow().Append(Text(note, Plain));
+        }
+        NewRow();
+        NewRow().Append(table.Columns.Select(c => Text(c.Header, Bold)));
+        foreach (var values in table.Rows)
+        {
+            NewRow().Append(table.Columns.Select((column, k) => Cell(values[k], column.Kind)));
+        }
+        var columns = new Columns(table.Columns.Select((c, k) => new Column
+        {
+            Min = (uint)k + 1,
+            Max = (uint)k + 1,
+            Width = c.Kind == ExportKind.Text ? 28 : 16,
+            CustomWidth = true,
+        }));
+        return new Worksheet(columns, data);
     }
 
     private static Cell Cell(object? value, ExportKind kind) => value switch

@@ -20,7 +20,8 @@ public sealed partial class AuthorizationMatrix(ApiFactory factory) : IClassFixt
     private const string Evaluation = """{"horizon":2,"rate":{"value":0.1},"elements":[{"type":"single","label":"a","category":"capital","period":0,"amount":-100},{"type":"uniform","label":"b","category":"revenue","first":1,"last":2,"amount":60}]}""";
 
     // Expected outcome per visitor: 200 shown, 401 refused (API), "signin" redirected to the sign-in form, "denied"
-    // redirected to the not-for-your-role page, 400 refused for want of an antiforgery token.
+    // redirected to the not-for-your-role page, 400 refused for want of an antiforgery token, 404 not theirs to see
+    // (finance sees a proposal once it is decided).
     private static readonly Dictionary<string, (string Method, string Path, string[] Expected)> Rules = new()
     {
         ["/"] = ("GET", "/", ["200", "200", "200", "200", "200"]),
@@ -39,6 +40,8 @@ public sealed partial class AuthorizationMatrix(ApiFactory factory) : IClassFixt
         ["/cycles/{id:int}/ranking/{format:regex(^(csv|xlsx)$)}"] = ("GET", "/cycles/1/ranking/csv", ["signin", "denied", "200", "200", "200"]),
         ["/cycles/{id:int}/portfolio/{format:regex(^(csv|xlsx)$)}"] = ("GET", "/cycles/1/portfolio/xlsx", ["signin", "denied", "200", "200", "200"]),
         ["/packets/{id:int}"] = ("GET", "/packets/1", ["signin", "404", "404", "404", "404"]),
+        ["/proposals/{id:int}/versions/{number:int}/xlsx"] = ("GET", "/proposals/1/versions/1/xlsx", ["signin", "404", "200", "404", "200"]),
+        ["/proposals/{id:int}/versions/{number:int}/csv/{table}"] = ("GET", "/proposals/1/versions/1/csv/elements", ["signin", "404", "200", "404", "200"]),
         ["/proposals/{Id:int}/replacement"] = ("GET", "/proposals/1/replacement", ["signin", "200", "200", "200", "200"]),
         ["/admin/users"] = ("GET", "/admin/users", ["signin", "denied", "denied", "denied", "200"]),
         ["/admin/marr"] = ("GET", "/admin/marr", ["signin", "denied", "denied", "denied", "200"]),
@@ -108,7 +111,10 @@ public sealed partial class AuthorizationMatrix(ApiFactory factory) : IClassFixt
 
     private static readonly SemaphoreSlim CycleLock = new(1, 1);
 
-    /// <summary>Cycle 1 exists, so that the cycle's pages and downloads answer for the roles allowed to see them.</summary>
+    /// <summary>
+    /// Cycle 1 exists with proposal 1 submitted to it by a lead other than the matrix's, so that the cycle's and the
+    /// proposal's pages and downloads answer for the roles allowed to see them, and the matrix's lead finds no such proposal.
+    /// </summary>
     private async Task EnsureCycleAsync()
     {
         await CycleLock.WaitAsync();
@@ -122,7 +128,23 @@ public sealed partial class AuthorizationMatrix(ApiFactory factory) : IClassFixt
             var admin = CapReview.Reviews.Access.Actor.Of("matrix-setup", "Matrix setup", CapReview.Reviews.Access.Role.Administrator);
             var marr = await factory.Services.GetRequiredService<CapReview.Reviews.Marr.MarrPolicyService>().AddVersionAsync(admin,
                 new CapReview.Reviews.Marr.NewMarrPolicy(0.08, CapReview.Engine.Rates.RateBasis.Effective, 1, new DateOnly(2027, 1, 1), "Matrix policy"), CancellationToken.None);
-            await cycles.CreateAsync(admin, new CapReview.Reviews.Cycles.NewBudgetCycle("Matrix cycle", 1_000_000m, marr.Id, new DateOnly(2027, 1, 1), new DateOnly(2027, 3, 31)), CancellationToken.None);
+            var cycle = await cycles.CreateAsync(admin, new CapReview.Reviews.Cycles.NewBudgetCycle("Matrix cycle", 1_000_000m, marr.Id, new DateOnly(2027, 1, 1), new DateOnly(2027, 3, 31)), CancellationToken.None);
+            var owner = CapReview.Reviews.Access.Actor.Of("matrix-owner", "Matrix owner", CapReview.Reviews.Access.Role.ProjectLead);
+            var proposals = factory.Services.GetRequiredService<CapReview.Reviews.Proposals.ProposalService>();
+            var draft = await proposals.CreateDraftAsync(owner, new CapReview.Reviews.Proposals.ProposalDraft("Matrix proposal", "", CapReview.Reviews.Proposals.ProposalCategory.Other,
+                CapReview.Reviews.Proposals.RiskClass.Standard, new CapReview.Reviews.Proposals.ProposalAssumptions
+                {
+                    Model = new CapReview.Engine.Specifications.ModelSpec
+                    {
+                        Horizon = 2,
+                        Elements =
+                        [
+                            new CapReview.Engine.Specifications.ElementSpec { Type = CapReview.Engine.Specifications.ElementKind.Single, Label = "a", Category = CapReview.Engine.CashFlows.CashFlowCategory.Capital, Period = 0, Amount = -100 },
+                            new CapReview.Engine.Specifications.ElementSpec { Type = CapReview.Engine.Specifications.ElementKind.Uniform, Label = "b", Category = CapReview.Engine.CashFlows.CashFlowCategory.Revenue, First = 1, Last = 2, Amount = 60 },
+                        ],
+                    },
+                }, null), CancellationToken.None);
+            await proposals.SubmitAsync(owner, draft.Id, cycle.Id, draft.Revision, CancellationToken.None);
         }
         finally
         {
