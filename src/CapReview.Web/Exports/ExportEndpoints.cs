@@ -82,15 +82,9 @@ public static class ExportEndpoints
         ProposalView proposal = await proposals.GetAsync(ActorFactory.From(context.User)!, id, cancellationToken).ConfigureAwait(false);
         VersionView version = proposal.Versions.FirstOrDefault(v => v.Number == number)
             ?? throw new NotFoundException($"{proposal.Reference} has no version {number}.");
-        MarrPolicyVersion policy = proposal.BudgetCycleId is int cycleId
-            ? (await cycles.GetAsync(cycleId, cancellationToken).ConfigureAwait(false)).Marr
-            : Latest(await policies.ListAsync(cancellationToken).ConfigureAwait(false));
+        MarrPolicyVersion policy = await BoardPolicy.ForAsync(proposal, cycles, policies, cancellationToken).ConfigureAwait(false);
         return (proposal, VersionExport.Tables(proposal, version, policy, display.CurrencyCode));
     }
-
-    private static MarrPolicyVersion Latest(IReadOnlyList<MarrPolicyVersion> versions) =>
-        versions.Count > 0 ? versions[^1] : throw new RuleViolationException("There is no MARR policy yet.");
-
 
     private static async Task<IResult> RunAsync(Func<Task<IResult>> export)
     {

@@ -94,6 +94,7 @@ public static partial class CapReviewHosting
         app.MapOpenApi("/openapi/{documentName}.json").RequireAuthorization(IdentityRegistration.Api);
         app.MapEvaluationEndpoints();
         app.MapCycleEndpoints();
+        app.MapProposalEndpoints();
         app.MapAccountEndpoints();
         app.MapExportEndpoints();
         app.MapPacketEndpoints();

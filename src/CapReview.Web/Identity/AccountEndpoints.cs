@@ -17,7 +17,7 @@ public static class AccountEndpoints
             }
             await signIn.SignOutAsync().ConfigureAwait(false);
             return Results.LocalRedirect("~/signin");
-        }).DisableAntiforgery();
+        }).DisableAntiforgery().ExcludeFromDescription();
         return routes;
     }
 }

@@ -24,7 +24,8 @@ public sealed partial class DocumentedExamples(ApiFactory factory) : IClassFixtu
     public async Task Example_gets_the_documented_response(string name)
     {
         string document = ApiDocument();
-        int start = document.IndexOf($"<!-- example: {name} -->", StringComparison.Ordinal);
+        Match marker = ExampleMarker().Matches(document).Single(m => m.Groups[1].Value == name);
+        int start = marker.Index;
         Match request = HttpBlock().Match(document, start);
         Match response = JsonBlock().Match(document, request.Index + request.Length);
         Assert.True(request.Success && response.Success, $"example {name} needs an http block and a json block");
@@ -41,7 +42,8 @@ public sealed partial class DocumentedExamples(ApiFactory factory) : IClassFixtu
         using HttpResponseMessage actual = await client.SendAsync(message);
 
         JsonElement expected = JsonDocument.Parse(response.Groups[1].Value).RootElement;
-        int status = expected.TryGetProperty("status", out JsonElement s) ? s.GetInt32() : 200;
+        int status = marker.Groups[2].Success ? int.Parse(marker.Groups[2].Value, CultureInfo.InvariantCulture)
+            : expected.TryGetProperty("status", out JsonElement s) ? s.GetInt32() : 200;
         Assert.Equal(status, (int)actual.StatusCode);
         JsonElement got = JsonDocument.Parse(await actual.Content.ReadAsStringAsync()).RootElement;
         AssertMatches(expected, got, "$");
@@ -86,7 +88,7 @@ public sealed partial class DocumentedExamples(ApiFactory factory) : IClassFixtu
         return File.ReadAllText(Path.Combine(folder.FullName, "docs", "api.md")).Replace("\r\n", "\n", StringComparison.Ordinal);
     }
 
-    [GeneratedRegex(@"<!-- example: ([\w-]+) -->")]
+    [GeneratedRegex(@"<!-- example: ([\w-]+)(?: \(answers (\d{3})\))? -->")]
     private static partial Regex ExampleMarker();
 
     [GeneratedRegex(@"```http\n(.*?)\n```", RegexOptions.Singleline)]

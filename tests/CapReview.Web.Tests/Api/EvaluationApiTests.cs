@@ -187,6 +187,10 @@ public sealed class EvaluationApiTests(ApiFactory factory) : IClassFixture<ApiFa
         Assert.Equal("CreateEvaluation", post.GetProperty("operationId").GetString());
         Assert.True(post.GetProperty("responses").TryGetProperty("400", out _));
         Assert.True(document.GetProperty("components").GetProperty("schemas").TryGetProperty("EvaluationResponse", out _));
+        // Every operation of the API, by the id docs/api.md and clients refer to.
+        var operations = document.GetProperty("paths").EnumerateObject().SelectMany(p => p.Value.EnumerateObject()).Where(o => o.Name is "get" or "post" or "put" or "delete")
+            .Select(o => o.Value.TryGetProperty("operationId", out var op) ? op.GetString() : o.Name + "?").Order(StringComparer.Ordinal).ToList();
+        Assert.Equal(["CreateEvaluation", "CreateProposal", "DownloadPacket", "GetCycleRanking", "GetProposal", "GetProposalVersion", "ListCyclePackets", "ListCycles", "ListProposals"], operations);
     }
 
     [Theory]
