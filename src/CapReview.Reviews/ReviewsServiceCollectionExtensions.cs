@@ -36,6 +36,8 @@ public static class ReviewsServiceCollectionExtensions
         services.AddSingleton<ReplacementService>();
         services.AddSingleton<Records.PacketArchive>();
         services.AddSingleton<Records.DecisionRecords>();
+        services.AddSingleton<Interchange.CycleExporter>();
+        services.AddSingleton<Interchange.CycleImporter>();
         return services;
     }
 }

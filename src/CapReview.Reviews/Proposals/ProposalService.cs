@@ -34,7 +34,7 @@ public sealed class ProposalService(ReviewWork work, AuditTrail audit, TimeProvi
             proposal.Versions.Add(NewVersion(1, actor, "First draft", json));
             db.Proposals.Add(proposal);
             await db.SaveChangesAsync(cancellationToken).ConfigureAwait(false);
-            proposal.Reference = $"P-{proposal.Id:D4}";
+            proposal.Reference = await ProposalReferences.NextFreeAsync(db, proposal, cancellationToken).ConfigureAwait(false);
             await db.SaveChangesAsync(cancellationToken).ConfigureAwait(false);
             await audit.AppendAsync(db, actor, "proposal.created", "proposal", proposal.Reference, null, Summary(proposal), cancellationToken).ConfigureAwait(false);
             return ProposalView.Of(proposal);

@@ -95,6 +95,7 @@ public static partial class CapReviewHosting
         app.MapEvaluationEndpoints();
         app.MapCycleEndpoints();
         app.MapProposalEndpoints();
+        app.MapCycleDocumentEndpoints();
         app.MapAccountEndpoints();
         app.MapExportEndpoints();
         app.MapPacketEndpoints();

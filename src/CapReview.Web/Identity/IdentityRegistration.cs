@@ -64,6 +64,7 @@ public static class IdentityRegistration
                 .RequireAuthenticatedUser());
         services.AddCascadingAuthenticationState();
         services.AddSingleton<ApiTokenService>();
+        services.AddSingleton<CapReview.Reviews.Interchange.IPeopleDirectory, PeopleDirectory>();
         services.AddScoped<IdentityStore>();
         services.AddSingleton<UserAdministration>();
         return services;

@@ -1,0 +1,210 @@
+using System.Globalization;
+using System.Security.Cryptography;
+using CapReview.Engine.Rates;
+using CapReview.Engine.Validation;
+using CapReview.Reviews.Access;
+using CapReview.Reviews.Audit;
+using CapReview.Reviews.Common;
+using CapReview.Reviews.Cycles;
+using CapReview.Reviews.Decisions;
+using CapReview.Reviews.Marr;
+using CapReview.Reviews.Portfolio;
+using CapReview.Reviews.Proposals;
+using CapReview.Reviews.Storage;
+using Microsoft.EntityFrameworkCore;
+
+namespace CapReview.Reviews.Interchange;
+
+/// <summary>What an import did: the new cycle, the references that had to change, and the proposals given to the importer.</summary>
+public sealed record CycleImportResult(int CycleId, string CycleName, int Proposals, IReadOnlyDictionary<string, string> RenamedReferences, IReadOnlyList<string> HeldByImporter);
+
+/// <summary>
+/// Reads a <see cref="CycleDocument"/> into this installation as a new cycle, for administrators. Everything is
+/// checked before anything is written (each problem named by its path in the document, every version's assumptions
+/// against their SHA-256), and the whole import is one transaction: it lands completely or not at all.
+/// </summary>
+public sealed class CycleImporter(ReviewWork work, AuditTrail audit, IPeopleDirectory people, TimeProvider clock)
+{
+    /// <summary>The prefix of the user id recorded for someone who has no account in this installation.</summary>
+    public const string ImportedPrefix = "imported:";
+
+    public async Task<CycleImportResult> ImportAsync(Actor actor, byte[] bytes, CancellationToken cancellationToken)
+    {
+        ArgumentNullException.ThrowIfNull(actor);
+        ArgumentNullException.ThrowIfNull(bytes);
+        if (!actor.Has(Role.Administrator))
+        {
+            throw new AccessDeniedException("Only an administrator can import a cycle.");
+        }
+        var (document, error) = CycleDocumentJson.Read(bytes);
+        if (document is null)
+        {
+            throw new ImportRefusedException([new InputError("document", error ?? "The document is empty.")]);
+        }
+        var errors = CycleDocumentCheck.Check(document);
+        if (errors.Count > 0)
+        {
+            throw new ImportRefusedException(errors);
+        }
+        var ids = new Dictionary<string, string>(StringComparer.OrdinalIgnoreCase);
+        async Task<string?> UserOf(PersonEntry? person)
+        {
+            if (person?.Email is not { Length: > 0 } email)
+            {
+                return null;
+            }
+            if (!ids.TryGetValue(email, out string? id))
+            {
+                id = (await people.FindByEmailAsync(email, cancellationToken).ConfigureAwait(false))?.UserId ?? "";
+                ids[email] = id;
+            }
+            return id.Length == 0 ? null : id;
+        }
+        string Recorded(PersonEntry? person) => ImportedPrefix + (person?.Email is { Length: > 0 } email ? email : person?.Name ?? "unknown");
+        async Task<string> RecordedUser(PersonEntry? person) => await UserOf(person).ConfigureAwait(false) ?? Recorded(person);
+
+        // Resolve people before the transaction: the directory is another database.
+        var owners = new Dictionary<string, string?>(StringComparer.Ordinal);
+        foreach (ProposalEntry p in document.Proposals!)
+        {
+            owners[p.Reference!] = await UserOf(p.Lead).ConfigureAwait(false);
+        }
+        var authors = new Dictionary<(string, int), string>();
+        foreach (ProposalEntry p in document.Proposals!)
+        {
+            foreach (VersionEntry v in p.Versions!)
+            {
+                authors[(p.Reference!, v.Number!.Value)] = await UserOf(v.Author).ConfigureAwait(false) ?? owners[p.Reference!] ?? actor.UserId;
+            }
+        }
+        var deciders = new List<string>();
+        foreach (DecisionEntry d in document.Decisions ?? [])
+        {
+            deciders.Add(await RecordedUser(d.DecidedBy).ConfigureAwait(false));
+        }
+        var signers = new List<string>();
+        foreach (SignOffEntry s in document.SignOffs ?? [])
+        {
+            signers.Add(await RecordedUser(s.By).ConfigureAwait(false));
+        }
+        string policySetter = await RecordedUser(document.MarrPolicy!.SetBy).ConfigureAwait(false);
+        string documentHash = Convert.ToHexStringLower(SHA256.HashData(bytes));
+
+        return await work.RunAsync(async db =>
+        {
+            CycleEntry c = document.Cycle!;
+            if (await db.BudgetCycles.AnyAsync(x => x.Name == c.Name, cancellationToken).ConfigureAwait(false))
+            {
+                throw new ImportRefusedException([new InputError("cycle.name", $"A cycle named “{c.Name}” already exists here; rename it in the document or here first.")]);
+            }
+            MarrPolicyVersion policy = await PolicyAsync(db, document.MarrPolicy!, policySetter, cancellationToken).ConfigureAwait(false);
+            var cycle = new BudgetCycle
+            {
+                Name = c.Name!.Trim(), CapitalLimit = c.CapitalLimit!.Value, MarrPolicyVersionId = policy.Id, OpensOn = c.OpensOn!.Value, ClosesOn = c.ClosesOn!.Value,
+                Status = c.Status ?? CycleStatus.Open, RequiredSignOffs = c.RequiredSignOffs ?? 2, StudyPeriodYears = c.StudyPeriodYears,
+                LaterYearLimits = [.. c.LaterYearLimits ?? []], Objective = c.Objective ?? SelectionObjective.PresentWorth,
+            };
+            db.BudgetCycles.Add(cycle);
+            await db.SaveChangesAsync(cancellationToken).ConfigureAwait(false);
+
+            var taken = (await db.Proposals.Select(p => p.Reference).ToListAsync(cancellationToken).ConfigureAwait(false)).ToHashSet(StringComparer.Ordinal);
+            var byReference = new Dictionary<string, Proposal>(StringComparer.Ordinal);
+            var renamed = new Dictionary<string, string>(StringComparer.Ordinal);
+            var held = new List<string>();
+            foreach (ProposalEntry entry in document.Proposals!)
+            {
+                string reference = entry.Reference!;
+                var proposal = new Proposal
+                {
+                    OwnerId = owners[reference] ?? actor.UserId, Title = entry.Title!.Trim(), Description = entry.Description ?? "",
+                    Category = entry.Category ?? ProposalCategory.Other, RiskClass = entry.RiskClass ?? RiskClass.Standard,
+                    Status = entry.Status ?? ProposalStatus.Submitted, BudgetCycleId = cycle.Id,
+                    // A placeholder until the id is known, unique among the rows being added.
+                    Reference = taken.Contains(reference) ? $"import-{Guid.NewGuid():N}"[..20] : reference,
+                };
+                if (owners[reference] is null)
+                {
+                    held.Add(reference);
+                }
+                foreach (VersionEntry v in entry.Versions!)
+                {
+                    string json = AssumptionsDocument.Serialize(v.Assumptions!);
+                    proposal.Versions.Add(new ProposalVersion
+                    {
+                        Number = v.Number!.Value, AuthorId = authors[(reference, v.Number!.Value)], CreatedAt = v.CreatedAt ?? clock.GetUtcNow(),
+                        Reason = v.Reason ?? "", IsFrozen = v.Frozen ?? false, FrozenAt = v.FrozenAt, AssumptionsJson = json, AssumptionsHash = AssumptionsDocument.Hash(json),
+                    });
+                }
+                db.Proposals.Add(proposal);
+                byReference[reference] = proposal;
+            }
+            await db.SaveChangesAsync(cancellationToken).ConfigureAwait(false);
+            foreach (var (reference, proposal) in byReference.Where(x => x.Value.Reference != x.Key))
+            {
+                proposal.Reference = await ProposalReferences.NextFreeAsync(db, proposal, cancellationToken).ConfigureAwait(false);
+                renamed[reference] = proposal.Reference;
+                // Saved one at a time, so that the next free number sees this one taken.
+                await db.SaveChangesAsync(cancellationToken).ConfigureAwait(false);
+            }
+
+            foreach (GroupEntry g in document.ExclusiveGroups ?? [])
+            {
+                db.ExclusiveGroups.Add(new ExclusiveGroup { BudgetCycleId = cycle.Id, Name = g.Name!.Trim(), Mandatory = g.Mandatory ?? false, ProposalIds = [.. g.Members!.Select(m => byReference[m].Id)] });
+            }
+            foreach (ContingencyEntry x in document.Contingencies ?? [])
+            {
+                db.Contingencies.Add(new Contingency { BudgetCycleId = cycle.Id, DependentProposalId = byReference[x.Dependent!].Id, PrerequisiteProposalId = byReference[x.Prerequisite!].Id });
+            }
+            int k = 0;
+            foreach (DecisionEntry d in document.Decisions ?? [])
+            {
+                db.Decisions.Add(new Decision
+                {
+                    ProposalId = byReference[d.Proposal!].Id, BudgetCycleId = cycle.Id, VersionNumber = d.Version!.Value, AssumptionsHash = d.AssumptionsSha256!,
+                    MarrPolicyVersionId = policy.Id, Outcome = d.Outcome!.Value, Conditions = d.Conditions ?? "", DecidedBy = deciders[k++], DecidedAt = d.DecidedAt ?? clock.GetUtcNow(),
+                });
+            }
+            k = 0;
+            foreach (SignOffEntry s in document.SignOffs ?? [])
+            {
+                db.SignOffs.Add(new SignOff { BudgetCycleId = cycle.Id, UserId = signers[k++], DisplayName = s.By!.Name!, SignedAt = s.SignedAt ?? clock.GetUtcNow(), DecisionsSigned = s.DecisionsSigned ?? "[]" });
+            }
+            await db.SaveChangesAsync(cancellationToken).ConfigureAwait(false);
+            await audit.AppendAsync(db, actor, "cycle.imported", "budget_cycle", cycle.Id.ToString(CultureInfo.InvariantCulture), null,
+                new { cycle.Name, DocumentSha256 = documentHash, Proposals = byReference.Count, Renamed = renamed, HeldByImporter = held, MarrPolicy = policy.Number }, cancellationToken).ConfigureAwait(false);
+            return new CycleImportResult(cycle.Id, cycle.Name, byReference.Count, renamed, held);
+        }, cancellationToken).ConfigureAwait(false);
+    }
+
+    /// <summary>The policy version here with the same rates, or a new version carrying the document's.</summary>
+    private async Task<MarrPolicyVersion> PolicyAsync(CapReviewDbContext db, PolicyEntry p, string setBy, CancellationToken cancellationToken)
+    {
+        var candidate = new MarrPolicyVersion
+        {
+            Rate = p.Rate!.Value, Basis = p.Basis ?? RateBasis.Effective, CompoundingsPerYear = p.Basis == RateBasis.Nominal ? p.CompoundingsPerYear ?? 1 : 1,
+            EffectiveFrom = p.EffectiveFrom!.Value, LowRiskPremium = p.LowRiskPremium ?? 0, StandardRiskPremium = p.StandardRiskPremium ?? 0,
+            HighRiskPremium = p.HighRiskPremium ?? 0, InflationRate = p.InflationRate ?? 0, RealMarr = p.RealMarr ?? false, AfterTaxRate = p.AfterTaxRate,
+            SetBy = setBy, Reason = p.Reason ?? "", CreatedAt = clock.GetUtcNow(),
+        };
+        var existing = await db.MarrPolicyVersions.ToListAsync(cancellationToken).ConfigureAwait(false);
+        MarrPolicyVersion? same = existing.FirstOrDefault(m => m.Rate == candidate.Rate && m.Basis == candidate.Basis && m.CompoundingsPerYear == candidate.CompoundingsPerYear
+            && m.EffectiveFrom == candidate.EffectiveFrom && m.LowRiskPremium == candidate.LowRiskPremium && m.StandardRiskPremium == candidate.StandardRiskPremium
+            && m.HighRiskPremium == candidate.HighRiskPremium && m.InflationRate == candidate.InflationRate && m.RealMarr == candidate.RealMarr
+            && m.AfterTaxRate == candidate.AfterTaxRate && m.Reason == candidate.Reason);
+        if (same is not null)
+        {
+            return same;
+        }
+        candidate.Number = existing.Select(m => m.Number).DefaultIfEmpty(0).Max() + 1;
+        db.MarrPolicyVersions.Add(candidate);
+        await db.SaveChangesAsync(cancellationToken).ConfigureAwait(false);
+        return candidate;
+    }
+}
+
+/// <summary>An import refused before anything was written, with every problem by its path in the document.</summary>
+public sealed class ImportRefusedException(IReadOnlyList<InputError> problems)
+    : ReviewException($"The cycle was not imported: {problems.Count} problem(s), the first {problems[0].Field}: {problems[0].Message}")
+{
+    public IReadOnlyList<InputError> Problems { get; } = problems;
+}

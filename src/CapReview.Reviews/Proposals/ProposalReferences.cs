@@ -1,0 +1,25 @@
+using CapReview.Reviews.Storage;
+using Microsoft.EntityFrameworkCore;
+
+namespace CapReview.Reviews.Proposals;
+
+/// <summary>
+/// A new proposal's reference: P- and its id in four digits, or the next free number after it when an imported
+/// cycle already holds that reference (imports keep the references their decisions and packets cite).
+/// </summary>
+public static class ProposalReferences
+{
+    public static async Task<string> NextFreeAsync(CapReviewDbContext db, Proposal proposal, CancellationToken cancellationToken)
+    {
+        ArgumentNullException.ThrowIfNull(db);
+        ArgumentNullException.ThrowIfNull(proposal);
+        for (int n = proposal.Id; ; n++)
+        {
+            string reference = $"P-{n:D4}";
+            if (!await db.Proposals.AnyAsync(p => p.Reference == reference && p.Id != proposal.Id, cancellationToken).ConfigureAwait(false))
+            {
+                return reference;
+            }
+        }
+    }
+}

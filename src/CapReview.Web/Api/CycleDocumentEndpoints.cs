@@ -1,0 +1,67 @@
+using CapReview.Reviews.Interchange;
+using CapReview.Web.Identity;
+
+namespace CapReview.Web.Api;
+
+/// <summary>
+/// A whole cycle as a JSON document (format capreview.cycle, docs/cycle-format.md): GET to export it (board and
+/// administrators), POST to import one as a new cycle (administrators). A refused import names every problem by
+/// its path in the document and writes nothing.
+/// </summary>
+public static class CycleDocumentEndpoints
+{
+    public static IEndpointRouteBuilder MapCycleDocumentEndpoints(this IEndpointRouteBuilder routes)
+    {
+        routes.MapGet("/api/v1/cycles/{id:int}/document", ExportAsync)
+            .WithName("ExportCycle")
+            .WithSummary("The whole cycle as a capreview.cycle document, to archive or to import elsewhere")
+            .Produces<CycleDocument>()
+            .ProducesProblem(StatusCodes.Status403Forbidden)
+            .ProducesProblem(StatusCodes.Status404NotFound)
+            .RequireAuthorization(IdentityRegistration.Api);
+        routes.MapPost("/api/v1/cycles/import", ImportAsync)
+            .WithName("ImportCycle")
+            .WithSummary("Import a capreview.cycle document as a new cycle (administrators)")
+            .Accepts<CycleDocument>("application/json")
+            .Produces<CycleImportResult>(StatusCodes.Status201Created)
+            .ProducesValidationProblem()
+            .ProducesProblem(StatusCodes.Status403Forbidden)
+            .RequireAuthorization(IdentityRegistration.Api)
+            .DisableAntiforgery();
+        return routes;
+    }
+
+    private static Task<IResult> ExportAsync(int id, HttpContext context, CycleExporter exporter, CancellationToken cancellationToken) =>
+        ApiProblems.RunAsync(async () =>
+        {
+            CycleDocument document = await exporter.ExportAsync(ActorFactory.From(context.User)!, id, cancellationToken).ConfigureAwait(false);
+            return Results.File(CycleDocumentJson.Write(document), "application/json", FileName(document.Cycle!.Name!));
+        });
+
+    private static async Task<IResult> ImportAsync(HttpRequest request, CycleImporter importer, CancellationToken cancellationToken)
+    {
+        if (request.ContentLength > CycleDocumentJson.MaxBytes)
+        {
+            return ApiProblems.Invalid("document", $"The document is larger than {CycleDocumentJson.MaxBytes / 1024 / 1024} MiB.");
+        }
+        using var buffer = new MemoryStream();
+        await request.Body.CopyToAsync(buffer, cancellationToken).ConfigureAwait(false);
+        return await ApiProblems.RunAsync(async () =>
+        {
+            try
+            {
+                var result = await importer.ImportAsync(ActorFactory.From(request.HttpContext.User)!, buffer.ToArray(), cancellationToken).ConfigureAwait(false);
+                return Results.Created($"/api/v1/cycles/{result.CycleId}", result);
+            }
+            catch (ImportRefusedException ex)
+            {
+                return Results.ValidationProblem(ex.Problems.GroupBy(p => p.Field).ToDictionary(g => g.Key, g => g.Select(p => p.Message).ToArray()),
+                    title: "The cycle was not imported; nothing was changed.");
+            }
+        }).ConfigureAwait(false);
+    }
+
+    /// <summary>"Capital cycle 2027" → "cycle-capital-cycle-2027.json".</summary>
+    public static string FileName(string cycleName) =>
+        "cycle-" + string.Concat(cycleName.Select(c => char.IsLetterOrDigit(c) ? char.ToLowerInvariant(c) : '-')).Trim('-') + ".json";
+}
