@@ -38,6 +38,7 @@ public static class ReviewsServiceCollectionExtensions
         services.AddSingleton<Records.DecisionRecords>();
         services.AddSingleton<Interchange.CycleExporter>();
         services.AddSingleton<Interchange.CycleImporter>();
+        services.AddSingleton<Preferences.PreferenceService>();
         return services;
     }
 }

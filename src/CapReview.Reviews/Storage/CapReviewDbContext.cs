@@ -43,6 +43,8 @@ public sealed class CapReviewDbContext(DbContextOptions<CapReviewDbContext> opti
 
     public DbSet<ApprovalPacket> ApprovalPackets => Set<ApprovalPacket>();
 
+    public DbSet<Preferences.UserPreference> UserPreferences => Set<Preferences.UserPreference>();
+
     public override int SaveChanges(bool acceptAllChangesOnSuccess)
     {
         RefuseChangesToWrittenOnceRows();
@@ -203,6 +205,15 @@ public sealed class CapReviewDbContext(DbContextOptions<CapReviewDbContext> opti
             p.HasOne<BudgetCycle>().WithMany().HasForeignKey(x => x.BudgetCycleId).OnDelete(DeleteBehavior.Restrict);
             p.HasOne<Proposal>().WithMany().HasForeignKey(x => x.ProposalId).OnDelete(DeleteBehavior.Restrict);
             p.HasOne<MarrPolicyVersion>().WithMany().HasForeignKey(x => x.MarrPolicyVersionId).OnDelete(DeleteBehavior.Restrict);
+        });
+
+        modelBuilder.Entity<Preferences.UserPreference>(p =>
+        {
+            p.ToTable("user_preference");
+            p.Property(x => x.UserId).HasMaxLength(100);
+            p.Property(x => x.Name).HasMaxLength(Preferences.PreferenceService.MaxNameLength);
+            p.Property(x => x.Value).HasMaxLength(Preferences.PreferenceService.MaxValueLength);
+            p.HasIndex(x => new { x.UserId, x.Name }).IsUnique();
         });
 
         modelBuilder.Entity<AuditEvent>(a =>

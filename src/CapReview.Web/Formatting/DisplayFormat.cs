@@ -11,12 +11,14 @@ public sealed class DisplayFormat
 {
     private readonly CultureInfo _culture;
     private readonly string _currency;
+    private readonly TimeZoneInfo _zone;
 
     public DisplayFormat(OrganisationOptions organisation)
     {
         ArgumentNullException.ThrowIfNull(organisation);
         _culture = organisation.Culture();
         _currency = organisation.CurrencyCode;
+        _zone = organisation.Zone();
     }
 
     public CultureInfo Culture => _culture;
@@ -44,6 +46,11 @@ public sealed class DisplayFormat
         1 => Percent(evaluation.RatesOfReturn[0]),
         _ => "several",
     };
+
+    /// <summary>A moment as the organisation reads it: in its time zone, in its culture's short date and time.</summary>
+    public string Time(DateTimeOffset moment) => TimeZoneInfo.ConvertTime(moment, _zone).ToString("g", _culture);
+
+    public string Time(DateTimeOffset? moment, string absent) => moment is DateTimeOffset m ? Time(m) : absent;
 
     /// <summary>An amount as typed into an input: no thousands separators, so it parses back unchanged.</summary>
     public string Editable(double value) => value.ToString("0.############", _culture);

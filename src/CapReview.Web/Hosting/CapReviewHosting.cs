@@ -40,6 +40,7 @@ public static partial class CapReviewHosting
             return Task.CompletedTask;
         }));
         services.AddSingleton(sp => new DisplayFormat(sp.GetRequiredService<IOptions<OrganisationOptions>>().Value));
+        services.AddSingleton<Components.PageMemory>();
         return builder;
     }
 

@@ -392,6 +392,38 @@ namespace CapReview.Reviews.Storage.Migrations
                     b.ToTable("exclusive_group", (string)null);
                 });
 
+            modelBuilder.Entity("CapReview.Reviews.Preferences.UserPreference", b =>
+                {
+                    b.Property<int>("Id")
+                        .ValueGeneratedOnAdd()
+                        .HasColumnType("INTEGER");
+
+                    b.Property<string>("Name")
+                        .IsRequired()
+                        .HasMaxLength(60)
+                        .HasColumnType("TEXT");
+
+                    b.Property<DateTimeOffset>("UpdatedAt")
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("UserId")
+                        .IsRequired()
+                        .HasMaxLength(100)
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("Value")
+                        .IsRequired()
+                        .HasMaxLength(2000)
+                        .HasColumnType("TEXT");
+
+                    b.HasKey("Id");
+
+                    b.HasIndex("UserId", "Name")
+                        .IsUnique();
+
+                    b.ToTable("user_preference", (string)null);
+                });
+
             modelBuilder.Entity("CapReview.Reviews.Proposals.Proposal", b =>
                 {
                     b.Property<int>("Id")
