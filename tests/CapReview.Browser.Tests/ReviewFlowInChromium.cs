@@ -59,12 +59,20 @@ public sealed class ReviewFlowInChromium(BrowserFixture browser) : IClassFixture
         await Assertions.Expect(board.GetByTestId("cycle-message")).ToContainTextAsync("recorded");
         await Assertions.Expect(row).ToContainTextAsync("Approved");
         await board.GetByRole(AriaRole.Button, new() { Name = "Sign off the cycle's decisions" }).ClickAsync();
+        // A sign-off cannot be taken back, so it asks first; "Not yet" leaves the cycle as it was.
+        await Assertions.Expect(board.Locator(".confirm")).ToContainTextAsync("cannot be taken back");
+        await board.GetByRole(AriaRole.Button, new() { Name = "Not yet" }).ClickAsync();
+        await Assertions.Expect(board.GetByTestId("cycle-status")).ToContainTextAsync("sign-offs 0 of 2");
+        await board.GetByRole(AriaRole.Button, new() { Name = "Sign off the cycle's decisions" }).ClickAsync();
+        await board.GetByRole(AriaRole.Button, new() { Name = "Yes, sign off" }).ClickAsync();
         await Assertions.Expect(board.GetByTestId("cycle-status")).ToContainTextAsync("sign-offs 1 of 2");
 
         IPage second = await browser.SignedInPageAsync("jon.board@tarnby.example", "Jon Board", RoleNames.Reviewer);
         await second.GotoAsync(browser.App.BaseAddress + $"cycles/{cycleId}");
         await second.Locator("[data-testid=interactive]").WaitForAsync(new() { State = WaitForSelectorState.Attached });
         await second.GetByRole(AriaRole.Button, new() { Name = "Sign off the cycle's decisions" }).ClickAsync();
+        await Assertions.Expect(second.Locator(".confirm")).ToContainTextAsync("decides the cycle");
+        await second.GetByRole(AriaRole.Button, new() { Name = "Yes, sign off" }).ClickAsync();
         await Assertions.Expect(second.GetByTestId("cycle-status")).ToContainTextAsync("Decided");
         await Assertions.Expect(second.GetByTestId("sign-offs")).ToContainTextAsync("Ulla Board");
         await Assertions.Expect(second.GetByTestId("sign-offs")).ToContainTextAsync("Jon Board");
