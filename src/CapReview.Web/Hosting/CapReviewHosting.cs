@@ -85,6 +85,16 @@ public static partial class CapReviewHosting
         {
             app.UseExceptionHandler("/error", createScopeForErrors: true);
         }
+        // Every request, and so every interactive circuit it starts, runs in the organisation's culture: the inputs
+        // bound to numbers and dates read and write them as the organisation does, whatever the browser or server says.
+        var culture = app.Services.GetRequiredService<Formatting.DisplayFormat>().Culture;
+        app.UseRequestLocalization(new RequestLocalizationOptions
+        {
+            DefaultRequestCulture = new Microsoft.AspNetCore.Localization.RequestCulture(culture, culture),
+            SupportedCultures = [culture],
+            SupportedUICultures = [culture],
+            RequestCultureProviders = [],
+        });
         // Pages show the not-found page; the API answers its bare status codes with problem details instead.
         app.UseWhen(IsApi, api => api.UseStatusCodePages());
         app.UseWhen(context => !IsApi(context), pages => pages.UseStatusCodePagesWithReExecute("/not-found", createScopeForStatusCodePages: true));
