@@ -35,18 +35,7 @@ public static class CycleEndpoints
         {
             return problem!;
         }
-        try
-        {
-            var ranking = await rankings.RankAsync(ActorFactory.From(context.User)!, id, query.MarrShift, cancellationToken, query.AfterTax).ConfigureAwait(false);
-            return Results.Ok(RankingResponse.From(ranking));
-        }
-        catch (AccessDeniedException ex)
-        {
-            return Results.Problem(ex.Message, statusCode: StatusCodes.Status403Forbidden);
-        }
-        catch (NotFoundException ex)
-        {
-            return Results.Problem(ex.Message, statusCode: StatusCodes.Status404NotFound);
-        }
+        return await ApiProblems.RunAsync(async () => Results.Ok(RankingResponse.From(
+            await rankings.RankAsync(ActorFactory.From(context.User)!, id, query.MarrShift, cancellationToken, query.AfterTax).ConfigureAwait(false)))).ConfigureAwait(false);
     }
 }

@@ -37,7 +37,7 @@ public static class ExportEndpoints
         {
             return problem!;
         }
-        return await RunAsync(async () =>
+        return await ApiProblems.RunAsync(async () =>
         {
             var ranking = await rankings.RankAsync(ActorFactory.From(context.User)!, id, query.MarrShift, cancellationToken, query.AfterTax).ConfigureAwait(false);
             return File(RankingExport.Table(ranking, display.CurrencyCode), format);
@@ -50,7 +50,7 @@ public static class ExportEndpoints
         {
             return problem!;
         }
-        return await RunAsync(async () =>
+        return await ApiProblems.RunAsync(async () =>
         {
             var result = await portfolio.SelectAsync(ActorFactory.From(context.User)!, id, query, cancellationToken).ConfigureAwait(false);
             return File(PortfolioExport.Table(result, display.CurrencyCode), format);
@@ -58,7 +58,7 @@ public static class ExportEndpoints
     }
 
     private static Task<IResult> VersionWorkbookAsync(int id, int number, HttpContext context, ProposalService proposals, CycleService cycles, MarrPolicyService policies, DisplayFormat display, CancellationToken cancellationToken) =>
-        RunAsync(async () =>
+        ApiProblems.RunAsync(async () =>
         {
             var (proposal, tables) = await VersionTablesAsync(id, number, context, proposals, cycles, policies, display, cancellationToken).ConfigureAwait(false);
             return Results.File(XlsxExport.Write([.. tables.Select(t => t.Table)]), "application/vnd.openxmlformats-officedocument.spreadsheetml.sheet",
@@ -66,7 +66,7 @@ public static class ExportEndpoints
         });
 
     private static Task<IResult> VersionTableAsync(int id, int number, string table, HttpContext context, ProposalService proposals, CycleService cycles, MarrPolicyService policies, DisplayFormat display, CancellationToken cancellationToken) =>
-        RunAsync(async () =>
+        ApiProblems.RunAsync(async () =>
         {
             var (proposal, tables) = await VersionTablesAsync(id, number, context, proposals, cycles, policies, display, cancellationToken).ConfigureAwait(false);
             var found = tables.FirstOrDefault(t => t.Name == table).Table;
@@ -86,26 +86,8 @@ public static class ExportEndpoints
         return (proposal, VersionExport.Tables(proposal, version, policy, display.CurrencyCode));
     }
 
-    private static async Task<IResult> RunAsync(Func<Task<IResult>> export)
-    {
-        try
-        {
-            return await export().ConfigureAwait(false);
-        }
-        catch (NotFoundException ex)
-        {
-            return Results.Problem(ex.Message, statusCode: StatusCodes.Status404NotFound);
-        }
-        catch (RuleViolationException ex)
-        {
-            return Invalid("query", ex.Message);
-        }
-    }
-
     private static IResult File(ExportTable table, string format) => format == "csv"
         ? Results.File(CsvExport.Write(table), "text/csv; charset=utf-8", table.FileStem + ".csv")
         : Results.File(XlsxExport.Write(table), "application/vnd.openxmlformats-officedocument.spreadsheetml.sheet", table.FileStem + ".xlsx");
 
-    private static IResult Invalid(string field, string message) =>
-        Results.ValidationProblem(new Dictionary<string, string[]> { [field] = [message] }, title: "The export could not be made.");
 }

@@ -45,6 +45,7 @@ public static class PacketEndpoints
         }
         catch (RuleViolationException ex)
         {
+            // A stored packet that no longer matches its hash: a conflict with the record, not bad input.
             return Results.Problem(ex.Message, statusCode: StatusCodes.Status409Conflict);
         }
     }
