@@ -139,12 +139,13 @@ public sealed class CycleImporter(ReviewWork work, AuditTrail audit, IPeopleDire
                 byReference[reference] = proposal;
             }
             await db.SaveChangesAsync(cancellationToken).ConfigureAwait(false);
+            // References already held here (and those this import keeps) are taken; a clash takes the next free number.
+            taken.UnionWith(byReference.Where(x => x.Value.Reference == x.Key).Select(x => x.Key));
             foreach (var (reference, proposal) in byReference.Where(x => x.Value.Reference != x.Key))
             {
-                proposal.Reference = await ProposalReferences.NextFreeAsync(db, proposal, cancellationToken).ConfigureAwait(false);
+                proposal.Reference = ProposalReferences.NextFree(proposal.Id, taken);
+                taken.Add(proposal.Reference);
                 renamed[reference] = proposal.Reference;
-                // Saved one at a time, so that the next free number sees this one taken.
-                await db.SaveChangesAsync(cancellationToken).ConfigureAwait(false);
             }
 
             foreach (GroupEntry g in document.ExclusiveGroups ?? [])

@@ -15,11 +15,25 @@ public static class ProposalReferences
         ArgumentNullException.ThrowIfNull(proposal);
         for (int n = proposal.Id; ; n++)
         {
-            string reference = $"P-{n:D4}";
+            string reference = Of(n);
             if (!await db.Proposals.AnyAsync(p => p.Reference == reference && p.Id != proposal.Id, cancellationToken).ConfigureAwait(false))
             {
                 return reference;
             }
         }
     }
+
+    /// <summary>The first free reference from <paramref name="id"/> on, among references already known to be taken.</summary>
+    public static string NextFree(int id, IReadOnlySet<string> taken)
+    {
+        ArgumentNullException.ThrowIfNull(taken);
+        int n = id;
+        while (taken.Contains(Of(n)))
+        {
+            n++;
+        }
+        return Of(n);
+    }
+
+    private static string Of(int n) => $"P-{n:D4}";
 }

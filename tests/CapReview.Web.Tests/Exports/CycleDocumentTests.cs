@@ -129,5 +129,16 @@ public sealed class CycleDocumentTests : IAsyncLifetime
 
         await Assert.ThrowsAsync<CapReview.Reviews.Common.AccessDeniedException>(() => importer.ImportAsync(Actor.Of("x", "Board", Role.Reviewer), exported, CancellationToken.None));
         Assert.Equal(before, await CountAsync());
+
+        // The same cycle under another name: every reference is taken here, so each takes the next free number.
+        JsonNode copy = JsonNode.Parse(exported)!;
+        copy["cycle"]!["name"] = "Capital plan 2027 (second installation's copy)";
+        var second = await importer.ImportAsync(Admin, System.Text.Encoding.UTF8.GetBytes(copy.ToJsonString()), CancellationToken.None);
+        Assert.Equal(7, second.RenamedReferences.Count);
+        Assert.Equal(7, second.RenamedReferences.Values.Distinct().Count());
+        Assert.DoesNotContain(second.RenamedReferences.Values, first.RenamedReferences.Keys.Concat(copy["proposals"]!.AsArray().Select(p => p!["reference"]!.GetValue<string>())).Contains);
+        var renamedDocument = JsonNode.Parse(await ExportAsync(_target, "Capital plan 2027 (second installation's copy)"))!;
+        // Rules and decisions follow the new references.
+        Assert.All(renamedDocument["exclusiveGroups"]!.AsArray().SelectMany(g => g!["members"]!.AsArray()), m => Assert.Contains(m!.GetValue<string>(), second.RenamedReferences.Values));
     }
 }
