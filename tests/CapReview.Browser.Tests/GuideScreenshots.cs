@@ -71,6 +71,7 @@ public sealed class GuideScreenshots(BrowserFixture browser) : IClassFixture<Bro
         await ShotAsync(lead, "lead-proposals");
         await lead.GetByTestId("my-proposals").Locator("tr").Filter(new() { HasText = "Forklift fleet electrification" }).GetByRole(AriaRole.Link).ClickAsync();
         await lead.Locator("[data-testid=interactive]").WaitForAsync(new() { State = WaitForSelectorState.Attached });
+        string editor = lead.Url[browser.App.BaseAddress.Length..];
         await Assertions.Expect(lead.GetByTestId("present-worth")).Not.ToBeEmptyAsync();
         await ShotAsync(lead, "lead-editor");
         await lead.Locator("#import-file").SetInputFilesAsync(new FilePayload
@@ -122,9 +123,11 @@ public sealed class GuideScreenshots(BrowserFixture browser) : IClassFixture<Bro
         await Assertions.Expect(admin.GetByTestId("audit-verification")).ToContainTextAsync("intact");
         await ShotAsync(admin, "admin-audit");
 
-        // The quick evaluation on a phone (the browser's pages share one sign-in, the last one's).
+        // The editor on a phone (the browser's pages share one sign-in, the last one's; administrators see every proposal).
         await admin.SetViewportSizeAsync(390, 844);
-        await GoAsync(admin, "evaluate");
-        await ShotAsync(admin, "phone-evaluate");
+        await GoAsync(admin, editor);
+        await admin.GetByTestId("measures").ScrollIntoViewIfNeededAsync();
+        await ShotAsync(admin.Locator("section[aria-labelledby=measures-heading]"), "phone-measures");
+        await ShotAsync(admin.Locator("section[aria-labelledby=elements-heading]"), "phone-elements");
     }
 }
