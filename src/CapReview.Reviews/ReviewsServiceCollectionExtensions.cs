@@ -13,15 +13,27 @@ using Microsoft.Extensions.DependencyInjection;
 
 namespace CapReview.Reviews;
 
-/// <summary>Registers the domain services and the database on SQLite.</summary>
+/// <summary>Registers the domain services and the database (SQLite, or PostgreSQL).</summary>
 public static class ReviewsServiceCollectionExtensions
 {
-    public static IServiceCollection AddReviews(this IServiceCollection services, string sqliteConnectionString)
+    public static IServiceCollection AddReviews(this IServiceCollection services, string sqliteConnectionString) =>
+        services.AddReviews(DatabaseSettings.Sqlite(sqliteConnectionString));
+
+    public static IServiceCollection AddReviews(this IServiceCollection services, DatabaseSettings database)
     {
-        services.AddDbContextFactory<CapReviewDbContext>(options => options.UseSqlite(sqliteConnectionString));
+        ArgumentNullException.ThrowIfNull(database);
+        if (database.Provider == DatabaseProvider.PostgreSql)
+        {
+            services.AddDbContextFactory<Storage.PostgreSql.PostgreSqlReviewsDbContext>(options => database.Apply(options));
+            services.AddSingleton<IDbContextFactory<CapReviewDbContext>, DerivedContextFactory<CapReviewDbContext, Storage.PostgreSql.PostgreSqlReviewsDbContext>>();
+        }
+        else
+        {
+            services.AddDbContextFactory<CapReviewDbContext>(options => database.Apply(options));
+        }
         services.AddSingleton<DatabaseInitializer>();
         services.AddSingleton<OrganisationQueries>();
-        services.AddSingleton(TimeProvider.System);
+        services.AddSingleton<TimeProvider, StorageClock>();
         services.AddSingleton<ReviewWork>();
         services.AddSingleton<AuditTrail>();
         services.AddSingleton<AuditQueries>();

@@ -12,7 +12,7 @@ using Microsoft.Extensions.DependencyInjection;
 
 namespace CapReview.Reviews.Tests;
 
-/// <summary>The domain services on a real, migrated SQLite file of their own (no in-memory provider).</summary>
+/// <summary>The domain services on a real, migrated database of their own (no in-memory provider): a SQLite file, or PostgreSQL (<see cref="CapReview.TestSupport.TestDatabase"/>).</summary>
 public sealed class ReviewsDatabase : IAsyncLifetime
 {
     private readonly string _folder = Directory.CreateTempSubdirectory("capreview-reviews-").FullName;
@@ -25,7 +25,7 @@ public sealed class ReviewsDatabase : IAsyncLifetime
     public static readonly Actor SecondReviewer = Actor.Of("board-2", "Aino Board", Role.Reviewer);
     public static readonly Actor Finance = Actor.Of("finance-1", "Rui Finance", Role.Finance);
 
-    public string ConnectionString => $"Data Source={Path.Combine(_folder, "reviews.db")};Pooling=False";
+    private CapReview.TestSupport.TestDatabase _database = null!;
 
     public ProposalService Proposals => _services.GetRequiredService<ProposalService>();
 
@@ -47,7 +47,8 @@ public sealed class ReviewsDatabase : IAsyncLifetime
 
     public async Task InitializeAsync()
     {
-        _services = new ServiceCollection().AddReviews(ConnectionString).BuildServiceProvider();
+        _database = CapReview.TestSupport.TestDatabase.Create(Path.Combine(_folder, "reviews.db"));
+        _services = new ServiceCollection().AddReviews(_database.Settings).BuildServiceProvider();
         await _services.GetRequiredService<DatabaseInitializer>().InitializeAsync(
             new OrganisationProfile { Name = "Test organisation", CurrencyCode = "EUR", CultureName = "en-IE" }, CancellationToken.None);
     }
@@ -55,6 +56,7 @@ public sealed class ReviewsDatabase : IAsyncLifetime
     public async Task DisposeAsync()
     {
         await _services.DisposeAsync();
+        await _database.DisposeAsync();
         try
         {
             Directory.Delete(_folder, recursive: true);

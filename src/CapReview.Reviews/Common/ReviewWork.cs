@@ -4,13 +4,17 @@ using Microsoft.EntityFrameworkCore;
 namespace CapReview.Reviews.Common;
 
 /// <summary>
-/// Runs one write operation: a fresh context, one transaction, one writer at a time in this process (the audit chain
-/// needs its events in order). Either everything the operation saved commits, or nothing does. A stale concurrency
+/// Runs one write operation: a fresh context, one transaction, one writer at a time (the audit chain needs its events
+/// in order): in this process by a semaphore and, on PostgreSQL where several app servers share the database, across
+/// them by a transaction-scoped advisory lock. Either everything the operation saved commits, or nothing does. A stale concurrency
 /// token becomes a <see cref="ConcurrencyConflictException"/>.
 /// </summary>
 public sealed class ReviewWork(IDbContextFactory<CapReviewDbContext> contexts) : IDisposable
 {
     private readonly SemaphoreSlim _writer = new(1, 1);
+
+    /// <summary>The advisory lock key all CapReview writers take on PostgreSQL (an arbitrary constant of ours).</summary>
+    private const string WriterLock = "20261202";
 
     public async Task<T> RunAsync<T>(Func<CapReviewDbContext, Task<T>> operation, CancellationToken cancellationToken)
     {
@@ -20,6 +24,10 @@ public sealed class ReviewWork(IDbContextFactory<CapReviewDbContext> contexts) :
         {
             await using CapReviewDbContext db = await contexts.CreateDbContextAsync(cancellationToken).ConfigureAwait(false);
             await using var transaction = await db.Database.BeginTransactionAsync(cancellationToken).ConfigureAwait(false);
+            if (db.Database.IsNpgsql())
+            {
+                await db.Database.ExecuteSqlRawAsync("SELECT pg_advisory_xact_lock(" + WriterLock + ")", cancellationToken).ConfigureAwait(false);
+            }
             T result = await operation(db).ConfigureAwait(false);
             await transaction.CommitAsync(cancellationToken).ConfigureAwait(false);
             return result;

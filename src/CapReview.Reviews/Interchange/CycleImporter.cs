@@ -131,8 +131,8 @@ public sealed class CycleImporter(ReviewWork work, AuditTrail audit, IPeopleDire
                     string json = AssumptionsDocument.Serialize(v.Assumptions!);
                     proposal.Versions.Add(new ProposalVersion
                     {
-                        Number = v.Number!.Value, AuthorId = authors[(reference, v.Number!.Value)], CreatedAt = v.CreatedAt ?? clock.GetUtcNow(),
-                        Reason = v.Reason ?? "", IsFrozen = v.Frozen ?? false, FrozenAt = v.FrozenAt, AssumptionsJson = json, AssumptionsHash = AssumptionsDocument.Hash(json),
+                        Number = v.Number!.Value, AuthorId = authors[(reference, v.Number!.Value)], CreatedAt = Stored(v.CreatedAt),
+                        Reason = v.Reason ?? "", IsFrozen = v.Frozen ?? false, FrozenAt = v.FrozenAt is { } frozen ? StorageClock.ToStored(frozen) : null, AssumptionsJson = json, AssumptionsHash = AssumptionsDocument.Hash(json),
                     });
                 }
                 db.Proposals.Add(proposal);
@@ -162,13 +162,13 @@ public sealed class CycleImporter(ReviewWork work, AuditTrail audit, IPeopleDire
                 db.Decisions.Add(new Decision
                 {
                     ProposalId = byReference[d.Proposal!].Id, BudgetCycleId = cycle.Id, VersionNumber = d.Version!.Value, AssumptionsHash = d.AssumptionsSha256!,
-                    MarrPolicyVersionId = policy.Id, Outcome = d.Outcome!.Value, Conditions = d.Conditions ?? "", DecidedBy = deciders[k++], DecidedAt = d.DecidedAt ?? clock.GetUtcNow(),
+                    MarrPolicyVersionId = policy.Id, Outcome = d.Outcome!.Value, Conditions = d.Conditions ?? "", DecidedBy = deciders[k++], DecidedAt = Stored(d.DecidedAt),
                 });
             }
             k = 0;
             foreach (SignOffEntry s in document.SignOffs ?? [])
             {
-                db.SignOffs.Add(new SignOff { BudgetCycleId = cycle.Id, UserId = signers[k++], DisplayName = s.By!.Name!, SignedAt = s.SignedAt ?? clock.GetUtcNow(), DecisionsSigned = s.DecisionsSigned ?? "[]" });
+                db.SignOffs.Add(new SignOff { BudgetCycleId = cycle.Id, UserId = signers[k++], DisplayName = s.By!.Name!, SignedAt = Stored(s.SignedAt), DecisionsSigned = s.DecisionsSigned ?? "[]" });
             }
             await db.SaveChangesAsync(cancellationToken).ConfigureAwait(false);
             await audit.AppendAsync(db, actor, "cycle.imported", "budget_cycle", cycle.Id.ToString(CultureInfo.InvariantCulture), null,
@@ -176,6 +176,9 @@ public sealed class CycleImporter(ReviewWork work, AuditTrail audit, IPeopleDire
             return new CycleImportResult(cycle.Id, cycle.Name, byReference.Count, renamed, held);
         }, cancellationToken).ConfigureAwait(false);
     }
+
+    /// <summary>A moment from the document as this installation stores it (UTC, microseconds), or now when it has none.</summary>
+    private DateTimeOffset Stored(DateTimeOffset? moment) => moment is { } m ? StorageClock.ToStored(m) : clock.GetUtcNow();
 
     /// <summary>The policy version here with the same rates, or a new version carrying the document's.</summary>
     private async Task<MarrPolicyVersion> PolicyAsync(CapReviewDbContext db, PolicyEntry p, string setBy, CancellationToken cancellationToken)

@@ -17,8 +17,19 @@ namespace CapReview.Reviews.Storage;
 /// The installation's database. Create one per operation through IDbContextFactory. Saving refuses any change to a
 /// frozen proposal version, an audit event or a MARR policy version: those rows are written once.
 /// </summary>
-public sealed class CapReviewDbContext(DbContextOptions<CapReviewDbContext> options) : DbContext(options)
+public class CapReviewDbContext : DbContext
 {
+    public CapReviewDbContext(DbContextOptions<CapReviewDbContext> options)
+        : base(options)
+    {
+    }
+
+    /// <summary>For a provider's own context type (<see cref="PostgreSql.PostgreSqlReviewsDbContext"/>), which carries its own migrations.</summary>
+    protected CapReviewDbContext(DbContextOptions options)
+        : base(options)
+    {
+    }
+
     public DbSet<OrganisationProfile> Organisations => Set<OrganisationProfile>();
 
     public DbSet<Proposal> Proposals => Set<Proposal>();

@@ -23,10 +23,10 @@ public static partial class CapReviewHosting
         IServiceCollection services = builder.Services;
         var storage = builder.Configuration.GetSection("Storage").Get<StorageOptions>() ?? new StorageOptions();
         services.Configure<OrganisationOptions>(builder.Configuration.GetSection("Organisation"));
-        string connection = storage.SqliteConnectionString(builder.Configuration.GetConnectionString("CapReview"), builder.Environment.ContentRootPath);
-        services.AddReviews(connection);
-        services.AddCapReviewIdentity(connection);
-        services.AddPackets(PacketSettings.Read(builder.Configuration, connection, builder.Environment.ContentRootPath));
+        var database = storage.Database(builder.Configuration.GetConnectionString("CapReview"), builder.Environment.ContentRootPath);
+        services.AddReviews(database);
+        services.AddCapReviewIdentity(database);
+        services.AddPackets(PacketSettings.Read(builder.Configuration, database, builder.Environment.ContentRootPath));
         services.AddScoped<DemoScenario>();
         services.AddScoped<DemoDecidedCycle>();
 

@@ -7,9 +7,19 @@ namespace CapReview.Web.Identity;
 /// Users, roles and API tokens, in the same database as the domain but in a context and migration history of their
 /// own, so that the domain project knows users only by their ids.
 /// </summary>
-public sealed class CapReviewIdentityDbContext(DbContextOptions<CapReviewIdentityDbContext> options)
-    : IdentityDbContext<CapReviewUser>(options)
+public class CapReviewIdentityDbContext : IdentityDbContext<CapReviewUser>
 {
+    public CapReviewIdentityDbContext(DbContextOptions<CapReviewIdentityDbContext> options)
+        : base(options)
+    {
+    }
+
+    /// <summary>For a provider's own context type (<see cref="PostgreSqlIdentityDbContext"/>), which carries its own migrations.</summary>
+    protected CapReviewIdentityDbContext(DbContextOptions options)
+        : base(options)
+    {
+    }
+
     public const string MigrationsHistoryTable = "__identity_migrations_history";
 
     public DbSet<ApiToken> ApiTokens => Set<ApiToken>();

@@ -1,3 +1,4 @@
+using CapReview.Reviews.Storage;
 using CapReview.Web.Hosting;
 using Microsoft.AspNetCore.Authentication;
 using Microsoft.AspNetCore.Identity;
@@ -17,10 +18,20 @@ public static class IdentityRegistration
     /// <summary>JSON endpoints: a cookie or an API token.</summary>
     public const string Api = "api";
 
-    public static IServiceCollection AddCapReviewIdentity(this IServiceCollection services, string sqliteConnectionString)
+    public static IServiceCollection AddCapReviewIdentity(this IServiceCollection services, DatabaseSettings database)
     {
-        services.AddDbContextFactory<CapReviewIdentityDbContext>(options => options.UseSqlite(sqliteConnectionString,
-            sqlite => sqlite.MigrationsHistoryTable(CapReviewIdentityDbContext.MigrationsHistoryTable)));
+        ArgumentNullException.ThrowIfNull(database);
+        if (database.Provider == DatabaseProvider.PostgreSql)
+        {
+            services.AddDbContextFactory<PostgreSqlIdentityDbContext>(options => database.Apply(options, CapReviewIdentityDbContext.MigrationsHistoryTable));
+            services.AddSingleton<IDbContextFactory<CapReviewIdentityDbContext>, DerivedContextFactory<CapReviewIdentityDbContext, PostgreSqlIdentityDbContext>>();
+            // Identity's stores ask for the shared type within a request's scope.
+            services.AddScoped<CapReviewIdentityDbContext>(sp => sp.GetRequiredService<PostgreSqlIdentityDbContext>());
+        }
+        else
+        {
+            services.AddDbContextFactory<CapReviewIdentityDbContext>(options => database.Apply(options, CapReviewIdentityDbContext.MigrationsHistoryTable));
+        }
         services.AddIdentityCore<CapReviewUser>(options =>
             {
                 options.User.RequireUniqueEmail = true;

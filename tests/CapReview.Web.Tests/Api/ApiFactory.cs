@@ -6,17 +6,19 @@ using Microsoft.Extensions.DependencyInjection;
 
 namespace CapReview.Web.Tests.Api;
 
-/// <summary>The real app in memory, on a temporary SQLite file of its own.</summary>
+/// <summary>The real app in memory, on a temporary database of its own (SQLite, or PostgreSQL: see <see cref="CapReview.TestSupport.TestDatabase"/>).</summary>
 public sealed class ApiFactory : WebApplicationFactory<Program>
 {
     private readonly string _folder = Directory.CreateTempSubdirectory("capreview-api-").FullName;
+    private CapReview.TestSupport.TestDatabase? _database;
 
-    public string DatabaseFile => Path.Combine(_folder, "capreview.db");
+    public CapReview.TestSupport.TestDatabase Database => _database ??= CapReview.TestSupport.TestDatabase.Create(Path.Combine(_folder, "capreview.db"));
 
     protected override void ConfigureWebHost(IWebHostBuilder builder)
     {
         builder.UseEnvironment("Development");
-        builder.UseSetting("ConnectionStrings:CapReview", $"Data Source={DatabaseFile};Pooling=False");
+        builder.UseSetting("Storage:Provider", Database.Settings.Provider.ToString());
+        builder.UseSetting("ConnectionStrings:CapReview", Database.Settings.ConnectionString);
         builder.UseSetting("Demo:Enabled", "false");
     }
 
@@ -43,6 +45,7 @@ public sealed class ApiFactory : WebApplicationFactory<Program>
         base.Dispose(disposing);
         if (disposing)
         {
+            _database?.DisposeAsync().AsTask().GetAwaiter().GetResult();
             try
             {
                 Directory.Delete(_folder, recursive: true);

@@ -1,3 +1,4 @@
+using Microsoft.Extensions.DependencyInjection;
 using System.Net;
 using System.Net.Http.Json;
 using System.Text;
@@ -69,27 +70,22 @@ public sealed class EvaluationApiTests(ApiFactory factory) : IClassFixture<ApiFa
         Assert.Contains("audit_event", before.Keys);
     }
 
-    /// <summary>The number of rows in every table of the app's database.</summary>
+    /// <summary>The number of rows in every table of the app's database (both contexts' tables, on either provider).</summary>
     private async Task<Dictionary<string, long>> RowCountsAsync()
     {
-        using var connection = new Microsoft.Data.Sqlite.SqliteConnection($"Data Source={factory.DatabaseFile};Pooling=False");
-        await connection.OpenAsync();
-        var tables = new List<string>();
-        using (var list = connection.CreateCommand())
-        {
-            list.CommandText = "SELECT name FROM sqlite_master WHERE type = 'table' AND name NOT LIKE 'sqlite%'";
-            using var reader = await list.ExecuteReaderAsync();
-            while (await reader.ReadAsync())
-            {
-                tables.Add(reader.GetString(0));
-            }
-        }
         var counts = new Dictionary<string, long>();
-        foreach (string table in tables)
+        await using var domain = await factory.Services.GetRequiredService<Microsoft.EntityFrameworkCore.IDbContextFactory<CapReview.Reviews.Storage.CapReviewDbContext>>().CreateDbContextAsync();
+        await using var identity = await factory.Services.GetRequiredService<Microsoft.EntityFrameworkCore.IDbContextFactory<CapReview.Web.Identity.CapReviewIdentityDbContext>>().CreateDbContextAsync();
+        foreach (Microsoft.EntityFrameworkCore.DbContext db in new Microsoft.EntityFrameworkCore.DbContext[] { domain, identity })
         {
-            using var count = connection.CreateCommand();
-            count.CommandText = $"SELECT COUNT(*) FROM \"{table}\"";
-            counts[table] = (long)(await count.ExecuteScalarAsync())!;
+            var connection = Microsoft.EntityFrameworkCore.RelationalDatabaseFacadeExtensions.GetDbConnection(db.Database);
+            await connection.OpenAsync();
+            foreach (string table in db.Model.GetEntityTypes().Select(Microsoft.EntityFrameworkCore.RelationalEntityTypeExtensions.GetTableName).OfType<string>().Distinct())
+            {
+                using var count = connection.CreateCommand();
+                count.CommandText = $"SELECT COUNT(*) FROM \"{table}\"";
+                counts[table] = Convert.ToInt64(await count.ExecuteScalarAsync(), System.Globalization.CultureInfo.InvariantCulture);
+            }
         }
         return counts;
     }
@@ -228,7 +224,7 @@ public sealed class EvaluationApiTests(ApiFactory factory) : IClassFixture<ApiFa
         using HttpClient client = factory.CreateClient();
         using HttpResponseMessage page = await client.GetAsync("/signin");
         Assert.Equal(HttpStatusCode.OK, page.StatusCode);
-        Assert.True(File.Exists(factory.DatabaseFile));
+        Assert.True(factory.Database.IsPostgreSql || File.Exists(new Microsoft.Data.Sqlite.SqliteConnectionStringBuilder(factory.Database.Settings.ConnectionString).DataSource));
         string html = await page.Content.ReadAsStringAsync();
         Assert.Contains("Tarnby Components Ltd", html);
     }
