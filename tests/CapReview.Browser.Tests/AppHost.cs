@@ -27,6 +27,8 @@ public sealed class AppHost : WebApplicationFactory<Program>
         builder.UseEnvironment("Development");
         builder.UseSetting("ConnectionStrings:CapReview", $"Data Source={Path.Combine(_folder, "capreview.db")};Pooling=False");
         builder.UseSetting("Demo:Enabled", "false");
+        // The tests sign in far more often than a person would; the limit itself is tested in CapReview.Web.Tests.
+        builder.UseSetting("RateLimits:SignInPerMinute", "100000");
     }
 
     public const string Password = "browser-tests-2027";

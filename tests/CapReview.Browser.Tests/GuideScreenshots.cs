@@ -102,7 +102,8 @@ public sealed class GuideScreenshots(BrowserFixture browser) : IClassFixture<Bro
         await board.GetByTestId("cycle-proposals").Locator("tr").Filter(new() { HasText = "Rooftop solar" }).GetByRole(AriaRole.Link).First.ClickAsync();
         await board.Locator("[data-testid=interactive]").WaitForAsync(new() { State = WaitForSelectorState.Attached });
         await board.GetByTestId("run-simulation").ClickAsync();
-        await Assertions.Expect(board.GetByTestId("probability-of-loss")).ToContainTextAsync("%");
+        // 10,000 trials: seconds on a busy machine.
+        await Assertions.Expect(board.GetByTestId("probability-of-loss")).ToContainTextAsync("%", new() { Timeout = 60_000 });
         await ShotAsync(board.Locator("section[aria-labelledby=risk-heading]"), "board-risk");
 
         // Finance: the decided cycle's signed packets.

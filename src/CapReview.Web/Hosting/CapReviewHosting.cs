@@ -10,6 +10,8 @@ using CapReview.Web.Exports;
 using CapReview.Web.Identity;
 using CapReview.Web.Packets;
 using CapReview.Web.Formatting;
+using CapReview.Web.Operations;
+using Microsoft.AspNetCore.HttpOverrides;
 using Microsoft.Extensions.Options;
 
 namespace CapReview.Web.Hosting;
@@ -31,6 +33,12 @@ public static partial class CapReviewHosting
         services.AddScoped<DemoDecidedCycle>();
 
         services.AddRazorComponents().AddInteractiveServerComponents();
+        // Optional with several app servers: the circuits' SignalR traffic through a Redis backplane (SignalR:Redis,
+        // host:port). Sticky sessions at the proxy are still required; the backplane is for messages between servers.
+        if (builder.Configuration["SignalR:Redis"] is { Length: > 0 } redis)
+        {
+            services.AddSignalR().AddStackExchangeRedis(redis, options => options.Configuration.ChannelPrefix = StackExchange.Redis.RedisChannel.Literal("capreview"));
+        }
         services.AddProblemDetails();
         services.ConfigureHttpJsonOptions(options => ApiJson.Configure(options.SerializerOptions));
         services.AddOpenApi("v1", options => options.AddDocumentTransformer((document, _, _) =>
@@ -41,6 +49,18 @@ public static partial class CapReviewHosting
         }));
         services.AddSingleton(sp => new DisplayFormat(sp.GetRequiredService<IOptions<OrganisationOptions>>().Value));
         services.AddSingleton<Components.PageMemory>();
+        services.AddCapReviewHealth();
+        services.AddCapReviewRateLimits(builder.Configuration);
+        services.Configure<ForwardedHeadersOptions>(options =>
+        {
+            // Behind the reverse proxy (deploy/nginx): the client's address and scheme, from proxies listed in
+            // ReverseProxy:KnownProxies only (loopback by default).
+            options.ForwardedHeaders = ForwardedHeaders.XForwardedFor | ForwardedHeaders.XForwardedProto | ForwardedHeaders.XForwardedHost;
+            foreach (string proxy in builder.Configuration.GetSection("ReverseProxy:KnownProxies").Get<string[]>() ?? [])
+            {
+                options.KnownProxies.Add(System.Net.IPAddress.Parse(proxy));
+            }
+        });
         return builder;
     }
 
@@ -81,6 +101,9 @@ public static partial class CapReviewHosting
     public static WebApplication UseCapReview(this WebApplication app)
     {
         ArgumentNullException.ThrowIfNull(app);
+        app.UseForwardedHeaders();
+        app.UseRequestIds();
+        app.UseSecurityHeaders();
         if (!app.Environment.IsDevelopment())
         {
             app.UseExceptionHandler("/error", createScopeForErrors: true);
@@ -99,18 +122,21 @@ public static partial class CapReviewHosting
         app.UseWhen(IsApi, api => api.UseStatusCodePages());
         app.UseWhen(context => !IsApi(context), pages => pages.UseStatusCodePagesWithReExecute("/not-found", createScopeForStatusCodePages: true));
         app.UseAuthentication();
+        app.UseRateLimiter();
         app.UseAuthorization();
         app.UseAntiforgery();
         app.MapStaticAssets();
         app.MapOpenApi("/openapi/{documentName}.json").RequireAuthorization(IdentityRegistration.Api);
         app.MapEvaluationEndpoints();
+        app.MapHealthEndpoints();
         app.MapCycleEndpoints();
         app.MapProposalEndpoints();
         app.MapCycleDocumentEndpoints();
         app.MapAccountEndpoints();
         app.MapExportEndpoints();
         app.MapPacketEndpoints();
-        app.MapRazorComponents<App>().AddInteractiveServerRenderMode();
+        // Our own Content-Security-Policy (Operations/SecurityHeaders) already forbids framing; Blazor's would be a second header.
+        app.MapRazorComponents<App>().AddInteractiveServerRenderMode(options => options.ContentSecurityFrameAncestorsPolicy = null);
         return app;
     }
 }

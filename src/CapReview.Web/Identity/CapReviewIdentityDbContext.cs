@@ -1,13 +1,14 @@
+using Microsoft.AspNetCore.DataProtection.EntityFrameworkCore;
 using Microsoft.AspNetCore.Identity.EntityFrameworkCore;
 using Microsoft.EntityFrameworkCore;
 
 namespace CapReview.Web.Identity;
 
 /// <summary>
-/// Users, roles and API tokens, in the same database as the domain but in a context and migration history of their
+/// Users, roles, API tokens and the data-protection keys, in the same database as the domain but in a context and migration history of their
 /// own, so that the domain project knows users only by their ids.
 /// </summary>
-public class CapReviewIdentityDbContext : IdentityDbContext<CapReviewUser>
+public class CapReviewIdentityDbContext : IdentityDbContext<CapReviewUser>, IDataProtectionKeyContext
 {
     public CapReviewIdentityDbContext(DbContextOptions<CapReviewIdentityDbContext> options)
         : base(options)
@@ -23,6 +24,9 @@ public class CapReviewIdentityDbContext : IdentityDbContext<CapReviewUser>
     public const string MigrationsHistoryTable = "__identity_migrations_history";
 
     public DbSet<ApiToken> ApiTokens => Set<ApiToken>();
+
+    /// <summary>The keys that protect sign-in cookies and antiforgery tokens, shared by every app server of the installation.</summary>
+    public DbSet<DataProtectionKey> DataProtectionKeys => Set<DataProtectionKey>();
 
     protected override void OnModelCreating(ModelBuilder builder)
     {

@@ -1,6 +1,7 @@
 using CapReview.Reviews.Storage;
 using CapReview.Web.Hosting;
 using Microsoft.AspNetCore.Authentication;
+using Microsoft.AspNetCore.DataProtection;
 using Microsoft.AspNetCore.Identity;
 using Microsoft.EntityFrameworkCore;
 
@@ -32,6 +33,8 @@ public static class IdentityRegistration
         {
             services.AddDbContextFactory<CapReviewIdentityDbContext>(options => database.Apply(options, CapReviewIdentityDbContext.MigrationsHistoryTable));
         }
+        // Every app server reads the same keys, so a cookie or form made by one is accepted by the others.
+        services.AddDataProtection().SetApplicationName("CapReview").PersistKeysToDbContext<CapReviewIdentityDbContext>();
         services.AddIdentityCore<CapReviewUser>(options =>
             {
                 options.User.RequireUniqueEmail = true;

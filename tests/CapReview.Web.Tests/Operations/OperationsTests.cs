@@ -1,0 +1,107 @@
+using System.Net;
+using System.Text.Json;
+using CapReview.Reviews.Storage;
+using CapReview.Web.Operations;
+using CapReview.Web.Tests.Api;
+using Microsoft.AspNetCore.Hosting;
+using Microsoft.AspNetCore.Mvc.Testing;
+using Microsoft.EntityFrameworkCore;
+using Microsoft.Extensions.Diagnostics.HealthChecks;
+
+namespace CapReview.Web.Tests.Operations;
+
+public sealed class OperationsTests(ApiFactory factory) : IClassFixture<ApiFactory>
+{
+    [Fact]
+    public async Task Liveness_and_readiness_answer_anonymous_probes_with_the_database_checked()
+    {
+        using HttpClient client = factory.CreateClient();
+        using var live = await client.GetAsync("/health/live");
+        Assert.Equal(HttpStatusCode.OK, live.StatusCode);
+        using var ready = await client.GetAsync("/health/ready");
+        Assert.Equal(HttpStatusCode.OK, ready.StatusCode);
+        using JsonDocument body = JsonDocument.Parse(await ready.Content.ReadAsStringAsync());
+        Assert.Equal("Healthy", body.RootElement.GetProperty("status").GetString());
+        Assert.Equal("Healthy", body.RootElement.GetProperty("checks").GetProperty("database").GetProperty("status").GetString());
+    }
+
+    private sealed class Unreachable : IDbContextFactory<CapReviewDbContext>
+    {
+        public CapReviewDbContext CreateDbContext() => new(new DbContextOptionsBuilder<CapReviewDbContext>()
+            .UseNpgsql("Host=127.0.0.1;Port=1;Database=none;Username=none;Password=none;Timeout=2").Options);
+    }
+
+    [Fact]
+    public async Task Readiness_fails_with_a_plain_reason_when_the_database_cannot_be_reached()
+    {
+        var result = await new DatabaseHealthCheck(new Unreachable()).CheckHealthAsync(new HealthCheckContext());
+        Assert.Equal(HealthStatus.Unhealthy, result.Status);
+        // CanConnect answers no rather than throwing; either way the reason names no server or credential.
+        Assert.Equal("The database does not answer.", result.Description);
+    }
+
+    [Theory]
+    [InlineData("/signin")]
+    [InlineData("/api/v1/cycles")]
+    [InlineData("/health/ready")]
+    public async Task Every_answer_carries_the_security_headers_and_its_request_id(string path)
+    {
+        using HttpClient client = factory.CreateClient(new WebApplicationFactoryClientOptions { AllowAutoRedirect = false });
+        using var response = await client.GetAsync(path);
+        Assert.Equal(SecurityHeaders.ContentSecurityPolicy, response.Headers.GetValues("Content-Security-Policy").Single());
+        Assert.Contains("frame-ancestors 'none'", SecurityHeaders.ContentSecurityPolicy, StringComparison.Ordinal);
+        Assert.Equal("nosniff", response.Headers.GetValues("X-Content-Type-Options").Single());
+        Assert.Equal("DENY", response.Headers.GetValues("X-Frame-Options").Single());
+        Assert.Equal("same-origin", response.Headers.GetValues("Referrer-Policy").Single());
+        Assert.Matches("^[0-9a-f]{32}$", response.Headers.GetValues("X-Request-Id").Single());
+    }
+
+    [Fact]
+    public async Task Sign_in_posts_beyond_the_limit_from_one_address_are_refused_with_429()
+    {
+        using var limited = factory.WithWebHostBuilder(builder => builder.UseSetting("RateLimits:SignInPerMinute", "10"));
+        using HttpClient client = limited.CreateClient(new WebApplicationFactoryClientOptions { AllowAutoRedirect = false });
+        var statuses = new List<HttpStatusCode>();
+        for (int k = 0; k < 12; k++)
+        {
+            using var form = new FormUrlEncodedContent(new Dictionary<string, string> { ["Input.Email"] = "nobody@example.test", ["Input.Password"] = "wrong-password-1" });
+            using var response = await client.PostAsync("/signin", form);
+            statuses.Add(response.StatusCode);
+            if (response.StatusCode == HttpStatusCode.TooManyRequests)
+            {
+                Assert.True(int.Parse(response.Headers.GetValues("Retry-After").Single(), System.Globalization.CultureInfo.InvariantCulture) > 0);
+            }
+        }
+        // Ten a minute (the default): the first ten reach the form (refused there for want of its token), the rest are not read.
+        Assert.All(statuses.Take(10), s => Assert.NotEqual(HttpStatusCode.TooManyRequests, s));
+        Assert.All(statuses.Skip(10), s => Assert.Equal(HttpStatusCode.TooManyRequests, s));
+    }
+
+    [Fact]
+    public async Task A_sign_in_made_by_one_app_server_is_accepted_by_another_on_the_same_database()
+    {
+        using (var scope = Microsoft.Extensions.DependencyInjection.ServiceProviderServiceExtensions.CreateScope(factory.Services))
+        {
+            var identity = Microsoft.Extensions.DependencyInjection.ServiceProviderServiceExtensions.GetRequiredService<CapReview.Web.Identity.IdentityStore>(scope.ServiceProvider);
+            await identity.CreateUserAsync("two.servers@tarnby.example", "Two Servers", "two-servers-2027", [CapReview.Web.Identity.RoleNames.ProjectLead]);
+        }
+        using HttpClient first = factory.CreateClient(new WebApplicationFactoryClientOptions { AllowAutoRedirect = false });
+        string form = await first.GetStringAsync("/signin");
+        string token = System.Text.RegularExpressions.Regex.Match(form, "name=\"__RequestVerificationToken\" value=\"([^\"]+)\"").Groups[1].Value;
+        using var content = new FormUrlEncodedContent(new Dictionary<string, string>
+        {
+            ["__RequestVerificationToken"] = token, ["_handler"] = "signin", ["Input.Email"] = "two.servers@tarnby.example", ["Input.Password"] = "two-servers-2027",
+        });
+        using var signedIn = await first.PostAsync("/signin", content);
+        Assert.Equal(HttpStatusCode.Redirect, signedIn.StatusCode);
+        string cookie = signedIn.Headers.GetValues("Set-Cookie").Single(c => c.StartsWith("capreview=", StringComparison.Ordinal)).Split(';')[0];
+
+        // A second app instance: its own host and services, the same database and so the same keys.
+        using var second = factory.WithWebHostBuilder(_ => { });
+        using HttpClient other = second.CreateClient(new WebApplicationFactoryClientOptions { AllowAutoRedirect = false, HandleCookies = false });
+        using var request = new HttpRequestMessage(HttpMethod.Get, "/proposals");
+        request.Headers.Add("Cookie", cookie);
+        using var page = await other.SendAsync(request);
+        Assert.Equal(HttpStatusCode.OK, page.StatusCode);
+    }
+}
