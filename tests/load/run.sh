@@ -1,0 +1,27 @@
+#!/usr/bin/env bash
+# A bounded load test on loopback: the app (Release, production settings, a fresh SQLite database, or PostgreSQL
+# when CAPREVIEW_LOAD_POSTGRES gives a connection string) and wrk from Debian (apt-get install wrk), 50 connections
+# for 60 s against POST /api/v1/evaluations. Target: no errors, p99 under 100 ms. Figures go to docs/benchmarks.md.
+#   tests/load/run.sh [connections] [seconds]
+set -euo pipefail
+cd "$(dirname "$0")/../.."
+connections="${1:-50}" seconds="${2:-60}" port=5099
+work="$(mktemp -d)"
+trap 'kill "${app:-0}" 2>/dev/null || true; rm -rf "$work"' EXIT
+
+dotnet publish src/CapReview.Web -c Release -o "$work/app" --nologo -v quiet
+export ASPNETCORE_ENVIRONMENT=Production Demo__Enabled=false AllowedHosts='*' RateLimits__ApiPerMinute=10000000
+if [ -n "${CAPREVIEW_LOAD_POSTGRES:-}" ]; then
+  export Storage__Provider=PostgreSql ConnectionStrings__CapReview="$CAPREVIEW_LOAD_POSTGRES"
+else
+  export ConnectionStrings__CapReview="Data Source=$work/load.db"
+fi
+( cd "$work/app" && dotnet CapReview.Web.dll create-admin --email load@example.test --name "Load Test" --password load-test-2027 >/dev/null )
+token="$(cd "$work/app" && dotnet CapReview.Web.dll issue-token --email load@example.test --token-name load | grep -o 'crv_[A-Za-z0-9_-]*' | head -n 1)"
+( cd "$work/app" && exec dotnet CapReview.Web.dll --urls "http://127.0.0.1:$port" >"$work/app.log" 2>&1 ) & app=$!
+for _ in $(seq 1 60); do curl -fs "http://127.0.0.1:$port/health/ready" >/dev/null && break; sleep 1; done
+
+# Warm-up (JIT, connection pools), then the measured run.
+CAPREVIEW_TOKEN="$token" wrk -t2 -c"$connections" -d10s -s tests/load/evaluation.lua "http://127.0.0.1:$port/api/v1/evaluations" >/dev/null
+CAPREVIEW_TOKEN="$token" wrk -t2 -c"$connections" -d"${seconds}s" --latency -s tests/load/evaluation.lua "http://127.0.0.1:$port/api/v1/evaluations"
+echo "app resident memory: $(ps -o rss= -p "$(pgrep -P "$app" -f CapReview.Web.dll || echo "$app")" | awk '{printf "%.0f MB", $1/1024}')"
