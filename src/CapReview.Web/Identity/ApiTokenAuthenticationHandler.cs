@@ -5,14 +5,15 @@ using Microsoft.Extensions.Options;
 
 namespace CapReview.Web.Identity;
 
-/// <summary>Authenticates <c>Authorization: Bearer crv_…</c> with a personal API token.</summary>
+/// <summary>Authenticates <c>Authorization: Bearer crv_…</c> with a personal API token (its user remembered briefly: <see cref="ApiTokenCache"/>).</summary>
 public sealed class ApiTokenAuthenticationHandler(
     IOptionsMonitor<AuthenticationSchemeOptions> options,
     ILoggerFactory logger,
     UrlEncoder encoder,
     ApiTokenService tokens,
     UserManager<CapReviewUser> users,
-    IUserClaimsPrincipalFactory<CapReviewUser> principals)
+    IUserClaimsPrincipalFactory<CapReviewUser> principals,
+    ApiTokenCache cache)
     : AuthenticationHandler<AuthenticationSchemeOptions>(options, logger, encoder)
 {
     public const string SchemeName = "ApiToken";
@@ -24,14 +25,20 @@ public sealed class ApiTokenAuthenticationHandler(
         {
             return AuthenticateResult.NoResult();
         }
-        string? userId = await tokens.FindUserAsync(header["Bearer ".Length..].Trim(), Context.RequestAborted).ConfigureAwait(false);
-        CapReviewUser? user = userId is null ? null : await users.FindByIdAsync(userId).ConfigureAwait(false);
-        if (user is null || (user.LockoutEnd is { } end && end > DateTimeOffset.UtcNow))
+        string token = header["Bearer ".Length..].Trim();
+        string key = ApiTokenService.Hash(token);
+        if (!cache.TryGet(key, out System.Security.Claims.ClaimsPrincipal? principal))
         {
-            return AuthenticateResult.Fail("The API token is not valid.");
+            string? userId = await tokens.FindUserAsync(token, Context.RequestAborted).ConfigureAwait(false);
+            CapReviewUser? user = userId is null ? null : await users.FindByIdAsync(userId).ConfigureAwait(false);
+            principal = user is null || (user.LockoutEnd is { } end && end > DateTimeOffset.UtcNow)
+                ? null
+                : await principals.CreateAsync(user).ConfigureAwait(false);
+            cache.Remember(key, principal);
         }
-        var principal = await principals.CreateAsync(user).ConfigureAwait(false);
-        return AuthenticateResult.Success(new AuthenticationTicket(principal, SchemeName));
+        return principal is null
+            ? AuthenticateResult.Fail("The API token is not valid.")
+            : AuthenticateResult.Success(new AuthenticationTicket(principal.Clone(), SchemeName));
     }
 
     /// <summary>Challenges only a request that presented a token; otherwise the sign-in cookie's rules answer.</summary>

@@ -78,6 +78,7 @@ public static class IdentityRegistration
                 .RequireAuthenticatedUser());
         services.AddCascadingAuthenticationState();
         services.AddSingleton<ApiTokenService>();
+        services.AddSingleton<ApiTokenCache>();
         services.AddSingleton<CapReview.Reviews.Interchange.IPeopleDirectory, PeopleDirectory>();
         services.AddScoped<IdentityStore>();
         services.AddSingleton<UserAdministration>();
