@@ -4,12 +4,12 @@ WebApplicationBuilder builder = WebApplication.CreateBuilder(args);
 builder.AddCapReview();
 
 WebApplication app = builder.Build();
-await app.InitializeDatabaseAsync();
 if (CommandLine.Handles(args))
 {
+    await app.InitializeDatabaseAsync();
     return await CommandLine.RunAsync(app, args);
 }
-await app.EnsureDemoAsync();
+await app.Services.GetRequiredService<CapReview.Web.Operations.DatabasePreparation>().StartAsync(app);
 app.UseCapReview();
 await app.RunAsync();
 return 0;

@@ -50,6 +50,7 @@ public static partial class CapReviewHosting
         services.AddSingleton(sp => new DisplayFormat(sp.GetRequiredService<IOptions<OrganisationOptions>>().Value));
         services.AddSingleton<Components.PageMemory>();
         services.AddCapReviewHealth();
+        services.AddSingleton<DatabasePreparation>();
         services.AddCapReviewRateLimits(builder.Configuration);
         services.Configure<ForwardedHeadersOptions>(options =>
         {
@@ -104,6 +105,7 @@ public static partial class CapReviewHosting
         app.UseForwardedHeaders();
         app.UseRequestIds();
         app.UseSecurityHeaders();
+        app.UseDatabaseGate();
         if (!app.Environment.IsDevelopment())
         {
             app.UseExceptionHandler("/error", createScopeForErrors: true);

@@ -5,10 +5,14 @@ using Microsoft.Extensions.Diagnostics.HealthChecks;
 namespace CapReview.Web.Operations;
 
 /// <summary>Ready when the domain database answers and holds every migration this build knows; the reason otherwise.</summary>
-public sealed class DatabaseHealthCheck(IDbContextFactory<CapReviewDbContext> contexts) : IHealthCheck
+public sealed class DatabaseHealthCheck(IDbContextFactory<CapReviewDbContext> contexts, DatabasePreparation? preparation = null) : IHealthCheck
 {
     public async Task<HealthCheckResult> CheckHealthAsync(HealthCheckContext context, CancellationToken cancellationToken = default)
     {
+        if (preparation is { Ready: false })
+        {
+            return HealthCheckResult.Unhealthy("The database has not been prepared yet: it could not be reached at start.");
+        }
         try
         {
             await using CapReviewDbContext db = await contexts.CreateDbContextAsync(cancellationToken).ConfigureAwait(false);
