@@ -26,7 +26,7 @@ public static class EvaluationEndpoints
         return routes;
     }
 
-    private static async Task<IResult> EvaluateAsync(HttpRequest request, CancellationToken cancellationToken)
+    private static async Task<IResult> EvaluateAsync(HttpRequest request, Operations.CapReviewMetrics metrics, CancellationToken cancellationToken)
     {
         if (request.ContentLength > MaxRequestBytes)
         {
@@ -49,7 +49,9 @@ public static class EvaluationEndpoints
         {
             return Problem("body", "Send a model object.");
         }
+        long started = System.Diagnostics.Stopwatch.GetTimestamp();
         Outcome<Evaluation> outcome = Evaluator.Evaluate(spec);
+        metrics.Evaluated(System.Diagnostics.Stopwatch.GetElapsedTime(started));
         if (!outcome.IsValid)
         {
             return Results.ValidationProblem(

@@ -51,6 +51,8 @@ public static partial class CapReviewHosting
         services.AddSingleton<Components.PageMemory>();
         services.AddCapReviewHealth();
         services.AddSingleton<DatabasePreparation>();
+        services.AddSingleton<CapReviewMetrics>();
+        services.AddScoped<Microsoft.AspNetCore.Components.Server.Circuits.CircuitHandler, CircuitCounter>();
         services.AddCapReviewRateLimits(builder.Configuration);
         services.Configure<ForwardedHeadersOptions>(options =>
         {

@@ -104,4 +104,28 @@ public sealed class OperationsTests(ApiFactory factory) : IClassFixture<ApiFacto
         using var page = await other.SendAsync(request);
         Assert.Equal(HttpStatusCode.OK, page.StatusCode);
     }
+
+    [Fact]
+    public async Task Each_evaluation_is_timed_on_the_CapReview_meter()
+    {
+        var recorded = new List<double>();
+        using var listener = new System.Diagnostics.Metrics.MeterListener();
+        listener.InstrumentPublished = (instrument, l) =>
+        {
+            if (instrument.Meter.Name == CapReviewMetrics.MeterName && instrument.Name == "capreview.evaluation.duration")
+            {
+                l.EnableMeasurementEvents(instrument);
+            }
+        };
+        listener.SetMeasurementEventCallback<double>((_, value, _, _) => { lock (recorded) { recorded.Add(value); } });
+        listener.Start();
+        using HttpClient client = await factory.CreateAuthenticatedClientAsync();
+        using var content = new StringContent("""{"horizon":2,"rate":{"value":0.1},"elements":[{"type":"single","label":"a","category":"capital","period":0,"amount":-100},{"type":"uniform","label":"b","category":"revenue","first":1,"last":2,"amount":60}]}""", System.Text.Encoding.UTF8, "application/json");
+        using var response = await client.PostAsync("/api/v1/evaluations", content);
+        Assert.Equal(HttpStatusCode.OK, response.StatusCode);
+        lock (recorded)
+        {
+            Assert.Contains(recorded, v => v > 0 && v < 10_000);
+        }
+    }
 }
