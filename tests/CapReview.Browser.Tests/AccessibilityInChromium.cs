@@ -145,19 +145,17 @@ public sealed class AccessibilityInChromium(BrowserFixture browser) : IClassFixt
 
     private async Task<Dictionary<string, int>> DemoIdsAsync()
     {
+        var (open, decided) = await browser.DemoCyclesAsync();
         using var scope = browser.App.Services.CreateScope();
-        await scope.ServiceProvider.GetRequiredService<DemoScenario>().EnsureAsync(CancellationToken.None);
-        var cycles = await scope.ServiceProvider.GetRequiredService<CapReview.Reviews.Cycles.CycleService>().ListAsync(CancellationToken.None);
         var oskar = await scope.ServiceProvider.GetRequiredService<IdentityStore>().FindByEmailAsync("oskar.lind@tarnby.example");
         var own = await scope.ServiceProvider.GetRequiredService<CapReview.Reviews.Proposals.ProposalService>()
             .ListOwnAsync(CapReview.Reviews.Access.Actor.Of(oskar!.Id, "Oskar Lind", CapReview.Reviews.Access.Role.ProjectLead), CancellationToken.None);
         var admin = CapReview.Reviews.Access.Actor.Of("audit", "Audit", CapReview.Reviews.Access.Role.Administrator);
-        int open = cycles.Single(c => c.Status == CapReview.Reviews.Cycles.CycleStatus.Open).Id;
         var inOpen = await scope.ServiceProvider.GetRequiredService<CapReview.Reviews.Proposals.ProposalService>().ListInCycleAsync(admin, open, CancellationToken.None);
         return new()
         {
             ["open"] = open,
-            ["decided"] = cycles.Single(c => c.Status == CapReview.Reviews.Cycles.CycleStatus.Decided).Id,
+            ["decided"] = decided,
             ["draft"] = own.Single(p => p.Title == "Forklift fleet electrification").Id,
             ["replacement"] = own.Where(p => p.Latest.Assumptions.Replacement is not null).Select(p => p.Id).DefaultIfEmpty(own[0].Id).First(),
             ["solar"] = inOpen.First(p => p.Latest.Assumptions.Risk is not null).Id,

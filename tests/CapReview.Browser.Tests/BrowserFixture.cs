@@ -1,3 +1,4 @@
+using Microsoft.Extensions.DependencyInjection;
 using Microsoft.Playwright;
 
 namespace CapReview.Browser.Tests;
@@ -52,6 +53,18 @@ public sealed class BrowserFixture : IAsyncLifetime
         {
             // Chromium may still be writing its profile as it exits.
         }
+    }
+
+    /// <summary>
+    /// The demo scenario in this app's database, and its open and decided cycles. The demo seeds only an installation
+    /// without users, so call it before signing anyone in.
+    /// </summary>
+    public async Task<(int Open, int Decided)> DemoCyclesAsync()
+    {
+        using var scope = App.Services.CreateScope();
+        await scope.ServiceProvider.GetRequiredService<CapReview.Web.Demo.DemoScenario>().EnsureAsync(CancellationToken.None);
+        var cycles = await scope.ServiceProvider.GetRequiredService<CapReview.Reviews.Cycles.CycleService>().ListAsync(CancellationToken.None);
+        return (cycles.Single(c => c.Status == CapReview.Reviews.Cycles.CycleStatus.Open).Id, cycles.Single(c => c.Status == CapReview.Reviews.Cycles.CycleStatus.Decided).Id);
     }
 
     /// <summary>A fresh browser context (its own cookies) signed in as the user.</summary>

@@ -52,18 +52,10 @@ public sealed class GuideScreenshots(BrowserFixture browser) : IClassFixture<Bro
         await page.WaitForLoadStateAsync(LoadState.NetworkIdle);
     }
 
-    private async Task<(int Open, int Decided)> CyclesAsync()
-    {
-        using var scope = browser.App.Services.CreateScope();
-        await scope.ServiceProvider.GetRequiredService<DemoScenario>().EnsureAsync(CancellationToken.None);
-        var cycles = await scope.ServiceProvider.GetRequiredService<CapReview.Reviews.Cycles.CycleService>().ListAsync(CancellationToken.None);
-        return (cycles.Single(c => c.Status == CapReview.Reviews.Cycles.CycleStatus.Open).Id, cycles.Single(c => c.Status == CapReview.Reviews.Cycles.CycleStatus.Decided).Id);
-    }
-
     [Fact]
     public async Task The_guide_walks_through_the_demo_for_every_role()
     {
-        var (open, decided) = await CyclesAsync();
+        var (open, decided) = await browser.DemoCyclesAsync();
 
         // Project lead: the list, a draft in the editor, an import, the tax panel.
         IPage lead = await AsAsync("oskar.lind@tarnby.example", "proposals");

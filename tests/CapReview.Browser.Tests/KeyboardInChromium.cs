@@ -27,11 +27,7 @@ public sealed class KeyboardInChromium(BrowserFixture browser) : IClassFixture<B
     [Fact]
     public async Task A_lead_builds_a_model_and_a_board_member_sorts_the_ranking_without_a_mouse()
     {
-        // The demo seeds only an installation without users, so it comes first.
-        using (var scope = browser.App.Services.CreateScope())
-        {
-            await scope.ServiceProvider.GetRequiredService<DemoScenario>().EnsureAsync(CancellationToken.None);
-        }
+        var (open, _) = await browser.DemoCyclesAsync();
         IPage page = await browser.SignedInPageAsync("keyboard.lead@example.test", "Kim Keys", RoleNames.ProjectLead);
         await page.GotoAsync(browser.App.BaseAddress + "evaluate");
         await page.Locator("[data-testid=interactive]").WaitForAsync(new() { State = WaitForSelectorState.Attached });
@@ -43,8 +39,6 @@ public sealed class KeyboardInChromium(BrowserFixture browser) : IClassFixture<B
         await page.Keyboard.PressAsync("Space");
         await Assertions.Expect(page.GetByTestId("element-row")).ToHaveCountAsync(rows);
 
-        int open = (await browser.App.Services.GetRequiredService<CapReview.Reviews.Cycles.CycleService>().ListAsync(CancellationToken.None))
-            .Single(c => c.Status == CapReview.Reviews.Cycles.CycleStatus.Open).Id;
         IPage board = await browser.SignedInPageAsync("tove.berg@tarnby.example", "Tove Berg", RoleNames.Reviewer, DemoScenario.Password);
         await board.GotoAsync(browser.App.BaseAddress + $"cycles/{open}/ranking");
         await board.Locator("[data-testid=interactive]").WaitForAsync(new() { State = WaitForSelectorState.Attached });

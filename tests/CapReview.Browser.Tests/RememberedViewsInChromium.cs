@@ -11,12 +11,7 @@ public sealed class RememberedViewsInChromium(BrowserFixture browser) : IClassFi
     [Fact]
     public async Task A_board_member_finds_their_cycle_filters_and_what_if_again_on_the_next_visit()
     {
-        using (var scope = browser.App.Services.CreateScope())
-        {
-            await scope.ServiceProvider.GetRequiredService<DemoScenario>().EnsureAsync(CancellationToken.None);
-        }
-        int open = (await browser.App.Services.GetRequiredService<CapReview.Reviews.Cycles.CycleService>().ListAsync(CancellationToken.None))
-            .Single(c => c.Status == CapReview.Reviews.Cycles.CycleStatus.Open).Id;
+        var (open, _) = await browser.DemoCyclesAsync();
         IPage page = await browser.SignedInPageAsync("aino.salo@tarnby.example", "Aino Salo", RoleNames.Reviewer, DemoScenario.Password);
         await page.GotoAsync(browser.App.BaseAddress + $"cycles/{open}/ranking");
         await page.Locator("[data-testid=interactive]").WaitForAsync(new() { State = WaitForSelectorState.Attached });

@@ -6,13 +6,9 @@
 set -euo pipefail
 cd "$(dirname "$0")/../.."
 connections="${1:-50}" seconds="${2:-60}" port=5098
-work="$(mktemp -d)"
-trap 'kill "${app:-0}" 2>/dev/null || true; rm -rf "$work"' EXIT
-
-dotnet publish src/CapReview.Web -c Release -o "$work/app" --nologo -v quiet
+source tests/load/app.sh
 export ASPNETCORE_ENVIRONMENT=Production Demo__Enabled=true AllowedHosts='*' ConnectionStrings__CapReview="Data Source=$work/load.db"
-( cd "$work/app" && exec dotnet CapReview.Web.dll --urls "http://127.0.0.1:$port" >"$work/app.log" 2>&1 ) & app=$!
-for _ in $(seq 1 60); do curl -fs "http://127.0.0.1:$port/health/ready" >/dev/null && break; sleep 1; done
+start_app "$port"
 
 jar="$work/cookies"
 token="$(curl -fs -c "$jar" "http://127.0.0.1:$port/signin" | grep -o 'name="__RequestVerificationToken" value="[^"]*"' | head -n 1 | sed 's/.*value="//; s/"$//')"

@@ -6,10 +6,7 @@
 set -euo pipefail
 cd "$(dirname "$0")/../.."
 connections="${1:-50}" seconds="${2:-60}" port=5099
-work="$(mktemp -d)"
-trap 'kill "${app:-0}" 2>/dev/null || true; rm -rf "$work"' EXIT
-
-dotnet publish src/CapReview.Web -c Release -o "$work/app" --nologo -v quiet
+source tests/load/app.sh
 export ASPNETCORE_ENVIRONMENT=Production Demo__Enabled=false AllowedHosts='*' RateLimits__ApiPerMinute=10000000
 if [ -n "${CAPREVIEW_LOAD_POSTGRES:-}" ]; then
   export Storage__Provider=PostgreSql ConnectionStrings__CapReview="$CAPREVIEW_LOAD_POSTGRES"
@@ -18,8 +15,7 @@ else
 fi
 ( cd "$work/app" && dotnet CapReview.Web.dll create-admin --email load@example.test --name "Load Test" --password load-test-2027 >/dev/null )
 token="$(cd "$work/app" && dotnet CapReview.Web.dll issue-token --email load@example.test --token-name load | grep -o 'crv_[A-Za-z0-9_-]*' | head -n 1)"
-( cd "$work/app" && exec dotnet CapReview.Web.dll --urls "http://127.0.0.1:$port" >"$work/app.log" 2>&1 ) & app=$!
-for _ in $(seq 1 60); do curl -fs "http://127.0.0.1:$port/health/ready" >/dev/null && break; sleep 1; done
+start_app "$port"
 
 # Warm-up (JIT, connection pools), then the measured run.
 CAPREVIEW_TOKEN="$token" wrk -t2 -c"$connections" -d10s -s tests/load/evaluation.lua "http://127.0.0.1:$port/api/v1/evaluations" >/dev/null

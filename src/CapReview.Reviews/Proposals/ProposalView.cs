@@ -16,6 +16,10 @@ public sealed record ProposalView(
 {
     public VersionView Latest => Versions[^1];
 
+    /// <summary>The version with this number; a missing one is not found, like a proposal the caller may not see.</summary>
+    public VersionView Version(int number) =>
+        Versions.FirstOrDefault(v => v.Number == number) ?? throw new Common.NotFoundException($"{Reference} has no version {number}.");
+
     internal static ProposalView Of(Proposal p) => new(
         p.Id, p.Reference, p.OwnerId, p.Title, p.Description, p.Category, p.RiskClass, p.Status, p.BudgetCycleId, p.Revision,
         [.. p.Versions.OrderBy(v => v.Number).Select(VersionView.Of)]);

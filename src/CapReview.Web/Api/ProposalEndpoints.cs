@@ -70,7 +70,7 @@ public static class ProposalEndpoints
         ApiProblems.RunAsync(async () =>
         {
             ProposalView proposal = await proposals.GetAsync(Caller(context), id, cancellationToken).ConfigureAwait(false);
-            VersionView version = proposal.Versions.FirstOrDefault(v => v.Number == number) ?? throw new NotFoundException($"{proposal.Reference} has no version {number}.");
+            VersionView version = proposal.Version(number);
             MarrPolicyVersion policy = await BoardPolicy.ForAsync(proposal, cycles, policies, cancellationToken).ConfigureAwait(false);
             var evaluation = VersionComparison.Evaluate(version.Assumptions, policy, proposal.RiskClass);
             return Results.Ok(new VersionResponse(proposal.Id, proposal.Reference, version.Number, version.CreatedAt, version.Reason, version.IsFrozen, version.FrozenAt,

@@ -80,8 +80,7 @@ public static class ExportEndpoints
         int id, int number, HttpContext context, ProposalService proposals, CycleService cycles, MarrPolicyService policies, DisplayFormat display, CancellationToken cancellationToken)
     {
         ProposalView proposal = await proposals.GetAsync(ActorFactory.From(context.User)!, id, cancellationToken).ConfigureAwait(false);
-        VersionView version = proposal.Versions.FirstOrDefault(v => v.Number == number)
-            ?? throw new NotFoundException($"{proposal.Reference} has no version {number}.");
+        VersionView version = proposal.Version(number);
         MarrPolicyVersion policy = await BoardPolicy.ForAsync(proposal, cycles, policies, cancellationToken).ConfigureAwait(false);
         return (proposal, VersionExport.Tables(proposal, version, policy, display.CurrencyCode));
     }

@@ -64,7 +64,7 @@ public static class ElementRowsShape
         foreach (SheetRow row in grid.Rows.Skip(headerIndex + 1).Where(r => !r.IsBlank))
         {
             ElementKind? type = read.Word<ElementKind>(row, Column("type"), Named("type"), null, Types);
-            var uses = new Func<string, bool>(field => type is ElementKind kind && Uses(kind, field));
+            var uses = new Func<string, bool>(field => type is ElementKind kind && ElementFields.Uses(kind, field));
             foreach (string field in TypeFields)
             {
                 SheetCell cell = row[Column(field)];
@@ -97,16 +97,6 @@ public static class ElementRowsShape
         }
         return reading;
     }
-
-    private static bool Uses(ElementKind kind, string field) => field switch
-    {
-        "period" => kind == ElementKind.Single,
-        "first" or "last" => kind != ElementKind.Single,
-        "every" => kind == ElementKind.Recurring,
-        "step" => kind == ElementKind.Arithmetic,
-        "growth" => kind == ElementKind.Geometric,
-        _ => true,
-    };
 
     private static string Name(SheetCell cell) => cell.Text.Trim().ToLowerInvariant();
 }

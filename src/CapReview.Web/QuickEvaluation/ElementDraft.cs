@@ -63,14 +63,7 @@ public sealed class ElementDraft
     /// <summary>A number as typed: no thousands separators, up to twelve decimals, blank when absent.</summary>
     public static string Number(double? value, System.Globalization.CultureInfo culture) => value is double v ? v.ToString("0.############", culture) : "";
 
-    public bool Uses(string field) => field switch
-    {
-        "period" => Type == ElementKind.Single,
-        "first" or "last" => Type != ElementKind.Single,
-        "every" => Type == ElementKind.Recurring,
-        "step" => Type == ElementKind.Arithmetic,
-        "growth" => Type == ElementKind.Geometric,
-        "escalation" => Money == Engine.Inflation.MoneyBasis.Constant,
-        _ => true,
-    };
+    public bool Uses(string field) => field == "escalation"
+        ? Money == Engine.Inflation.MoneyBasis.Constant
+        : ElementFields.Uses(Type, field);
 }

@@ -24,22 +24,32 @@ public sealed class ApiFactory : WebApplicationFactory<Program>
         builder.UseSetting("RateLimits:SignInPerMinute", "100000");
     }
 
-    private string? _token;
+    private AuthenticationHeaderValue? _leadToken;
 
-    /// <summary>A client that sends a personal API token of a project lead created for these tests.</summary>
+    /// <summary>A client that sends a personal API token of a project lead created for these tests, issued once per factory.</summary>
     public async Task<HttpClient> CreateAuthenticatedClientAsync()
     {
-        if (_token is null)
+        if (_leadToken is null)
         {
-            using var scope = Services.CreateScope();
-            var identity = scope.ServiceProvider.GetRequiredService<IdentityStore>();
-            var user = await identity.FindByEmailAsync("api.tests@tarnby.example")
-                ?? await identity.CreateUserAsync("api.tests@tarnby.example", "API Tests", "api-tests-2027", [RoleNames.ProjectLead]);
-            _token = await scope.ServiceProvider.GetRequiredService<ApiTokenService>().IssueAsync(user.Id, "tests", CancellationToken.None);
+            var (first, _) = await TokenClientAsync("api.tests@tarnby.example", RoleNames.ProjectLead);
+            _leadToken = first.DefaultRequestHeaders.Authorization;
+            return first;
         }
         HttpClient client = CreateClient();
-        client.DefaultRequestHeaders.Authorization = new AuthenticationHeaderValue("Bearer", _token);
+        client.DefaultRequestHeaders.Authorization = _leadToken;
         return client;
+    }
+
+    /// <summary>A client that sends a new personal API token of the user with this e-mail (created with the role when missing), and the user's id.</summary>
+    public async Task<(HttpClient Client, string UserId)> TokenClientAsync(string email, string role)
+    {
+        using var scope = Services.CreateScope();
+        var identity = scope.ServiceProvider.GetRequiredService<IdentityStore>();
+        var user = await identity.FindByEmailAsync(email) ?? await identity.CreateUserAsync(email, email, "api-tests-2027", [role]);
+        string token = await scope.ServiceProvider.GetRequiredService<ApiTokenService>().IssueAsync(user.Id, "tests", CancellationToken.None);
+        HttpClient client = CreateClient();
+        client.DefaultRequestHeaders.Authorization = new AuthenticationHeaderValue("Bearer", token);
+        return (client, user.Id);
     }
 
     protected override void Dispose(bool disposing)

@@ -1,5 +1,4 @@
 using System.Net;
-using System.Net.Http.Headers;
 using System.Text.Json;
 using CapReview.Engine.CashFlows;
 using CapReview.Engine.Rates;
@@ -16,17 +15,7 @@ namespace CapReview.Web.Tests.Api;
 
 public sealed class CycleApiTests(ApiFactory factory) : IClassFixture<ApiFactory>
 {
-    private async Task<HttpClient> FinanceClientAsync()
-    {
-        using var scope = factory.Services.CreateScope();
-        var identity = scope.ServiceProvider.GetRequiredService<IdentityStore>();
-        var user = await identity.FindByEmailAsync("api.finance@tarnby.example")
-            ?? await identity.CreateUserAsync("api.finance@tarnby.example", "API Finance", "api-finance-2027", [RoleNames.Finance]);
-        string token = await scope.ServiceProvider.GetRequiredService<ApiTokenService>().IssueAsync(user.Id, "tests", CancellationToken.None);
-        HttpClient client = factory.CreateClient();
-        client.DefaultRequestHeaders.Authorization = new AuthenticationHeaderValue("Bearer", token);
-        return client;
-    }
+    private async Task<HttpClient> FinanceClientAsync() => (await factory.TokenClientAsync("api.finance@tarnby.example", RoleNames.Finance)).Client;
 
     [Fact]
     public async Task Finance_reads_the_cycles_and_a_cycles_ranking_and_a_lead_is_refused_the_ranking()

@@ -1,5 +1,4 @@
 using System.Net;
-using System.Net.Http.Headers;
 using System.Net.Http.Json;
 using System.Text.Json;
 using CapReview.Engine.CashFlows;
@@ -17,16 +16,7 @@ namespace CapReview.Web.Tests.Api;
 
 public sealed class ProposalApiTests(ApiFactory factory) : IClassFixture<ApiFactory>
 {
-    private async Task<HttpClient> ClientAsync(string email, string role)
-    {
-        using var scope = factory.Services.CreateScope();
-        var identity = scope.ServiceProvider.GetRequiredService<IdentityStore>();
-        var user = await identity.FindByEmailAsync(email) ?? await identity.CreateUserAsync(email, email, "proposal-api-2027", [role]);
-        string token = await scope.ServiceProvider.GetRequiredService<ApiTokenService>().IssueAsync(user.Id, "tests", CancellationToken.None);
-        HttpClient client = factory.CreateClient();
-        client.DefaultRequestHeaders.Authorization = new AuthenticationHeaderValue("Bearer", token);
-        return client;
-    }
+    private async Task<HttpClient> ClientAsync(string email, string role) => (await factory.TokenClientAsync(email, role)).Client;
 
     [Fact]
     public async Task A_lead_starts_a_draft_reads_it_and_its_version_and_another_lead_finds_nothing()

@@ -79,20 +79,16 @@ public sealed class VersionExportTests(ApiFactory factory) : IClassFixture<ApiFa
     [Fact]
     public async Task The_downloads_answer_by_table_and_name_a_table_that_is_not_there()
     {
-        using var scope = factory.Services.CreateScope();
-        var user = await scope.ServiceProvider.GetRequiredService<CapReview.Web.Identity.IdentityStore>()
-            .CreateUserAsync("version.export@tarnby.example", "Version Export", "version-export-2027", [CapReview.Web.Identity.RoleNames.ProjectLead]);
-        var (proposal, _) = await DraftAsync(user.Id);
-        using HttpClient lead = factory.CreateClient();
-        string token = await scope.ServiceProvider.GetRequiredService<CapReview.Web.Identity.ApiTokenService>().IssueAsync(user.Id, "tests", CancellationToken.None);
-        lead.DefaultRequestHeaders.Authorization = new System.Net.Http.Headers.AuthenticationHeaderValue("Bearer", token);
-        using var csv = await lead.GetAsync($"/proposals/{proposal.Id}/versions/1/csv/elements");
+        var (lead, userId) = await factory.TokenClientAsync("version.export@tarnby.example", CapReview.Web.Identity.RoleNames.ProjectLead);
+        using HttpClient client = lead;
+        var (proposal, _) = await DraftAsync(userId);
+        using var csv = await client.GetAsync($"/proposals/{proposal.Id}/versions/1/csv/elements");
         Assert.Equal(System.Net.HttpStatusCode.OK, csv.StatusCode);
         Assert.Equal($"{proposal.Reference.ToLowerInvariant()}-v1-elements.csv", csv.Content.Headers.ContentDisposition!.FileNameStar ?? csv.Content.Headers.ContentDisposition.FileName);
-        using var missing = await lead.GetAsync($"/proposals/{proposal.Id}/versions/1/csv/depreciation");
+        using var missing = await client.GetAsync($"/proposals/{proposal.Id}/versions/1/csv/depreciation");
         Assert.Equal(System.Net.HttpStatusCode.NotFound, missing.StatusCode);
         Assert.Contains("summary, elements, cash-flows, discounting", await missing.Content.ReadAsStringAsync(), StringComparison.Ordinal);
-        using var noVersion = await lead.GetAsync($"/proposals/{proposal.Id}/versions/7/xlsx");
+        using var noVersion = await client.GetAsync($"/proposals/{proposal.Id}/versions/7/xlsx");
         Assert.Equal(System.Net.HttpStatusCode.NotFound, noVersion.StatusCode);
     }
 }
