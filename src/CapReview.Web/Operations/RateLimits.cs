@@ -10,7 +10,7 @@ public sealed class RateLimitOptions
     /// <summary>Sign-in posts a minute from one address; the account lockout after repeated failures comes on top.</summary>
     public int SignInPerMinute { get; set; } = 10;
 
-    /// <summary>API requests a minute from one user (or, unauthenticated, one address).</summary>
+    /// <summary>API requests a minute from one caller: one API token, one signed-in user, or (neither) one address.</summary>
     public int ApiPerMinute { get; set; } = 6_000;
 }
 
@@ -39,7 +39,12 @@ public static class RateLimits
                 }
                 if (context.Request.Path.StartsWithSegments("/api"))
                 {
-                    string caller = context.User.Identity?.IsAuthenticated == true ? "user:" + context.User.Identity.Name : "address:" + address;
+                    // A token caller is known by its token (authentication of tokens happens later, at the endpoint);
+                    // a browser by its signed-in user; anyone else by address.
+                    string? header = context.Request.Headers.Authorization;
+                    string caller = header is not null && header.StartsWith("Bearer ", StringComparison.OrdinalIgnoreCase)
+                        ? "token:" + Identity.ApiTokenService.Hash(header["Bearer ".Length..].Trim())
+                        : context.User.Identity?.IsAuthenticated == true ? "user:" + context.User.Identity.Name : "address:" + address;
                     return RateLimitPartition.GetTokenBucketLimiter("api:" + caller, _ => new TokenBucketRateLimiterOptions
                     {
                         TokenLimit = limits.ApiPerMinute,

@@ -128,4 +128,29 @@ public sealed class OperationsTests(ApiFactory factory) : IClassFixture<ApiFacto
             Assert.Contains(recorded, v => v > 0 && v < 10_000);
         }
     }
+
+    [Fact]
+    public async Task The_API_limit_counts_each_token_on_its_own()
+    {
+        using var limited = factory.WithWebHostBuilder(builder => builder.UseSetting("RateLimits:ApiPerMinute", "3"));
+        async Task<HttpClient> TokenClientAsync(string email)
+        {
+            var (client, _) = await factory.TokenClientAsync(email, CapReview.Web.Identity.RoleNames.Finance);
+            HttpClient other = limited.CreateClient();
+            other.DefaultRequestHeaders.Authorization = client.DefaultRequestHeaders.Authorization;
+            client.Dispose();
+            return other;
+        }
+        using HttpClient first = await TokenClientAsync("limit.first@tarnby.example");
+        using HttpClient second = await TokenClientAsync("limit.second@tarnby.example");
+        var statuses = new List<HttpStatusCode>();
+        for (int k = 0; k < 4; k++)
+        {
+            using var response = await first.GetAsync("/api/v1/cycles");
+            statuses.Add(response.StatusCode);
+        }
+        Assert.Equal([HttpStatusCode.OK, HttpStatusCode.OK, HttpStatusCode.OK, HttpStatusCode.TooManyRequests], statuses);
+        using var fresh = await second.GetAsync("/api/v1/cycles");
+        Assert.Equal(HttpStatusCode.OK, fresh.StatusCode);
+    }
 }
