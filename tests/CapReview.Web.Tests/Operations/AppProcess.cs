@@ -1,0 +1,136 @@
+using System.Diagnostics;
+using System.Net;
+using System.Net.Sockets;
+using CapReview.Reviews.Storage;
+
+namespace CapReview.Web.Tests.Operations;
+
+/// <summary>
+/// The built app as a separate process on a loopback port of its own, on a given database: for the faults a test
+/// cannot cause inside its own process, such as being killed with SIGKILL.
+/// </summary>
+public sealed class AppProcess : IAsyncDisposable
+{
+    private readonly Process _process;
+    private readonly List<string> _output = [];
+
+    private AppProcess(Process process, Uri address)
+    {
+        _process = process;
+        Address = address;
+    }
+
+    public Uri Address { get; }
+
+    /// <summary>What the app wrote to its standard output and error, for a failing test's message.</summary>
+    public string Output
+    {
+        get
+        {
+            lock (_output)
+            {
+                return string.Join('\n', _output);
+            }
+        }
+    }
+
+    /// <summary>Starts the app (Development settings, no demo data) on the database and waits until it is ready.</summary>
+    public static async Task<AppProcess> StartAsync(DatabaseSettings database)
+    {
+        ArgumentNullException.ThrowIfNull(database);
+        Uri address = new($"http://127.0.0.1:{FreePort()}");
+        var start = new ProcessStartInfo("dotnet")
+        {
+            WorkingDirectory = AppContext.BaseDirectory,
+            RedirectStandardOutput = true,
+            RedirectStandardError = true,
+            UseShellExecute = false,
+        };
+        start.ArgumentList.Add(Path.Combine(AppContext.BaseDirectory, "CapReview.Web.dll"));
+        start.ArgumentList.Add("--contentRoot");
+        start.ArgumentList.Add(WebProjectFolder());
+        start.ArgumentList.Add("--urls");
+        start.ArgumentList.Add(address.ToString());
+        start.Environment["ASPNETCORE_ENVIRONMENT"] = "Development";
+        start.Environment["Storage__Provider"] = database.Provider.ToString();
+        start.Environment["ConnectionStrings__CapReview"] = database.ConnectionString;
+        start.Environment["Demo__Enabled"] = "false";
+        start.Environment["RateLimits__ApiPerMinute"] = "1000000";
+        var app = new AppProcess(Process.Start(start) ?? throw new InvalidOperationException("dotnet did not start."), address);
+        app._process.OutputDataReceived += app.Keep;
+        app._process.ErrorDataReceived += app.Keep;
+        app._process.BeginOutputReadLine();
+        app._process.BeginErrorReadLine();
+
+        using var probe = new HttpClient { BaseAddress = address, Timeout = TimeSpan.FromSeconds(5) };
+        for (int k = 0; k < 120; k++)
+        {
+            if (app._process.HasExited)
+            {
+                break;
+            }
+            try
+            {
+                using var ready = await probe.GetAsync(new Uri("/health/ready", UriKind.Relative));
+                if (ready.StatusCode == HttpStatusCode.OK)
+                {
+                    return app;
+                }
+            }
+            catch (HttpRequestException)
+            {
+                // Not listening yet.
+            }
+            await Task.Delay(250);
+        }
+        string output = app.Output;
+        await app.DisposeAsync();
+        throw new InvalidOperationException("The app did not become ready. It wrote:\n" + output);
+    }
+
+    /// <summary>Ends the process at once with SIGKILL: no shutdown, no flushing, no finally blocks.</summary>
+    public async Task KillAsync()
+    {
+        if (!_process.HasExited)
+        {
+            _process.Kill(entireProcessTree: false);
+        }
+        await _process.WaitForExitAsync();
+    }
+
+    public async ValueTask DisposeAsync()
+    {
+        await KillAsync();
+        _process.Dispose();
+    }
+
+    private void Keep(object sender, DataReceivedEventArgs e)
+    {
+        if (e.Data is not null)
+        {
+            lock (_output)
+            {
+                _output.Add(e.Data);
+            }
+        }
+    }
+
+    private static int FreePort()
+    {
+        using var listener = new TcpListener(IPAddress.Loopback, 0);
+        listener.Start();
+        return ((IPEndPoint)listener.LocalEndpoint).Port;
+    }
+
+    private static string WebProjectFolder()
+    {
+        for (var folder = new DirectoryInfo(AppContext.BaseDirectory); folder is not null; folder = folder.Parent)
+        {
+            if (File.Exists(Path.Combine(folder.FullName, "CapReview.sln")))
+            {
+                return Path.Combine(folder.FullName, "src", "CapReview.Web");
+            }
+        }
+        throw new InvalidOperationException("The repository's root (CapReview.sln) is not above the test's folder.");
+    }
+}
