@@ -107,11 +107,12 @@ public static partial class CapReviewHosting
         app.UseForwardedHeaders();
         app.UseRequestIds();
         app.UseSecurityHeaders();
-        app.UseDatabaseGate();
         if (!app.Environment.IsDevelopment())
         {
             app.UseExceptionHandler("/error", createScopeForErrors: true);
         }
+        // Inside the exception handler: a database lost mid-run is a 503 with its own explanation, not an error page.
+        app.UseDatabaseGate();
         // Every request, and so every interactive circuit it starts, runs in the organisation's culture: the inputs
         // bound to numbers and dates read and write them as the organisation does, whatever the browser or server says.
         var culture = app.Services.GetRequiredService<Formatting.DisplayFormat>().Culture;

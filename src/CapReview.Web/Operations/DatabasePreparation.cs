@@ -55,33 +55,3 @@ public sealed partial class DatabasePreparation(ILogger<DatabasePreparation> log
     [LoggerMessage(Level = LogLevel.Error, Message = "The database cannot be used ({Kind}: {Reason}); pages answer 503 until it can. Trying again shortly.")]
     private static partial void Unavailable(ILogger logger, string kind, string reason);
 }
-
-/// <summary>While the database is not ready, every request but the probes gets 503 and a plain explanation.</summary>
-public static class DatabaseGate
-{
-    public static IApplicationBuilder UseDatabaseGate(this IApplicationBuilder app)
-    {
-        ArgumentNullException.ThrowIfNull(app);
-        var preparation = app.ApplicationServices.GetRequiredService<DatabasePreparation>();
-        return app.Use(async (context, next) =>
-        {
-            if (preparation.Ready || context.Request.Path.StartsWithSegments("/health"))
-            {
-                await next(context).ConfigureAwait(false);
-                return;
-            }
-            context.Response.StatusCode = StatusCodes.Status503ServiceUnavailable;
-            context.Response.Headers.RetryAfter = "10";
-            const string message = "CapReview cannot reach its database at the moment. Nothing has been lost; the administrators can see why in the log. Try again in a minute.";
-            if (Identity.IdentityRegistration.IsMachineReadable(context))
-            {
-                await Results.Problem(message, statusCode: StatusCodes.Status503ServiceUnavailable, title: "The database is not available.").ExecuteAsync(context).ConfigureAwait(false);
-                return;
-            }
-            context.Response.ContentType = "text/html; charset=utf-8";
-            await context.Response.WriteAsync(
-                "<!DOCTYPE html><html lang=\"en\"><head><meta charset=\"utf-8\"><title>CapReview is unavailable</title></head>" +
-                "<body><main><h1>CapReview is unavailable</h1><p>" + message + "</p></main></body></html>").ConfigureAwait(false);
-        });
-    }
-}

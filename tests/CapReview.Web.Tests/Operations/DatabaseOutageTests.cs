@@ -1,10 +1,16 @@
 using System.Net;
 using CapReview.Web.Tests.Api;
+using CapReview.Web.Identity;
 using Microsoft.AspNetCore.Hosting;
+using Microsoft.AspNetCore.Mvc.Testing;
+using Microsoft.Extensions.DependencyInjection;
 
 namespace CapReview.Web.Tests.Operations;
 
-/// <summary>The database missing at start: the app still starts, says so plainly with 503, fails readiness, and serves once the database is there.</summary>
+/// <summary>
+/// The database missing at start, or lost while the app runs: the app says so plainly with 503 (a page, or problem
+/// details for the API), fails readiness, and serves again once the database is back, without a restart.
+/// </summary>
 public sealed class DatabaseOutageTests(ApiFactory factory) : IClassFixture<ApiFactory>
 {
     [Fact]
@@ -61,6 +67,81 @@ public sealed class DatabaseOutageTests(ApiFactory factory) : IClassFixture<ApiF
                 Microsoft.Data.Sqlite.SqliteConnection.ClearAllPools();
                 Directory.Delete(folder, recursive: true);
             }
+        }
+    }
+
+    [Fact]
+    public async Task Losing_its_database_mid_run_gives_503_and_failed_readiness_and_the_app_recovers_when_it_returns()
+    {
+        await using var database = SeverableDatabase.Create(factory.Database);
+        using var app = factory.WithWebHostBuilder(builder =>
+        {
+            builder.UseSetting("Storage:Provider", database.Settings.Provider.ToString());
+            builder.UseSetting("ConnectionStrings:CapReview", database.Settings.ConnectionString);
+            // The production pipeline, with its error page, so the answer is the one users would see.
+            builder.UseEnvironment("Production");
+        });
+        using (var scope = app.Services.CreateScope())
+        {
+            await scope.ServiceProvider.GetRequiredService<IdentityStore>().CreateUserAsync("outage.lead@tarnby.example", "Outage Lead", "outage-tests-2027", [RoleNames.ProjectLead]);
+        }
+        using HttpClient browser = app.CreateClient(new WebApplicationFactoryClientOptions { AllowAutoRedirect = false, HandleCookies = true });
+        using (var signedIn = await FormSignIn.PostAsync(browser, "outage.lead@tarnby.example", "outage-tests-2027"))
+        {
+            Assert.Equal(HttpStatusCode.Redirect, signedIn.StatusCode);
+        }
+        using (var page = await browser.GetAsync("/proposals"))
+        {
+            Assert.Equal(HttpStatusCode.OK, page.StatusCode);
+        }
+
+        database.Cut();
+        try
+        {
+            using (var page = await browser.GetAsync("/proposals"))
+            {
+                Assert.Equal(HttpStatusCode.ServiceUnavailable, page.StatusCode);
+                Assert.Contains("cannot reach its database", await page.Content.ReadAsStringAsync(), StringComparison.Ordinal);
+                Assert.Equal("10", page.Headers.GetValues("Retry-After").Single());
+            }
+            using (var api = await browser.GetAsync("/api/v1/proposals"))
+            {
+                Assert.Equal(HttpStatusCode.ServiceUnavailable, api.StatusCode);
+                Assert.Equal("application/problem+json", api.Content.Headers.ContentType!.MediaType);
+            }
+            using (var ready = await browser.GetAsync("/health/ready"))
+            {
+                Assert.Equal(HttpStatusCode.ServiceUnavailable, ready.StatusCode);
+                // The probe names no server, file or credential.
+                string body = await ready.Content.ReadAsStringAsync();
+                Assert.DoesNotContain("capreview.db", body, StringComparison.Ordinal);
+                Assert.DoesNotContain("Password", body, StringComparison.OrdinalIgnoreCase);
+            }
+            using (var live = await browser.GetAsync("/health/live"))
+            {
+                Assert.Equal(HttpStatusCode.OK, live.StatusCode);
+            }
+        }
+        finally
+        {
+            database.Restore();
+        }
+
+        // Back: the same signed-in session carries on, nothing restarted.
+        HttpStatusCode status = HttpStatusCode.ServiceUnavailable;
+        for (int k = 0; k < 40 && status != HttpStatusCode.OK; k++)
+        {
+            using var ready = await browser.GetAsync("/health/ready");
+            status = ready.StatusCode;
+            if (status != HttpStatusCode.OK)
+            {
+                await Task.Delay(250);
+            }
+        }
+        Assert.Equal(HttpStatusCode.OK, status);
+        using (var page = await browser.GetAsync("/proposals"))
+        {
+            Assert.Equal(HttpStatusCode.OK, page.StatusCode);
         }
     }
 }

@@ -86,13 +86,7 @@ public sealed class OperationsTests(ApiFactory factory) : IClassFixture<ApiFacto
             await identity.CreateUserAsync("two.servers@tarnby.example", "Two Servers", "two-servers-2027", [CapReview.Web.Identity.RoleNames.ProjectLead]);
         }
         using HttpClient first = factory.CreateClient(new WebApplicationFactoryClientOptions { AllowAutoRedirect = false });
-        string form = await first.GetStringAsync("/signin");
-        string token = System.Text.RegularExpressions.Regex.Match(form, "name=\"__RequestVerificationToken\" value=\"([^\"]+)\"").Groups[1].Value;
-        using var content = new FormUrlEncodedContent(new Dictionary<string, string>
-        {
-            ["__RequestVerificationToken"] = token, ["_handler"] = "signin", ["Input.Email"] = "two.servers@tarnby.example", ["Input.Password"] = "two-servers-2027",
-        });
-        using var signedIn = await first.PostAsync("/signin", content);
+        using var signedIn = await CapReview.Web.Tests.Api.FormSignIn.PostAsync(first, "two.servers@tarnby.example", "two-servers-2027");
         Assert.Equal(HttpStatusCode.Redirect, signedIn.StatusCode);
         string cookie = signedIn.Headers.GetValues("Set-Cookie").Single(c => c.StartsWith("capreview=", StringComparison.Ordinal)).Split(';')[0];
 
