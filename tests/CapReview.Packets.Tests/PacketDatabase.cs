@@ -29,6 +29,9 @@ public sealed class PacketDatabase : IAsyncLifetime
 
     public ServiceProvider Services { get; private set; } = null!;
 
+    /// <summary>Unlimited unless a test fills it.</summary>
+    public FullDisk Disk { get; } = new();
+
     public T Get<T>() where T : notnull => Services.GetRequiredService<T>();
 
     public CapReviewDbContext NewContext() => Get<IDbContextFactory<CapReviewDbContext>>().CreateDbContext();
@@ -37,6 +40,7 @@ public sealed class PacketDatabase : IAsyncLifetime
     {
         Services = new ServiceCollection()
             .AddReviews($"Data Source={Path.Combine(_folder, "packets.db")};Pooling=False")
+            .ConfigureDbContext<CapReviewDbContext>(options => options.AddInterceptors(Disk))
             .AddPackets(new PacketOptions { Signing = new PacketSigningOptions { DevelopmentCertificatePath = Path.Combine(_folder, "signing.pfx") } })
             .BuildServiceProvider();
         await Get<DatabaseInitializer>().InitializeAsync(new OrganisationProfile { Name = "Tarnby Components Ltd", CurrencyCode = "EUR", CultureName = "en-IE" }, CancellationToken.None);
