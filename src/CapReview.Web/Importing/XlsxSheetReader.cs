@@ -27,14 +27,16 @@ public static class XlsxSheetReader
             var sheets = workbook.Workbook.Descendants<Sheet>().ToList();
             Sheet sheet = PreferredSheets.Select(name => sheets.FirstOrDefault(s => string.Equals(s.Name?.Value, name, StringComparison.OrdinalIgnoreCase)))
                 .FirstOrDefault(s => s is not null) ?? sheets.FirstOrDefault() ?? throw new UnreadableSheetException("The workbook has no sheets.");
-            if (workbook.GetPartById(sheet.Id!.Value!) is not WorksheetPart part)
+            string id = sheet.Id?.Value ?? throw new UnreadableSheetException($"The workbook's list of sheets is damaged: “{sheet.Name}” names no part.");
+            if (workbook.GetPartById(id) is not WorksheetPart part)
             {
                 throw new UnreadableSheetException($"“{sheet.Name}” is a chart sheet, not a table.");
             }
             var shared = workbook.SharedStringTablePart?.SharedStringTable.Elements<SharedStringItem>().Select(i => i.InnerText).ToList() ?? [];
             return new SheetGrid(ReadRows(part, shared));
         }
-        catch (Exception ex) when (ex is OpenXmlPackageException or FileFormatException or InvalidDataException or InvalidOperationException or ArgumentException)
+        catch (Exception ex) when (ex is OpenXmlPackageException or FileFormatException or InvalidDataException or InvalidOperationException or ArgumentException
+            or System.Xml.XmlException or IOException or FormatException or OverflowException)
         {
             throw new UnreadableSheetException("This is not a readable XLSX workbook.");
         }
