@@ -19,7 +19,13 @@ public static class IdentityRegistration
     /// <summary>JSON endpoints: a cookie or an API token.</summary>
     public const string Api = "api";
 
-    public static IServiceCollection AddCapReviewIdentity(this IServiceCollection services, DatabaseSettings database)
+    /// <param name="services">The app's services.</param>
+    /// <param name="database">Where the accounts, tokens and data-protection keys are kept.</param>
+    /// <param name="secureCookiesOnly">
+    /// Outside development: the sign-in and form cookies are sent over HTTPS only and carry the __Host- prefix, so no
+    /// other host or path can set or overwrite them (the app is served from the root of its own host name).
+    /// </param>
+    public static IServiceCollection AddCapReviewIdentity(this IServiceCollection services, DatabaseSettings database, bool secureCookiesOnly)
     {
         ArgumentNullException.ThrowIfNull(database);
         if (database.Provider == DatabaseProvider.PostgreSql)
@@ -60,7 +66,9 @@ public static class IdentityRegistration
             .AddScheme<AuthenticationSchemeOptions, ApiTokenAuthenticationHandler>(ApiTokenAuthenticationHandler.SchemeName, null);
         services.ConfigureApplicationCookie(cookie =>
         {
-            cookie.Cookie.Name = "capreview";
+            cookie.Cookie.Name = secureCookiesOnly ? "__Host-capreview" : "capreview";
+            cookie.Cookie.SecurePolicy = secureCookiesOnly ? CookieSecurePolicy.Always : CookieSecurePolicy.SameAsRequest;
+            cookie.Cookie.Path = "/";
             cookie.Cookie.HttpOnly = true;
             cookie.Cookie.SameSite = SameSiteMode.Strict;
             cookie.LoginPath = "/signin";
@@ -70,6 +78,12 @@ public static class IdentityRegistration
             // The API answers 401 and 403; only pages redirect to the sign-in form.
             cookie.Events.OnRedirectToLogin = context => Answer(context, StatusCodes.Status401Unauthorized);
             cookie.Events.OnRedirectToAccessDenied = context => Answer(context, StatusCodes.Status403Forbidden);
+        });
+        services.AddAntiforgery(antiforgery =>
+        {
+            antiforgery.Cookie.Name = secureCookiesOnly ? "__Host-capreview-form" : "capreview-form";
+            antiforgery.Cookie.SecurePolicy = secureCookiesOnly ? CookieSecurePolicy.Always : CookieSecurePolicy.SameAsRequest;
+            antiforgery.Cookie.Path = "/";
         });
         services.AddAuthorizationBuilder()
             .AddPolicy(SignedIn, policy => policy.RequireAuthenticatedUser())

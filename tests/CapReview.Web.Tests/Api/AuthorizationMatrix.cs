@@ -118,6 +118,51 @@ public sealed partial class AuthorizationMatrix(ApiFactory factory) : IClassFixt
         Assert.Equal(expect, actual);
     }
 
+    /// <summary>
+    /// Every form any page renders for any visitor posts with an antiforgery token (the interactive pages' forms post
+    /// nothing: they run over the circuit), and the forms that post are refused without it.
+    /// </summary>
+    [Fact]
+    public async Task Every_form_a_page_renders_carries_an_antiforgery_token_and_is_refused_without_it()
+    {
+        await EnsureCycleAsync();
+        int forms = 0;
+        foreach (string who in Who)
+        {
+            using HttpClient client = who == Anonymous ? NewClient() : await SignedInClientAsync(who);
+            foreach (var (method, path, _) in Rules.Values.Where(r => r.Method == "GET" && !r.Path.StartsWith("/api", StringComparison.Ordinal)))
+            {
+                using HttpResponseMessage page = await client.GetAsync(path);
+                if (page.Content.Headers.ContentType?.MediaType != "text/html")
+                {
+                    continue;
+                }
+                string html = await page.Content.ReadAsStringAsync();
+                foreach (Match form in FormElement().Matches(html))
+                {
+                    forms++;
+                    Assert.True(form.Groups["attributes"].Value.Contains("method=\"post\"", StringComparison.OrdinalIgnoreCase),
+                        $"{path} as {who} renders a form that does not post: {form.Value[..Math.Min(200, form.Value.Length)]}");
+                    Assert.Contains("name=\"__RequestVerificationToken\"", form.Value, StringComparison.Ordinal);
+                }
+            }
+        }
+        // At least the sign-in form (everyone) and the sign-out form (everyone signed in).
+        Assert.True(forms >= 5, $"only {forms} forms were found");
+
+        using HttpClient anonymous = NewClient();
+        using var withoutToken = new FormUrlEncodedContent(new Dictionary<string, string>
+        {
+            ["_handler"] = "signin", ["Input.Email"] = "matrix.administrator@tarnby.example", ["Input.Password"] = "matrix-tests-2027",
+        });
+        using HttpResponseMessage refused = await anonymous.PostAsync("/signin", withoutToken);
+        Assert.Equal(HttpStatusCode.BadRequest, refused.StatusCode);
+        Assert.False(refused.Headers.Contains("Set-Cookie") && refused.Headers.GetValues("Set-Cookie").Any(c => c.StartsWith("capreview=", StringComparison.Ordinal)));
+    }
+
+    [GeneratedRegex("<form(?<attributes>[^>]*)>.*?</form>", RegexOptions.Singleline | RegexOptions.IgnoreCase)]
+    private static partial Regex FormElement();
+
     private static readonly SemaphoreSlim CycleLock = new(1, 1);
 
     /// <summary>

@@ -85,7 +85,8 @@ public sealed class DatabaseOutageTests(ApiFactory factory) : IClassFixture<ApiF
         {
             await scope.ServiceProvider.GetRequiredService<IdentityStore>().CreateUserAsync("outage.lead@tarnby.example", "Outage Lead", "outage-tests-2027", [RoleNames.ProjectLead]);
         }
-        using HttpClient browser = app.CreateClient(new WebApplicationFactoryClientOptions { AllowAutoRedirect = false, HandleCookies = true });
+        // Over HTTPS, as production's cookies are sent over nothing else.
+        using HttpClient browser = app.CreateClient(new WebApplicationFactoryClientOptions { AllowAutoRedirect = false, HandleCookies = true, BaseAddress = new Uri("https://localhost") });
         using (var signedIn = await FormSignIn.PostAsync(browser, "outage.lead@tarnby.example", "outage-tests-2027"))
         {
             Assert.Equal(HttpStatusCode.Redirect, signedIn.StatusCode);
