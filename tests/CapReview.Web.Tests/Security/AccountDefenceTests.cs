@@ -49,13 +49,13 @@ public sealed class AccountDefenceTests(ApiFactory factory) : IClassFixture<ApiF
     {
         await CreateUserAsync(factory.Services, "return.address@tarnby.example", "return-tests-2027");
         using HttpClient client = factory.CreateClient(new WebApplicationFactoryClientOptions { AllowAutoRedirect = false });
-        string form = await client.GetStringAsync("/signin?ReturnUrl=%2F%5Celsewhere.example");
+        string form = await client.GetStringAsync("/signin?ReturnUrl=%5C%5Celsewhere.example");
         using var content = new FormUrlEncodedContent(new Dictionary<string, string>
         {
             ["__RequestVerificationToken"] = FormSignIn.AntiforgeryToken(form), ["_handler"] = "signin",
             ["Input.Email"] = "return.address@tarnby.example", ["Input.Password"] = "return-tests-2027",
         });
-        using var signedIn = await client.PostAsync("/signin?ReturnUrl=%2F%5Celsewhere.example", content);
+        using var signedIn = await client.PostAsync("/signin?ReturnUrl=%5C%5Celsewhere.example", content);
         Assert.Equal(HttpStatusCode.Redirect, signedIn.StatusCode);
         Assert.Equal("localhost", new Uri(new Uri("http://localhost/"), signedIn.Headers.Location!).Host);
     }
