@@ -13,7 +13,7 @@ if [ -n "${CAPREVIEW_LOAD_POSTGRES:-}" ]; then
 else
   export ConnectionStrings__CapReview="Data Source=$work/load.db"
 fi
-( cd "$work/app" && dotnet CapReview.Web.dll create-admin --email load@example.test --name "Load Test" --password load-test-2027 >/dev/null )
+( cd "$work/app" && dotnet CapReview.Web.dll create-admin --email load@example.test --name "Load Test" --password steady-lantern-2027 >/dev/null )
 token="$(cd "$work/app" && dotnet CapReview.Web.dll issue-token --email load@example.test --token-name load | grep -o 'crv_[A-Za-z0-9_-]*' | head -n 1)"
 start_app "$port"
 

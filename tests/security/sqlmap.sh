@@ -18,8 +18,10 @@ start_app "$port"
 token() { (cd "$work/app" && dotnet CapReview.Web.dll issue-token --email "$1" --token-name sqlmap | grep -o 'crv_[A-Za-z0-9_-]*' | head -n 1); }
 admin="$(token ines.varga@tarnby.example)" lead="$(token oskar.lind@tarnby.example)" finance="$(token rui.costa@tarnby.example)"
 base="http://127.0.0.1:$port"
-cycle="$(curl -fs -H "Authorization: Bearer $finance" "$base/api/v1/cycles" | grep -o '"id":[0-9]*' | tail -n 1 | cut -d: -f2)"
-proposal="$(curl -fs -H "Authorization: Bearer $lead" "$base/api/v1/proposals" | grep -o '"id":[0-9]*' | head -n 1 | cut -d: -f2)"
+# As the TLS proxy in front would say (loopback is a known proxy); production answers plain HTTP with a redirect.
+proxied=(-H "X-Forwarded-Proto: https")
+cycle="$(curl -fs "${proxied[@]}" -H "Authorization: Bearer $finance" "$base/api/v1/cycles" | grep -o '"id":[0-9]*' | tail -n 1 | cut -d: -f2)"
+proposal="$(curl -fs "${proxied[@]}" -H "Authorization: Bearer $lead" "$base/api/v1/proposals" | grep -o '"id":[0-9]*' | head -n 1 | cut -d: -f2)"
 echo "probing cycle $cycle and proposal $proposal at level $level, risk $risk"
 
 report="$work/sqlmap"
@@ -27,7 +29,7 @@ probe() { # probe NAME TOKEN sqlmap-arguments…
   local name="$1" bearer="$2"; shift 2
   echo "== $name"
   sqlmap --batch --level="$level" --risk="$risk" --output-dir="$report/$name" --disable-coloring --ignore-code=400,404,409,415,422 \
-    -H "Authorization: Bearer $bearer" "$@" 2>&1 | tee "$report-$name.log" | grep -E "all tested|injection point|[0-9]{3} \(.*\) - [0-9]+ times|CRITICAL" || true
+    "${proxied[@]}" -H "Authorization: Bearer $bearer" "$@" 2>&1 | tee "$report-$name.log" | grep -E "all tested|injection point|[0-9]{3} \(.*\) - [0-9]+ times|CRITICAL" || true
 }
 mkdir -p "$report"
 # A route value marked with * is probed alone, so the query string has a probe of its own.

@@ -54,6 +54,8 @@ public static partial class CapReviewHosting
         services.AddSingleton<CapReviewMetrics>();
         services.AddScoped<Microsoft.AspNetCore.Components.Server.Circuits.CircuitHandler, CircuitCounter>();
         services.AddCapReviewRateLimits(builder.Configuration);
+        services.AddHttpsRedirection(options => options.HttpsPort = builder.Configuration.GetValue("ReverseProxy:HttpsPort", 443));
+        services.AddHsts(options => options.MaxAge = TimeSpan.FromDays(365));
         services.Configure<ForwardedHeadersOptions>(options =>
         {
             // Behind the reverse proxy (deploy/nginx): the client's address and scheme, from proxies listed in
@@ -110,6 +112,10 @@ public static partial class CapReviewHosting
         if (!app.Environment.IsDevelopment())
         {
             app.UseExceptionHandler("/error", createScopeForErrors: true);
+            // HTTPS only, as the proxy in front serves it (deploy/nginx); the probes answer on plain HTTP too, for
+            // the monitoring on the server itself.
+            app.UseHsts();
+            app.UseWhen(context => !context.Request.Path.StartsWithSegments("/health"), https => https.UseHttpsRedirection());
         }
         // Inside the exception handler: a database lost mid-run is a 503 with its own explanation, not an error page.
         app.UseDatabaseGate();
@@ -127,6 +133,7 @@ public static partial class CapReviewHosting
         app.UseWhen(IsApi, api => api.UseStatusCodePages());
         app.UseWhen(context => !IsApi(context), pages => pages.UseStatusCodePagesWithReExecute("/not-found", createScopeForStatusCodePages: true));
         app.UseAuthentication();
+        app.UseTwoStepRequirement(app.Configuration);
         app.UseRateLimiter();
         app.UseAuthorization();
         app.UseAntiforgery();

@@ -44,17 +44,24 @@ public static class IdentityRegistration
         services.AddIdentityCore<CapReviewUser>(options =>
             {
                 options.User.RequireUniqueEmail = true;
+                // Length and a check against guessable passwords (PasswordStrengthValidator), no composition rules.
                 options.Password.RequiredLength = 10;
                 options.Password.RequireNonAlphanumeric = false;
                 options.Password.RequireUppercase = false;
+                options.Password.RequireLowercase = false;
+                options.Password.RequireDigit = false;
+                options.Password.RequiredUniqueChars = 1;
+                options.Tokens.AuthenticatorTokenProvider = SingleUseAuthenticatorTokenProvider.Name;
                 options.Lockout.MaxFailedAccessAttempts = 8;
                 options.Lockout.DefaultLockoutTimeSpan = TimeSpan.FromMinutes(10);
             })
+            .AddPasswordValidator<PasswordStrengthValidator>()
             .AddRoles<IdentityRole>()
             .AddEntityFrameworkStores<CapReviewIdentityDbContext>()
             .AddSignInManager()
             .AddClaimsPrincipalFactory<DisplayNameClaimsFactory>()
-            .AddDefaultTokenProviders();
+            .AddDefaultTokenProviders()
+            .AddTokenProvider<SingleUseAuthenticatorTokenProvider>(SingleUseAuthenticatorTokenProvider.Name);
 
         services.AddAuthentication(options =>
             {
@@ -95,6 +102,7 @@ public static class IdentityRegistration
         services.AddSingleton<ApiTokenCache>();
         services.AddSingleton<CapReview.Reviews.Interchange.IPeopleDirectory, PeopleDirectory>();
         services.AddScoped<IdentityStore>();
+        services.AddScoped<TwoStepSignIn>();
         services.AddSingleton<UserAdministration>();
         return services;
     }

@@ -45,7 +45,7 @@ public sealed class ApiFactory : WebApplicationFactory<Program>
     {
         using var scope = Services.CreateScope();
         var identity = scope.ServiceProvider.GetRequiredService<IdentityStore>();
-        var user = await identity.FindByEmailAsync(email) ?? await identity.CreateUserAsync(email, email, "api-tests-2027", [role]);
+        var user = await identity.FindByEmailAsync(email) ?? await identity.CreateUserAsync(email, email, "amber-kettle-2027", [role]);
         string token = await scope.ServiceProvider.GetRequiredService<ApiTokenService>().IssueAsync(user.Id, "tests", CancellationToken.None);
         HttpClient client = CreateClient();
         client.DefaultRequestHeaders.Authorization = new AuthenticationHeaderValue("Bearer", token);

@@ -80,6 +80,8 @@ public sealed class DatabaseOutageTests(ApiFactory factory) : IClassFixture<ApiF
             builder.UseSetting("ConnectionStrings:CapReview", database.Settings.ConnectionString);
             // The production pipeline, with its error page, so the answer is the one users would see.
             builder.UseEnvironment("Production");
+            // The outage is under test here, not the sign-in: a password alone may open the pages.
+            builder.UseSetting("Security:RequireTwoFactor", "false");
         });
         using (var scope = app.Services.CreateScope())
         {

@@ -83,10 +83,10 @@ public sealed class OperationsTests(ApiFactory factory) : IClassFixture<ApiFacto
         using (var scope = Microsoft.Extensions.DependencyInjection.ServiceProviderServiceExtensions.CreateScope(factory.Services))
         {
             var identity = Microsoft.Extensions.DependencyInjection.ServiceProviderServiceExtensions.GetRequiredService<CapReview.Web.Identity.IdentityStore>(scope.ServiceProvider);
-            await identity.CreateUserAsync("two.servers@tarnby.example", "Two Servers", "two-servers-2027", [CapReview.Web.Identity.RoleNames.ProjectLead]);
+            await identity.CreateUserAsync("two.servers@tarnby.example", "Two Servers", "twin-harbour-2027", [CapReview.Web.Identity.RoleNames.ProjectLead]);
         }
         using HttpClient first = factory.CreateClient(new WebApplicationFactoryClientOptions { AllowAutoRedirect = false });
-        using var signedIn = await CapReview.Web.Tests.Api.FormSignIn.PostAsync(first, "two.servers@tarnby.example", "two-servers-2027");
+        using var signedIn = await CapReview.Web.Tests.Api.FormSignIn.PostAsync(first, "two.servers@tarnby.example", "twin-harbour-2027");
         Assert.Equal(HttpStatusCode.Redirect, signedIn.StatusCode);
         string cookie = signedIn.Headers.GetValues("Set-Cookie").Single(c => c.StartsWith("capreview=", StringComparison.Ordinal)).Split(';')[0];
 

@@ -13,7 +13,7 @@ public sealed class AccountDefenceTests(ApiFactory factory) : IClassFixture<ApiF
     [Fact]
     public async Task Eight_failed_sign_ins_lock_the_account_so_that_even_the_right_password_is_refused()
     {
-        await CreateUserAsync(factory.Services, "locked.out@tarnby.example", "right-password-2027");
+        await CreateUserAsync(factory.Services, "locked.out@tarnby.example", "silver-meadow-2027");
         using HttpClient client = factory.CreateClient(new WebApplicationFactoryClientOptions { AllowAutoRedirect = false });
         for (int k = 0; k < 8; k++)
         {
@@ -21,7 +21,7 @@ public sealed class AccountDefenceTests(ApiFactory factory) : IClassFixture<ApiF
             Assert.Equal(HttpStatusCode.OK, wrong.StatusCode);
             Assert.Contains(k < 7 ? "The email or the password is not right." : "the account is locked", await wrong.Content.ReadAsStringAsync(), StringComparison.Ordinal);
         }
-        using var right = await FormSignIn.PostAsync(client, "locked.out@tarnby.example", "right-password-2027");
+        using var right = await FormSignIn.PostAsync(client, "locked.out@tarnby.example", "silver-meadow-2027");
         Assert.Equal(HttpStatusCode.OK, right.StatusCode);
         Assert.Contains("the account is locked", await right.Content.ReadAsStringAsync(), StringComparison.Ordinal);
         Assert.DoesNotContain(right.Headers.TryGetValues("Set-Cookie", out var cookies) ? cookies : [], c => c.StartsWith("capreview=", StringComparison.Ordinal));

@@ -1,0 +1,168 @@
+using System.Net;
+using System.Text.RegularExpressions;
+using CapReview.Web.Identity;
+using CapReview.Web.Tests.Api;
+using Microsoft.AspNetCore.Hosting;
+using Microsoft.AspNetCore.Mvc.Testing;
+using Microsoft.AspNetCore.TestHost;
+using Microsoft.Extensions.DependencyInjection;
+
+namespace CapReview.Web.Tests.Security;
+
+/// <summary>Two-step sign-in with an authenticator app: required where configured, codes usable once, recovery codes once each.</summary>
+public sealed partial class TwoStepSignInTests(ApiFactory factory) : IClassFixture<ApiFactory>
+{
+    private const string Password = "violet-compass-2027";
+
+    [Fact]
+    public void The_tests_own_authenticator_gives_the_codes_of_RFC_6238_appendix_B()
+    {
+        // RFC 6238, Appendix B (SHA-1 rows), and RFC 4648 section 10 for base 32.
+        byte[] secret = "12345678901234567890"u8.ToArray();
+        Assert.Equal("94287082", Rfc6238.Code(secret, DateTimeOffset.FromUnixTimeSeconds(59), 8));
+        Assert.Equal("07081804", Rfc6238.Code(secret, DateTimeOffset.FromUnixTimeSeconds(1111111109), 8));
+        Assert.Equal("14050471", Rfc6238.Code(secret, DateTimeOffset.FromUnixTimeSeconds(1111111111), 8));
+        Assert.Equal("89005924", Rfc6238.Code(secret, DateTimeOffset.FromUnixTimeSeconds(1234567890), 8));
+        Assert.Equal("69279037", Rfc6238.Code(secret, DateTimeOffset.FromUnixTimeSeconds(2000000000), 8));
+        Assert.Equal("65353130", Rfc6238.Code(secret, DateTimeOffset.FromUnixTimeSeconds(20000000000), 8));
+        Assert.Equal("foobar"u8.ToArray(), Rfc6238.FromBase32("MZXW6YTBOI======"));
+    }
+
+    [Fact]
+    public async Task Where_two_step_sign_in_is_required_a_password_alone_reaches_only_the_account_page_until_an_app_is_set_up()
+    {
+        var clock = new SteppedClock(DateTimeOffset.UtcNow);
+        using var app = factory.WithWebHostBuilder(builder =>
+        {
+            builder.UseSetting("Security:RequireTwoFactor", "true");
+            builder.ConfigureTestServices(services => services.AddSingleton<TimeProvider>(clock));
+        });
+        await AccountDefenceTests.CreateUserAsync(app.Services, "two.step@tarnby.example", Password);
+        using HttpClient browser = NewBrowser(app);
+        using (var signedIn = await FormSignIn.PostAsync(browser, "two.step@tarnby.example", Password))
+        {
+            Assert.Equal(HttpStatusCode.Redirect, signedIn.StatusCode);
+        }
+
+        using (var page = await browser.GetAsync("/proposals"))
+        {
+            Assert.Equal(HttpStatusCode.Redirect, page.StatusCode);
+            Assert.Equal("/account", page.Headers.Location!.OriginalString);
+        }
+        using (var api = await browser.GetAsync("/api/v1/proposals"))
+        {
+            Assert.Equal(HttpStatusCode.Forbidden, api.StatusCode);
+        }
+        string account = await browser.GetStringAsync("/account");
+        Assert.Contains("data-testid=\"two-step-required\"", account, StringComparison.Ordinal);
+        Assert.Contains("<svg", account, StringComparison.Ordinal);
+        byte[] secret = Rfc6238.FromBase32(Key().Match(account).Groups[1].Value);
+
+        string wrong = Rfc6238.Code(secret, clock.GetUtcNow().AddMinutes(10));
+        string refused = await PostFormAsync(browser, "/account", account, "enable-two-step", ("Enable.Code", wrong));
+        Assert.Contains("That code is not the one the app shows now", refused, StringComparison.Ordinal);
+
+        string enabled = await PostFormAsync(browser, "/account", refused, "enable-two-step", ("Enable.Code", Rfc6238.Code(secret, clock.GetUtcNow())));
+        var recovery = RecoveryCode().Matches(enabled).Select(m => m.Groups[1].Value).ToList();
+        Assert.Equal(TwoStepSignIn.RecoveryCodeCount, recovery.Count);
+        using (var page = await browser.GetAsync("/proposals"))
+        {
+            Assert.Equal(HttpStatusCode.OK, page.StatusCode);
+        }
+
+        // The next sign-in asks for a code after the password; the code already used in this 30-second step is refused.
+        using HttpClient again = NewBrowser(app);
+        string second = await (await FormSignIn.PostAsync(again, "two.step@tarnby.example", Password)).Content.ReadAsStringAsync();
+        Assert.Contains("Enter the six-digit code", second, StringComparison.Ordinal);
+        string replayed = await PostFormAsync(again, "/signin", second, "signin-code", ("Second.Code", Rfc6238.Code(secret, clock.GetUtcNow())));
+        Assert.Contains("That code is not right", replayed, StringComparison.Ordinal);
+        clock.Advance(TimeSpan.FromSeconds(30));
+        using (var signedIn = await PostFormResponseAsync(again, "/signin", replayed, "signin-code", ("Second.Code", Rfc6238.Code(secret, clock.GetUtcNow()))))
+        {
+            Assert.Equal(HttpStatusCode.Redirect, signedIn.StatusCode);
+        }
+        using (var page = await again.GetAsync("/proposals"))
+        {
+            Assert.Equal(HttpStatusCode.OK, page.StatusCode);
+        }
+
+        // A recovery code signs in once.
+        using HttpClient lostPhone = NewBrowser(app);
+        string asked = await (await FormSignIn.PostAsync(lostPhone, "two.step@tarnby.example", Password)).Content.ReadAsStringAsync();
+        using (var recovered = await PostFormResponseAsync(lostPhone, "/signin", asked, "signin-code", ("Second.Code", recovery[0])))
+        {
+            Assert.Equal(HttpStatusCode.Redirect, recovered.StatusCode);
+        }
+        using HttpClient reuse = NewBrowser(app);
+        string askedAgain = await (await FormSignIn.PostAsync(reuse, "two.step@tarnby.example", Password)).Content.ReadAsStringAsync();
+        Assert.Contains("That code is not right", await PostFormAsync(reuse, "/signin", askedAgain, "signin-code", ("Second.Code", recovery[0])), StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public async Task A_changed_password_needs_the_current_one_and_must_not_be_guessable()
+    {
+        await AccountDefenceTests.CreateUserAsync(factory.Services, "changes.password@tarnby.example", Password);
+        using HttpClient browser = NewBrowser(factory);
+        using (var signedIn = await FormSignIn.PostAsync(browser, "changes.password@tarnby.example", Password))
+        {
+            Assert.Equal(HttpStatusCode.Redirect, signedIn.StatusCode);
+        }
+        string account = await browser.GetStringAsync("/account");
+        string wrongCurrent = await PostFormAsync(browser, "/account", account, "change-password", ("Change.Current", "not-my-password-2027"), ("Change.New", "copper-lantern-meadow"));
+        Assert.Contains("The current password is not right.", wrongCurrent, StringComparison.Ordinal);
+        string common = await PostFormAsync(browser, "/account", wrongCurrent, "change-password", ("Change.Current", Password), ("Change.New", "password1234"));
+        Assert.Contains("too easy to guess", common, StringComparison.Ordinal);
+        string organisation = await PostFormAsync(browser, "/account", common, "change-password", ("Change.Current", Password), ("Change.New", "TarnbyComponents1"));
+        Assert.Contains("too easy to guess", organisation, StringComparison.Ordinal);
+        // 64 characters and more are welcome, as typed (no truncation).
+        string phrase = "the copper lantern hums beside a quiet meadow while barges drift by";
+        string changed = await PostFormAsync(browser, "/account", organisation, "change-password", ("Change.Current", Password), ("Change.New", phrase));
+        Assert.Contains("Your password is changed.", changed, StringComparison.Ordinal);
+
+        using HttpClient later = NewBrowser(factory);
+        using (var truncated = await FormSignIn.PostAsync(later, "changes.password@tarnby.example", phrase[..64]))
+        {
+            Assert.Equal(HttpStatusCode.OK, truncated.StatusCode);
+        }
+        using (var whole = await FormSignIn.PostAsync(later, "changes.password@tarnby.example", phrase))
+        {
+            Assert.Equal(HttpStatusCode.Redirect, whole.StatusCode);
+        }
+    }
+
+    private static HttpClient NewBrowser(WebApplicationFactory<Program> app) =>
+        app.CreateClient(new WebApplicationFactoryClientOptions { AllowAutoRedirect = false, HandleCookies = true });
+
+    private static async Task<string> PostFormAsync(HttpClient client, string path, string page, string form, params (string Name, string Value)[] fields)
+    {
+        using var answer = await PostFormResponseAsync(client, path, page, form, fields);
+        Assert.Equal(HttpStatusCode.OK, answer.StatusCode);
+        return await answer.Content.ReadAsStringAsync();
+    }
+
+    private static Task<HttpResponseMessage> PostFormResponseAsync(HttpClient client, string path, string page, string form, params (string Name, string Value)[] fields)
+    {
+        var values = new Dictionary<string, string> { ["__RequestVerificationToken"] = FormSignIn.AntiforgeryToken(page), ["_handler"] = form };
+        foreach (var (name, value) in fields)
+        {
+            values[name] = value;
+        }
+        return client.PostAsync(path, new FormUrlEncodedContent(values));
+    }
+
+    [GeneratedRegex("data-testid=\"authenticator-key\">([a-z2-7 ]+)<")]
+    private static partial Regex Key();
+
+    [GeneratedRegex("<li><code>([A-Za-z0-9-]+)</code></li>")]
+    private static partial Regex RecoveryCode();
+
+    /// <summary>The server's clock, moved on by the test: the next 30-second step without waiting for it.</summary>
+    private sealed class SteppedClock(DateTimeOffset start) : TimeProvider
+    {
+        private DateTimeOffset _now = start;
+
+        public override DateTimeOffset GetUtcNow() => _now;
+
+        public void Advance(TimeSpan by) => _now += by;
+    }
+}
