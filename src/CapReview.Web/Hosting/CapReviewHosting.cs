@@ -133,7 +133,7 @@ public static partial class CapReviewHosting
         app.UseWhen(IsApi, api => api.UseStatusCodePages());
         app.UseWhen(context => !IsApi(context), pages => pages.UseStatusCodePagesWithReExecute("/not-found", createScopeForStatusCodePages: true));
         app.UseAuthentication();
-        app.UseTwoStepRequirement(app.Configuration);
+        app.UseAccountSetupRequirement(app.Configuration);
         app.UseRateLimiter();
         app.UseAuthorization();
         app.UseAntiforgery();

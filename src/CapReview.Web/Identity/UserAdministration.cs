@@ -6,7 +6,7 @@ using Microsoft.EntityFrameworkCore;
 namespace CapReview.Web.Identity;
 
 /// <summary>A user as the administrator sees them.</summary>
-public sealed record UserSummary(string Id, string Email, string DisplayName, IReadOnlyList<string> Roles, bool LockedOut);
+public sealed record UserSummary(string Id, string Email, string DisplayName, IReadOnlyList<string> Roles, bool LockedOut, bool TwoStep);
 
 /// <summary>
 /// Users and roles for administrators. Each operation runs in a scope of its own, so that no page holds Identity's
@@ -25,7 +25,7 @@ public sealed class UserAdministration(IServiceScopeFactory scopes, ReviewWork w
         {
             var roles = await users.GetRolesAsync(user).ConfigureAwait(false);
             result.Add(new UserSummary(user.Id, user.Email ?? "", user.DisplayName, [.. roles.Order(StringComparer.Ordinal)],
-                user.LockoutEnd is { } end && end > DateTimeOffset.UtcNow));
+                user.LockoutEnd is { } end && end > DateTimeOffset.UtcNow, user.TwoFactorEnabled));
         }
         return result;
     }
@@ -47,6 +47,7 @@ public sealed class UserAdministration(IServiceScopeFactory scopes, ReviewWork w
         try
         {
             user = await scope.ServiceProvider.GetRequiredService<IdentityStore>().CreateUserAsync(email.Trim(), displayName.Trim(), password, [role]).ConfigureAwait(false);
+            await FirstPassword.RequireChangeAsync(scope.ServiceProvider.GetRequiredService<UserManager<CapReviewUser>>(), user).ConfigureAwait(false);
         }
         catch (InvalidOperationException ex)
         {
@@ -56,6 +57,21 @@ public sealed class UserAdministration(IServiceScopeFactory scopes, ReviewWork w
         await work.RunAsync(async db =>
         {
             await audit.AppendAsync(db, actor, "user.created", "user", user.Id, null, new { user.Email, user.DisplayName, Role = role }, CancellationToken.None).ConfigureAwait(false);
+            return true;
+        }, CancellationToken.None).ConfigureAwait(false);
+    }
+
+    /// <summary>For a lost phone: two-step sign-in off and a new key; the person sets the app up again at their next sign-in.</summary>
+    public async Task ResetTwoStepAsync(Actor actor, string userId)
+    {
+        Require(actor);
+        using IServiceScope scope = scopes.CreateScope();
+        var users = scope.ServiceProvider.GetRequiredService<UserManager<CapReviewUser>>();
+        CapReviewUser user = await users.FindByIdAsync(userId).ConfigureAwait(false) ?? throw new NotFoundException("There is no such user.");
+        await scope.ServiceProvider.GetRequiredService<TwoStepSignIn>().ResetAsync(user, actor.UserId).ConfigureAwait(false);
+        await work.RunAsync(async db =>
+        {
+            await audit.AppendAsync(db, actor, "user.two-step-reset", "user", user.Id, null, new { user.Email }, CancellationToken.None).ConfigureAwait(false);
             return true;
         }, CancellationToken.None).ConfigureAwait(false);
     }

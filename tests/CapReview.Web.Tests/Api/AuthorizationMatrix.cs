@@ -27,6 +27,7 @@ public sealed partial class AuthorizationMatrix(ApiFactory factory) : IClassFixt
         ["/"] = ("GET", "/", ["200", "200", "200", "200", "200"]),
         ["/signin"] = ("GET", "/signin", ["200", "200", "200", "200", "200"]),
         ["/denied"] = ("GET", "/denied", ["200", "200", "200", "200", "200"]),
+        ["/account"] = ("GET", "/account", ["signin", "200", "200", "200", "200"]),
         ["/not-found"] = ("GET", "/not-found", ["200", "200", "200", "200", "200"]),
         ["/error"] = ("GET", "/error", ["200", "200", "200", "200", "200"]),
         ["/evaluate"] = ("GET", "/evaluate", ["signin", "200", "200", "200", "200"]),

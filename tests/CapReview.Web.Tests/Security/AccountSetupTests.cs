@@ -9,8 +9,12 @@ using Microsoft.Extensions.DependencyInjection;
 
 namespace CapReview.Web.Tests.Security;
 
-/// <summary>Two-step sign-in with an authenticator app: required where configured, codes usable once, recovery codes once each.</summary>
-public sealed partial class TwoStepSignInTests(ApiFactory factory) : IClassFixture<ApiFactory>
+/// <summary>
+/// Setting up an account: two-step sign-in with an authenticator app (required where configured, codes usable once,
+/// recovery codes once each, reset by an administrator for a lost phone), a first password changed at first sign-in,
+/// and the rules for a new password.
+/// </summary>
+public sealed partial class AccountSetupTests(ApiFactory factory) : IClassFixture<ApiFactory>
 {
     private const string Password = "violet-compass-2027";
 
@@ -128,6 +132,69 @@ public sealed partial class TwoStepSignInTests(ApiFactory factory) : IClassFixtu
         {
             Assert.Equal(HttpStatusCode.Redirect, whole.StatusCode);
         }
+    }
+
+    [Fact]
+    public async Task A_first_password_from_an_administrator_opens_only_the_account_page_until_it_is_changed()
+    {
+        var admin = CapReview.Reviews.Access.Actor.Of("setup-admin", "Setup Admin", CapReview.Reviews.Access.Role.Administrator);
+        await factory.Services.GetRequiredService<UserAdministration>().CreateAsync(admin, "first.password@tarnby.example", "First Password", Password, RoleNames.ProjectLead);
+        using HttpClient browser = NewBrowser(factory);
+        using (var signedIn = await FormSignIn.PostAsync(browser, "first.password@tarnby.example", Password))
+        {
+            Assert.Equal(HttpStatusCode.Redirect, signedIn.StatusCode);
+        }
+        using (var page = await browser.GetAsync("/proposals"))
+        {
+            Assert.Equal(HttpStatusCode.Redirect, page.StatusCode);
+            Assert.Equal("/account", page.Headers.Location!.OriginalString);
+        }
+        string account = await browser.GetStringAsync("/account");
+        Assert.Contains("data-testid=\"first-password\"", account, StringComparison.Ordinal);
+        string changed = await PostFormAsync(browser, "/account", account, "change-password", ("Change.Current", Password), ("Change.New", "amber-ferry-lighthouse"));
+        Assert.Contains("Your password is changed.", changed, StringComparison.Ordinal);
+        Assert.DoesNotContain("data-testid=\"first-password\"", changed, StringComparison.Ordinal);
+        using (var page = await browser.GetAsync("/proposals"))
+        {
+            Assert.Equal(HttpStatusCode.OK, page.StatusCode);
+        }
+    }
+
+    [Fact]
+    public async Task An_administrator_resets_two_step_sign_in_for_a_lost_phone_and_the_old_key_stops_working()
+    {
+        var clock = new SteppedClock(DateTimeOffset.UtcNow);
+        using var app = factory.WithWebHostBuilder(builder =>
+        {
+            builder.UseSetting("Security:RequireTwoFactor", "true");
+            builder.ConfigureTestServices(services => services.AddSingleton<TimeProvider>(clock));
+        });
+        await AccountDefenceTests.CreateUserAsync(app.Services, "lost.phone@tarnby.example", Password);
+        using HttpClient browser = NewBrowser(app);
+        (await FormSignIn.PostAsync(browser, "lost.phone@tarnby.example", Password)).Dispose();
+        string account = await browser.GetStringAsync("/account");
+        byte[] oldKey = Rfc6238.FromBase32(Key().Match(account).Groups[1].Value);
+        await PostFormAsync(browser, "/account", account, "enable-two-step", ("Enable.Code", Rfc6238.Code(oldKey, clock.GetUtcNow())));
+
+        var admin = CapReview.Reviews.Access.Actor.Of("setup-admin", "Setup Admin", CapReview.Reviews.Access.Role.Administrator);
+        var administration = app.Services.GetRequiredService<UserAdministration>();
+        var person = (await administration.ListAsync(admin, CancellationToken.None)).Single(u => u.Email == "lost.phone@tarnby.example");
+        Assert.True(person.TwoStep);
+        await administration.ResetTwoStepAsync(admin, person.Id);
+        Assert.False((await administration.ListAsync(admin, CancellationToken.None)).Single(u => u.Id == person.Id).TwoStep);
+
+        // The next sign-in asks for no code but opens only the account page, with a new key to scan.
+        clock.Advance(TimeSpan.FromSeconds(30));
+        using HttpClient later = NewBrowser(app);
+        using (var signedIn = await FormSignIn.PostAsync(later, "lost.phone@tarnby.example", Password))
+        {
+            Assert.Equal(HttpStatusCode.Redirect, signedIn.StatusCode);
+        }
+        string fresh = await later.GetStringAsync("/account");
+        byte[] newKey = Rfc6238.FromBase32(Key().Match(fresh).Groups[1].Value);
+        Assert.NotEqual(oldKey, newKey);
+        string refused = await PostFormAsync(later, "/account", fresh, "enable-two-step", ("Enable.Code", Rfc6238.Code(oldKey, clock.GetUtcNow())));
+        Assert.Contains("That code is not the one the app shows now", refused, StringComparison.Ordinal);
     }
 
     private static HttpClient NewBrowser(WebApplicationFactory<Program> app) =>
