@@ -27,7 +27,7 @@ public static partial class CapReviewHosting
         services.Configure<OrganisationOptions>(builder.Configuration.GetSection("Organisation"));
         var database = storage.Database(builder.Configuration.GetConnectionString("CapReview"), builder.Environment.ContentRootPath);
         services.AddReviews(database);
-        services.AddCapReviewIdentity(database, secureCookiesOnly: !builder.Environment.IsDevelopment());
+        services.AddCapReviewIdentity(database, secureCookiesOnly: !builder.Environment.IsDevelopment(), SessionLimits.Read(builder.Configuration));
         services.AddPackets(PacketSettings.Read(builder.Configuration, database, builder.Environment.ContentRootPath));
         services.AddScoped<DemoScenario>();
         services.AddScoped<DemoDecidedCycle>();

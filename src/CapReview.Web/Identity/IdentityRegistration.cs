@@ -25,7 +25,8 @@ public static class IdentityRegistration
     /// Outside development: the sign-in and form cookies are sent over HTTPS only and carry the __Host- prefix, so no
     /// other host or path can set or overwrite them (the app is served from the root of its own host name).
     /// </param>
-    public static IServiceCollection AddCapReviewIdentity(this IServiceCollection services, DatabaseSettings database, bool secureCookiesOnly)
+    /// <param name="sessions">How long a browser session lasts and how often it is checked against the account.</param>
+    public static IServiceCollection AddCapReviewIdentity(this IServiceCollection services, DatabaseSettings database, bool secureCookiesOnly, SessionLimits sessions)
     {
         ArgumentNullException.ThrowIfNull(database);
         if (database.Provider == DatabaseProvider.PostgreSql)
@@ -80,11 +81,26 @@ public static class IdentityRegistration
             cookie.Cookie.SameSite = SameSiteMode.Strict;
             cookie.LoginPath = "/signin";
             cookie.AccessDeniedPath = "/denied";
-            cookie.ExpireTimeSpan = TimeSpan.FromHours(8);
+            cookie.ExpireTimeSpan = sessions.Idle;
             cookie.SlidingExpiration = true;
+            cookie.Events.OnSigningIn = sessions.OnSigningIn;
+            cookie.Events.OnValidatePrincipal = sessions.OnValidatePrincipal;
             // The API answers 401 and 403; only pages redirect to the sign-in form.
             cookie.Events.OnRedirectToLogin = context => Answer(context, StatusCodes.Status401Unauthorized);
             cookie.Events.OnRedirectToAccessDenied = context => Answer(context, StatusCodes.Status403Forbidden);
+        });
+        services.Configure<SecurityStampValidatorOptions>(options =>
+        {
+            options.ValidationInterval = sessions.StampCheck;
+            // A session signed in with two steps stays one when its claims are renewed from the account.
+            options.OnRefreshingPrincipal = context =>
+            {
+                if (context.CurrentPrincipal?.FindFirst("amr") is { } method && context.NewPrincipal?.Identity is System.Security.Claims.ClaimsIdentity renewed)
+                {
+                    renewed.AddClaim(new System.Security.Claims.Claim(method.Type, method.Value));
+                }
+                return Task.CompletedTask;
+            };
         });
         services.AddAntiforgery(antiforgery =>
         {

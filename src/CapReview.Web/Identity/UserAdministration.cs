@@ -6,7 +6,11 @@ using Microsoft.EntityFrameworkCore;
 namespace CapReview.Web.Identity;
 
 /// <summary>A user as the administrator sees them.</summary>
-public sealed record UserSummary(string Id, string Email, string DisplayName, IReadOnlyList<string> Roles, bool LockedOut, bool TwoStep);
+public sealed record UserSummary(string Id, string Email, string DisplayName, IReadOnlyList<string> Roles, bool LockedOut, bool TwoStep)
+{
+    /// <summary>Locked out for good by an administrator, rather than for a few minutes after failed sign-ins.</summary>
+    public bool Disabled { get; init; }
+}
 
 /// <summary>
 /// Users and roles for administrators. Each operation runs in a scope of its own, so that no page holds Identity's
@@ -25,7 +29,7 @@ public sealed class UserAdministration(IServiceScopeFactory scopes, ReviewWork w
         {
             var roles = await users.GetRolesAsync(user).ConfigureAwait(false);
             result.Add(new UserSummary(user.Id, user.Email ?? "", user.DisplayName, [.. roles.Order(StringComparer.Ordinal)],
-                user.LockoutEnd is { } end && end > DateTimeOffset.UtcNow, user.TwoFactorEnabled));
+                user.LockoutEnd is { } end && end > DateTimeOffset.UtcNow, user.TwoFactorEnabled) { Disabled = user.LockoutEnd == DateTimeOffset.MaxValue });
         }
         return result;
     }
@@ -72,6 +76,50 @@ public sealed class UserAdministration(IServiceScopeFactory scopes, ReviewWork w
         await work.RunAsync(async db =>
         {
             await audit.AppendAsync(db, actor, "user.two-step-reset", "user", user.Id, null, new { user.Email }, CancellationToken.None).ConfigureAwait(false);
+            return true;
+        }, CancellationToken.None).ConfigureAwait(false);
+    }
+
+    /// <summary>Ends every session of the user on every device (within Security:SessionCheckSeconds); they sign in again.</summary>
+    public Task EndSessionsAsync(Actor actor, string userId) => ChangeAsync(actor, userId, "user.sessions-ended", users => Task.FromResult(IdentityResult.Success));
+
+    /// <summary>
+    /// A disabled account cannot sign in, its sessions end and its API tokens are refused (within the token cache's
+    /// 30 seconds); enabling it again lets the person sign in with their password. Administrators cannot disable themselves.
+    /// </summary>
+    public Task SetDisabledAsync(Actor actor, string userId, bool disabled)
+    {
+        ArgumentNullException.ThrowIfNull(actor);
+        if (disabled && actor.UserId == userId)
+        {
+            throw new RuleViolationException("You cannot disable your own account; ask another administrator.");
+        }
+        return ChangeAsync(actor, userId, disabled ? "user.disabled" : "user.enabled", async (users, user) =>
+        {
+            await users.SetLockoutEnabledAsync(user, true).ConfigureAwait(false);
+            return await users.SetLockoutEndDateAsync(user, disabled ? DateTimeOffset.MaxValue : null).ConfigureAwait(false);
+        });
+    }
+
+    private Task ChangeAsync(Actor actor, string userId, string action, Func<UserManager<CapReviewUser>, Task<IdentityResult>> change) =>
+        ChangeAsync(actor, userId, action, (users, _) => change(users));
+
+    /// <summary>One change to an account, then a new security stamp (so its sessions end) and an audit event.</summary>
+    private async Task ChangeAsync(Actor actor, string userId, string action, Func<UserManager<CapReviewUser>, CapReviewUser, Task<IdentityResult>> change)
+    {
+        Require(actor);
+        using IServiceScope scope = scopes.CreateScope();
+        var users = scope.ServiceProvider.GetRequiredService<UserManager<CapReviewUser>>();
+        CapReviewUser user = await users.FindByIdAsync(userId).ConfigureAwait(false) ?? throw new NotFoundException("There is no such user.");
+        IdentityResult result = await change(users, user).ConfigureAwait(false);
+        if (!result.Succeeded)
+        {
+            throw new RuleViolationException(string.Join(" ", result.Errors.Select(e => e.Description)));
+        }
+        await users.UpdateSecurityStampAsync(user).ConfigureAwait(false);
+        await work.RunAsync(async db =>
+        {
+            await audit.AppendAsync(db, actor, action, "user", user.Id, null, new { user.Email }, CancellationToken.None).ConfigureAwait(false);
             return true;
         }, CancellationToken.None).ConfigureAwait(false);
     }

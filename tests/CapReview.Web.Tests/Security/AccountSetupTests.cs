@@ -39,6 +39,7 @@ public sealed partial class AccountSetupTests(ApiFactory factory) : IClassFixtur
         using var app = factory.WithWebHostBuilder(builder =>
         {
             builder.UseSetting("Security:RequireTwoFactor", "true");
+            builder.UseSetting("Security:SessionCheckSeconds", "0");
             builder.ConfigureTestServices(services => services.AddSingleton<TimeProvider>(clock));
         });
         await AccountDefenceTests.CreateUserAsync(app.Services, "two.step@tarnby.example", Password);
@@ -167,6 +168,7 @@ public sealed partial class AccountSetupTests(ApiFactory factory) : IClassFixtur
         using var app = factory.WithWebHostBuilder(builder =>
         {
             builder.UseSetting("Security:RequireTwoFactor", "true");
+            builder.UseSetting("Security:SessionCheckSeconds", "0");
             builder.ConfigureTestServices(services => services.AddSingleton<TimeProvider>(clock));
         });
         await AccountDefenceTests.CreateUserAsync(app.Services, "lost.phone@tarnby.example", Password);
@@ -222,14 +224,4 @@ public sealed partial class AccountSetupTests(ApiFactory factory) : IClassFixtur
 
     [GeneratedRegex("<li><code>([A-Za-z0-9-]+)</code></li>")]
     private static partial Regex RecoveryCode();
-
-    /// <summary>The server's clock, moved on by the test: the next 30-second step without waiting for it.</summary>
-    private sealed class SteppedClock(DateTimeOffset start) : TimeProvider
-    {
-        private DateTimeOffset _now = start;
-
-        public override DateTimeOffset GetUtcNow() => _now;
-
-        public void Advance(TimeSpan by) => _now += by;
-    }
 }

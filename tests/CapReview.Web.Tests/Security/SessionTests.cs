@@ -1,0 +1,127 @@
+using System.Net;
+using CapReview.Reviews.Access;
+using CapReview.Web.Identity;
+using CapReview.Web.Tests.Api;
+using Microsoft.AspNetCore.Hosting;
+using Microsoft.AspNetCore.Mvc.Testing;
+using Microsoft.AspNetCore.TestHost;
+using Microsoft.Extensions.DependencyInjection;
+
+namespace CapReview.Web.Tests.Security;
+
+/// <summary>
+/// Browser sessions: ended by sign-out everywhere (a copied cookie stops working), after 30 idle minutes, 12 hours
+/// after the sign-in however busy, and by an administrator (end sessions, disable the account).
+/// </summary>
+public sealed class SessionTests(ApiFactory factory) : IClassFixture<ApiFactory>
+{
+    private const string Password = "harbour-kestrel-2027";
+    private static readonly Actor Admin = Actor.Of("session-admin", "Session Admin", Role.Administrator);
+
+    [Fact]
+    public async Task Signing_out_ends_the_session_so_that_a_copy_of_its_cookie_is_refused_and_the_browser_is_told_to_forget()
+    {
+        using var app = WithClock(new SteppedClock(DateTimeOffset.UtcNow));
+        await AccountDefenceTests.CreateUserAsync(app.Services, "signs.out@tarnby.example", Password);
+        using HttpClient browser = NewBrowser(app);
+        using var signedIn = await FormSignIn.PostAsync(browser, "signs.out@tarnby.example", Password);
+        string cookie = signedIn.Headers.GetValues("Set-Cookie").Single(c => c.StartsWith("capreview=", StringComparison.Ordinal)).Split(';')[0];
+        Assert.Equal(HttpStatusCode.OK, await StatusWithCookieAsync(app, cookie, "/proposals"));
+        string form = await browser.GetStringAsync("/proposals");
+        using var signOut = await browser.PostAsync("/signout", new FormUrlEncodedContent(new Dictionary<string, string> { ["__RequestVerificationToken"] = FormSignIn.AntiforgeryToken(form) }));
+        Assert.Equal(HttpStatusCode.Redirect, signOut.StatusCode);
+        Assert.Equal("\"cache\", \"storage\"", signOut.Headers.GetValues("Clear-Site-Data").Single());
+
+        Assert.Equal(HttpStatusCode.Redirect, await StatusWithCookieAsync(app, cookie, "/proposals"));
+    }
+
+    [Fact]
+    public async Task A_session_ends_after_thirty_idle_minutes_and_twelve_hours_after_the_sign_in_however_busy()
+    {
+        var clock = new SteppedClock(DateTimeOffset.UtcNow);
+        using var app = WithClock(clock);
+        using HttpClient idle = await SignedInAsync(app, "idle@tarnby.example");
+        clock.Advance(TimeSpan.FromMinutes(29));
+        Assert.Equal(HttpStatusCode.OK, (await idle.GetAsync("/proposals")).StatusCode);
+        clock.Advance(TimeSpan.FromMinutes(31));
+        Assert.Equal(HttpStatusCode.Redirect, (await idle.GetAsync("/proposals")).StatusCode);
+
+        using HttpClient busy = await SignedInAsync(app, "busy@tarnby.example");
+        // A request every 20 minutes keeps the session alive (the cookie slides) until 12 hours after the sign-in.
+        for (int k = 0; k < 35; k++)
+        {
+            clock.Advance(TimeSpan.FromMinutes(20));
+            Assert.Equal(HttpStatusCode.OK, (await busy.GetAsync("/proposals")).StatusCode);
+        }
+        clock.Advance(TimeSpan.FromMinutes(21));
+        Assert.Equal(HttpStatusCode.Redirect, (await busy.GetAsync("/proposals")).StatusCode);
+    }
+
+    [Fact]
+    public async Task An_administrator_ends_a_persons_sessions_or_disables_the_account_and_its_sessions_end_at_once()
+    {
+        using var app = WithClock(new SteppedClock(DateTimeOffset.UtcNow));
+        var administration = app.Services.GetRequiredService<UserAdministration>();
+        using HttpClient ended = await SignedInAsync(app, "ended@tarnby.example");
+        await administration.EndSessionsAsync(Admin, await UserIdAsync(app, "ended@tarnby.example"));
+        Assert.Equal(HttpStatusCode.Redirect, (await ended.GetAsync("/proposals")).StatusCode);
+        using (HttpClient again = NewBrowser(app))
+        {
+            Assert.Equal(HttpStatusCode.Redirect, (await FormSignIn.PostAsync(again, "ended@tarnby.example", Password)).StatusCode);
+        }
+
+        using HttpClient disabled = await SignedInAsync(app, "disabled@tarnby.example");
+        string id = await UserIdAsync(app, "disabled@tarnby.example");
+        await administration.SetDisabledAsync(Admin, id, disabled: true);
+        Assert.Equal(HttpStatusCode.Redirect, (await disabled.GetAsync("/proposals")).StatusCode);
+        Assert.True((await administration.ListAsync(Admin, CancellationToken.None)).Single(u => u.Id == id).Disabled);
+        using (HttpClient refused = NewBrowser(app))
+        {
+            using var answer = await FormSignIn.PostAsync(refused, "disabled@tarnby.example", Password);
+            Assert.Equal(HttpStatusCode.OK, answer.StatusCode);
+            Assert.Contains("locked", await answer.Content.ReadAsStringAsync(), StringComparison.Ordinal);
+        }
+        await administration.SetDisabledAsync(Admin, id, disabled: false);
+        using (HttpClient back = NewBrowser(app))
+        {
+            Assert.Equal(HttpStatusCode.Redirect, (await FormSignIn.PostAsync(back, "disabled@tarnby.example", Password)).StatusCode);
+        }
+        await Assert.ThrowsAsync<CapReview.Reviews.Common.RuleViolationException>(() =>
+            administration.SetDisabledAsync(Actor.Of(id, "Self", Role.Administrator), id, disabled: true));
+    }
+
+    /// <summary>The app with the test's clock and the session checked against the account on every request.</summary>
+    private WebApplicationFactory<Program> WithClock(SteppedClock clock) => factory.WithWebHostBuilder(builder =>
+    {
+        builder.UseSetting("Security:SessionCheckSeconds", "0");
+        builder.ConfigureTestServices(services => services.AddSingleton<TimeProvider>(clock));
+    });
+
+    private static async Task<HttpClient> SignedInAsync(WebApplicationFactory<Program> app, string email)
+    {
+        await AccountDefenceTests.CreateUserAsync(app.Services, email, Password);
+        HttpClient browser = NewBrowser(app);
+        using var signedIn = await FormSignIn.PostAsync(browser, email, Password);
+        Assert.Equal(HttpStatusCode.Redirect, signedIn.StatusCode);
+        Assert.Equal(HttpStatusCode.OK, (await browser.GetAsync("/proposals")).StatusCode);
+        return browser;
+    }
+
+    private static async Task<HttpStatusCode> StatusWithCookieAsync(WebApplicationFactory<Program> app, string cookie, string path)
+    {
+        using HttpClient copy = app.CreateClient(new WebApplicationFactoryClientOptions { AllowAutoRedirect = false, HandleCookies = false });
+        using var request = new HttpRequestMessage(HttpMethod.Get, path);
+        request.Headers.Add("Cookie", cookie);
+        using var answer = await copy.SendAsync(request);
+        return answer.StatusCode;
+    }
+
+    private static async Task<string> UserIdAsync(WebApplicationFactory<Program> app, string email)
+    {
+        using var scope = app.Services.CreateScope();
+        return (await scope.ServiceProvider.GetRequiredService<IdentityStore>().FindByEmailAsync(email))!.Id;
+    }
+
+    private static HttpClient NewBrowser(WebApplicationFactory<Program> app) =>
+        app.CreateClient(new WebApplicationFactoryClientOptions { AllowAutoRedirect = false, HandleCookies = true });
+}
