@@ -132,6 +132,7 @@ public static partial class CapReviewHosting
         // Pages show the not-found page; the API answers its bare status codes with problem details instead.
         app.UseWhen(IsApi, api => api.UseStatusCodePages());
         app.UseWhen(context => !IsApi(context), pages => pages.UseStatusCodePagesWithReExecute("/not-found", createScopeForStatusCodePages: true));
+        app.UseSecurityLog();
         app.UseAuthentication();
         app.UseAccountSetupRequirement(app.Configuration);
         app.UseRateLimiter();

@@ -11,8 +11,9 @@ public static class AccountEndpoints
 {
     public static IEndpointRouteBuilder MapAccountEndpoints(this IEndpointRouteBuilder routes)
     {
-        routes.MapPost("/signout", async (HttpContext context, IAntiforgery antiforgery, SignInManager<CapReviewUser> signIn, UserManager<CapReviewUser> users) =>
+        routes.MapPost("/signout", async (HttpContext context, IAntiforgery antiforgery, SignInManager<CapReviewUser> signIn, UserManager<CapReviewUser> users, ILoggerFactory logs) =>
         {
+            ILogger log = logs.CreateLogger(SecurityLog.Category);
             // Only the app's own form may sign a user out: a forged cross-site post is refused.
             if (!await antiforgery.IsRequestValidAsync(context).ConfigureAwait(false))
             {
@@ -21,6 +22,7 @@ public static class AccountEndpoints
             if (await users.GetUserAsync(context.User).ConfigureAwait(false) is { } user)
             {
                 await users.UpdateSecurityStampAsync(user).ConfigureAwait(false);
+                SecurityLog.SignedOut(log, user.Id);
             }
             await signIn.SignOutAsync().ConfigureAwait(false);
             context.Response.Headers["Clear-Site-Data"] = "\"cache\", \"storage\"";

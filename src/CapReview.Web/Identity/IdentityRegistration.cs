@@ -87,7 +87,17 @@ public static class IdentityRegistration
             cookie.Events.OnValidatePrincipal = sessions.OnValidatePrincipal;
             // The API answers 401 and 403; only pages redirect to the sign-in form.
             cookie.Events.OnRedirectToLogin = context => Answer(context, StatusCodes.Status401Unauthorized);
-            cookie.Events.OnRedirectToAccessDenied = context => Answer(context, StatusCodes.Status403Forbidden);
+            cookie.Events.OnRedirectToAccessDenied = context =>
+            {
+                if (!IsMachineReadable(context.HttpContext))
+                {
+                    // A page sends the visitor to /denied with a redirect; the API's 403 is logged as it is sent.
+                    ILogger log = context.HttpContext.RequestServices.GetRequiredService<ILoggerFactory>().CreateLogger(SecurityLog.Category);
+                    SecurityLog.Refused(log, StatusCodes.Status403Forbidden, context.Request.Method, context.Request.Path, SecurityLog.UserOf(context.HttpContext.User),
+                        SecurityLog.Address(context.HttpContext));
+                }
+                return Answer(context, StatusCodes.Status403Forbidden);
+            };
         });
         services.Configure<SecurityStampValidatorOptions>(options =>
         {
