@@ -1,3 +1,4 @@
+using System.Security.Cryptography.X509Certificates;
 using System.Text.Json;
 using System.Text.Json.Serialization;
 using CapReview.Packets;
@@ -11,6 +12,7 @@ using CapReview.Web.Identity;
 using CapReview.Web.Packets;
 using CapReview.Web.Formatting;
 using CapReview.Web.Operations;
+using Microsoft.AspNetCore.DataProtection;
 using Microsoft.AspNetCore.HttpOverrides;
 using Microsoft.Extensions.Options;
 
@@ -22,12 +24,19 @@ public static partial class CapReviewHosting
     public static WebApplicationBuilder AddCapReview(this WebApplicationBuilder builder)
     {
         ArgumentNullException.ThrowIfNull(builder);
+        RefuseSamplePlaceholders(builder);
         IServiceCollection services = builder.Services;
         var storage = builder.Configuration.GetSection("Storage").Get<StorageOptions>() ?? new StorageOptions();
         services.Configure<OrganisationOptions>(builder.Configuration.GetSection("Organisation"));
         var database = storage.Database(builder.Configuration.GetConnectionString("CapReview"), builder.Environment.ContentRootPath);
         services.AddReviews(database);
         services.AddCapReviewIdentity(database, secureCookiesOnly: !builder.Environment.IsDevelopment(), SessionLimits.Read(builder.Configuration));
+        if (builder.Configuration["DataProtection:CertificatePath"] is { Length: > 0 } keyCertificate)
+        {
+            // The keys that protect cookies and forms are stored encrypted to this certificate's public key.
+            services.AddDataProtection().ProtectKeysWithCertificate(
+                X509CertificateLoader.LoadPkcs12FromFile(keyCertificate, builder.Configuration["DataProtection:CertificatePassword"]));
+        }
         services.AddPackets(PacketSettings.Read(builder.Configuration, database, builder.Environment.ContentRootPath));
         services.AddScoped<DemoScenario>();
         services.AddScoped<DemoDecidedCycle>();
@@ -98,6 +107,23 @@ public static partial class CapReviewHosting
         {
             using IServiceScope scope = app.Services.CreateScope();
             await scope.ServiceProvider.GetRequiredService<DemoScenario>().EnsureAsync(app.Lifetime.ApplicationStopping).ConfigureAwait(false);
+        }
+    }
+
+    /// <summary>
+    /// Outside development, a setting still holding the samples' placeholder (deploy/capreview.env.sample: a database
+    /// password, a certificate password) stops the start with its name, rather than running on a known credential.
+    /// </summary>
+    private static void RefuseSamplePlaceholders(WebApplicationBuilder builder)
+    {
+        if (builder.Environment.IsDevelopment())
+        {
+            return;
+        }
+        var placeholders = builder.Configuration.AsEnumerable().Where(p => p.Value?.Contains("CHANGE-ME", StringComparison.Ordinal) == true).Select(p => p.Key).ToList();
+        if (placeholders.Count > 0)
+        {
+            throw new InvalidOperationException($"Replace the sample's CHANGE-ME in {string.Join(", ", placeholders)} before starting CapReview.");
         }
     }
 

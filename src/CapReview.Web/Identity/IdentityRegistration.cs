@@ -2,6 +2,8 @@ using CapReview.Reviews.Storage;
 using CapReview.Web.Hosting;
 using Microsoft.AspNetCore.Authentication;
 using Microsoft.AspNetCore.DataProtection;
+using Microsoft.AspNetCore.DataProtection.AuthenticatedEncryption;
+using Microsoft.AspNetCore.DataProtection.AuthenticatedEncryption.ConfigurationModel;
 using Microsoft.AspNetCore.Identity;
 using Microsoft.EntityFrameworkCore;
 
@@ -41,7 +43,13 @@ public static class IdentityRegistration
             services.AddDbContextFactory<CapReviewIdentityDbContext>(options => database.Apply(options, CapReviewIdentityDbContext.MigrationsHistoryTable));
         }
         // Every app server reads the same keys, so a cookie or form made by one is accepted by the others.
-        services.AddDataProtection().SetApplicationName("CapReview").PersistKeysToDbContext<CapReviewIdentityDbContext>();
+        // AES-256-GCM for the cookies and forms; new keys every 90 days (the framework's default), old ones kept to read old cookies.
+        services.AddDataProtection().SetApplicationName("CapReview").PersistKeysToDbContext<CapReviewIdentityDbContext>()
+            .UseCryptographicAlgorithms(new AuthenticatedEncryptorConfiguration
+            {
+                EncryptionAlgorithm = EncryptionAlgorithm.AES_256_GCM,
+                ValidationAlgorithm = ValidationAlgorithm.HMACSHA256,
+            });
         services.AddIdentityCore<CapReviewUser>(options =>
             {
                 options.User.RequireUniqueEmail = true;
@@ -59,6 +67,8 @@ public static class IdentityRegistration
             .AddPasswordValidator<PasswordStrengthValidator>()
             .AddRoles<IdentityRole>()
             .AddEntityFrameworkStores<CapReviewIdentityDbContext>()
+            .AddUserStore<HashedRecoveryCodeStore>()
+            .AddUserManager<CapReviewUserManager>()
             .AddSignInManager()
             .AddClaimsPrincipalFactory<DisplayNameClaimsFactory>()
             .AddDefaultTokenProviders()

@@ -29,7 +29,10 @@ public static partial class SecurityLog
     [LoggerMessage(EventId = 110, Level = LogLevel.Warning, Message = "Refused {Status} for {Method} {Path}: user {UserId} from {Address}.")]
     public static partial void Refused(ILogger logger, int status, string method, string path, string userId, string? address);
 
-    /// <summary>Logs every 403, and every 401 to a request that presented credentials (an unknown or revoked API token).</summary>
+    /// <summary>
+    /// Logs every 403; every 401 to a request that presented credentials (an unknown or revoked API token); every 429
+    /// (a rate limit reached); and every form post refused with 400 (a form without its antiforgery token: a forged post).
+    /// </summary>
     public static IApplicationBuilder UseSecurityLog(this IApplicationBuilder app)
     {
         ArgumentNullException.ThrowIfNull(app);
@@ -39,7 +42,17 @@ public static partial class SecurityLog
             context.Response.OnStarting(() =>
             {
                 int status = context.Response.StatusCode;
-                if (status == StatusCodes.Status403Forbidden || (status == StatusCodes.Status401Unauthorized && context.Request.Headers.Authorization.Count > 0))
+                bool refused = status switch
+                {
+                    StatusCodes.Status403Forbidden or StatusCodes.Status429TooManyRequests => true,
+                    StatusCodes.Status401Unauthorized => context.Request.Headers.Authorization.Count > 0,
+                    // The content type as sent: the form itself may not be read once its antiforgery check failed.
+                    StatusCodes.Status400BadRequest => HttpMethods.IsPost(context.Request.Method)
+                        && (context.Request.ContentType?.StartsWith("application/x-www-form-urlencoded", StringComparison.OrdinalIgnoreCase) == true
+                            || context.Request.ContentType?.StartsWith("multipart/form-data", StringComparison.OrdinalIgnoreCase) == true),
+                    _ => false,
+                };
+                if (refused)
                 {
                     Refused(log, status, context.Request.Method, context.Request.Path, UserOf(context.User), Address(context));
                 }

@@ -121,7 +121,8 @@ public sealed partial class AuthorizationMatrix(ApiFactory factory) : IClassFixt
 
     /// <summary>
     /// Every form any page renders for any visitor posts with an antiforgery token (the interactive pages' forms post
-    /// nothing: they run over the circuit), and the forms that post are refused without it.
+    /// nothing: they run over the circuit), and the forms that post are refused without it. Every page a signed-in
+    /// visitor sees offers the sign-out.
     /// </summary>
     [Fact]
     public async Task Every_form_a_page_renders_carries_an_antiforgery_token_and_is_refused_without_it()
@@ -139,6 +140,10 @@ public sealed partial class AuthorizationMatrix(ApiFactory factory) : IClassFixt
                     continue;
                 }
                 string html = await page.Content.ReadAsStringAsync();
+                if (who != Anonymous)
+                {
+                    Assert.Contains("action=\"signout\"", html, StringComparison.Ordinal);
+                }
                 foreach (Match form in FormElement().Matches(html))
                 {
                     forms++;

@@ -111,6 +111,43 @@ public sealed class ModelImportFuzzTests
         }, iter: 1000, threads: 1);
     }
 
+    [Fact]
+    public void A_workbook_with_an_external_entity_is_refused_without_reading_the_entitys_file()
+    {
+        // XML external entities (XXE): the sheet's XML names a file on the server; the import must not read it.
+        string secret = Path.Combine(Directory.CreateTempSubdirectory("capreview-xxe-").FullName, "secret.txt");
+        File.WriteAllText(secret, "server-secret-7731");
+        var table = new ExportTable("Elements", [], [new("Type", ExportKind.Text), new("Label", ExportKind.Text), new("Category", ExportKind.Text),
+            new("Amount", ExportKind.Money), new("Period", ExportKind.Whole)], [["Single", "PLACEHOLDER", "Capital", -5000.0, 0]]);
+        using var buffer = new MemoryStream();
+        buffer.Write(XlsxExport.Write(table));
+        using (var zip = new System.IO.Compression.ZipArchive(buffer, System.IO.Compression.ZipArchiveMode.Update, leaveOpen: true))
+        {
+            foreach (var entry in zip.Entries.Where(e => e.FullName.StartsWith("xl/", StringComparison.Ordinal) && e.FullName.EndsWith(".xml", StringComparison.Ordinal)).ToList())
+            {
+                string xml;
+                using (var reader = new StreamReader(entry.Open()))
+                {
+                    xml = reader.ReadToEnd();
+                }
+                if (!xml.Contains("PLACEHOLDER", StringComparison.Ordinal))
+                {
+                    continue;
+                }
+                int declaration = xml.StartsWith("<?xml", StringComparison.Ordinal) ? xml.IndexOf("?>", StringComparison.Ordinal) + 2 : 0;
+                string root = xml[declaration..].TrimStart()[1..].Split(' ', '>')[0];
+                xml = xml[..declaration] + $"<!DOCTYPE {root} [<!ENTITY xxe SYSTEM \"file://{secret}\">]>" + xml[declaration..].Replace("PLACEHOLDER", "&xxe;", StringComparison.Ordinal);
+                entry.Delete();
+                using var writer = new StreamWriter(zip.CreateEntry(entry.FullName).Open());
+                writer.Write(xml);
+            }
+        }
+        ImportPreview preview = ModelImport.Read("model.xlsx", buffer.ToArray(), English);
+        Assert.False(preview.CanApply);
+        Assert.DoesNotContain("server-secret-7731", string.Join(" ", preview.Problems.Select(p => p.Reason)) + string.Join(" ", preview.Elements.Select(e => e.Spec.Label)), StringComparison.Ordinal);
+        Assert.Contains("not a readable XLSX", Assert.Single(preview.Problems).Reason, StringComparison.Ordinal);
+    }
+
     private static void AssertPreviewIsSound(ImportPreview preview)
     {
         if (!preview.CanApply)

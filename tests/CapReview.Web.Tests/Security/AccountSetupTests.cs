@@ -70,6 +70,15 @@ public sealed partial class AccountSetupTests(ApiFactory factory) : IClassFixtur
         string enabled = await PostFormAsync(browser, "/account", refused, "enable-two-step", ("Enable.Code", Rfc6238.Code(secret, clock.GetUtcNow())));
         var recovery = RecoveryCode().Matches(enabled).Select(m => m.Groups[1].Value).ToList();
         Assert.Equal(TwoStepSignIn.RecoveryCodeCount, recovery.Count);
+        Assert.All(recovery, code => Assert.Matches("^[A-HJ-NP-Z2-9]{5}(-[A-HJ-NP-Z2-9]{5}){4}$", code));
+        using (var scope = app.Services.CreateScope())
+        {
+            // Kept as SHA-256 hashes: the database holds none of the codes as shown.
+            var identity = scope.ServiceProvider.GetRequiredService<CapReviewIdentityDbContext>();
+            string stored = identity.UserTokens.Single(t => t.Name == "RecoveryCodes").Value!;
+            Assert.All(recovery, code => Assert.DoesNotContain(code.Replace("-", "", StringComparison.Ordinal), stored.ToUpperInvariant(), StringComparison.Ordinal));
+            Assert.All(recovery, code => Assert.Contains(HashedRecoveryCodeStore.Hash(code), stored, StringComparison.Ordinal));
+        }
         using (var page = await browser.GetAsync("/proposals"))
         {
             Assert.Equal(HttpStatusCode.OK, page.StatusCode);
@@ -91,10 +100,10 @@ public sealed partial class AccountSetupTests(ApiFactory factory) : IClassFixtur
             Assert.Equal(HttpStatusCode.OK, page.StatusCode);
         }
 
-        // A recovery code signs in once.
+        // A recovery code signs in once, typed in lower case without its hyphens if need be.
         using HttpClient lostPhone = NewBrowser(app);
         string asked = await (await FormSignIn.PostAsync(lostPhone, "two.step@tarnby.example", Password)).Content.ReadAsStringAsync();
-        using (var recovered = await PostFormResponseAsync(lostPhone, "/signin", asked, "signin-code", ("Second.Code", recovery[0])))
+        using (var recovered = await PostFormResponseAsync(lostPhone, "/signin", asked, "signin-code", ("Second.Code", recovery[0].Replace("-", "", StringComparison.Ordinal).ToLowerInvariant())))
         {
             Assert.Equal(HttpStatusCode.Redirect, recovered.StatusCode);
         }
@@ -113,6 +122,14 @@ public sealed partial class AccountSetupTests(ApiFactory factory) : IClassFixtur
             Assert.Equal(HttpStatusCode.Redirect, signedIn.StatusCode);
         }
         string account = await browser.GetStringAsync("/account");
+        // Masked fields that password managers fill: nothing stops pasting.
+        Assert.Contains("type=\"password\"", account, StringComparison.Ordinal);
+        Assert.Contains("autocomplete=\"new-password\"", account, StringComparison.Ordinal);
+        Assert.Contains("autocomplete=\"current-password\"", await browser.GetStringAsync("/signin"), StringComparison.Ordinal);
+        Assert.DoesNotContain("onpaste", account, StringComparison.OrdinalIgnoreCase);
+        string shortOne = await PostFormAsync(browser, "/account", account, "change-password", ("Change.Current", Password), ("Change.New", "9-letters"));
+        Assert.Contains("at least 10 characters", shortOne, StringComparison.Ordinal);
+        account = shortOne;
         string wrongCurrent = await PostFormAsync(browser, "/account", account, "change-password", ("Change.Current", "not-my-password-2027"), ("Change.New", "copper-lantern-meadow"));
         Assert.Contains("The current password is not right.", wrongCurrent, StringComparison.Ordinal);
         string common = await PostFormAsync(browser, "/account", wrongCurrent, "change-password", ("Change.Current", Password), ("Change.New", "password1234"));

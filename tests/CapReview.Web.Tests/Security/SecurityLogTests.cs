@@ -30,6 +30,10 @@ public sealed class SecurityLogTests(ApiFactory factory) : IClassFixture<ApiFact
         Assert.Equal(HttpStatusCode.Redirect, (await browser.GetAsync("/admin/users")).StatusCode);
         string page = await browser.GetStringAsync("/proposals");
         (await browser.PostAsync("/signout", new FormUrlEncodedContent(new Dictionary<string, string> { ["__RequestVerificationToken"] = FormSignIn.AntiforgeryToken(page) }))).Dispose();
+        using (var forged = await browser.PostAsync("/signin", new FormUrlEncodedContent(new Dictionary<string, string> { ["_handler"] = "signin", ["Input.Email"] = "x@tarnby.example" })))
+        {
+            Assert.Equal(HttpStatusCode.BadRequest, forged.StatusCode);
+        }
         using HttpClient api = app.CreateClient();
         api.DefaultRequestHeaders.Authorization = new AuthenticationHeaderValue("Bearer", "crv_not-a-token");
         Assert.Equal(HttpStatusCode.Unauthorized, (await api.GetAsync("/api/v1/cycles")).StatusCode);
@@ -41,6 +45,7 @@ public sealed class SecurityLogTests(ApiFactory factory) : IClassFixture<ApiFact
         Assert.Contains(security, e => e.EventId == 110 && e.Message.Contains($"403 for GET /admin/users: user {id}", StringComparison.Ordinal));
         Assert.Contains(security, e => e.EventId == 103 && e.Message.Contains(id, StringComparison.Ordinal));
         Assert.Contains(security, e => e.EventId == 110 && e.Message.Contains("401 for GET /api/v1/cycles: user anonymous", StringComparison.Ordinal));
+        Assert.Contains(security, e => e.EventId == 110 && e.Message.Contains("400 for POST /signin", StringComparison.Ordinal));
         // What the visitor typed is not logged, not even the e-mail of an unknown account.
         Assert.DoesNotContain(security, e => e.Text.Contains("nobody.here", StringComparison.Ordinal));
     }

@@ -36,6 +36,24 @@ public sealed class SessionTests(ApiFactory factory) : IClassFixture<ApiFactory>
     }
 
     [Fact]
+    public async Task A_password_change_ends_the_accounts_other_sessions_and_keeps_the_one_it_was_made_in()
+    {
+        using var app = WithClock(new SteppedClock(DateTimeOffset.UtcNow));
+        using HttpClient laptop = await SignedInAsync(app, "changes.everywhere@tarnby.example");
+        using HttpClient phone = NewBrowser(app);
+        Assert.Equal(HttpStatusCode.Redirect, (await FormSignIn.PostAsync(phone, "changes.everywhere@tarnby.example", Password)).StatusCode);
+        string account = await laptop.GetStringAsync("/account");
+        using var changed = await laptop.PostAsync("/account", new FormUrlEncodedContent(new Dictionary<string, string>
+        {
+            ["__RequestVerificationToken"] = FormSignIn.AntiforgeryToken(account), ["_handler"] = "change-password",
+            ["Change.Current"] = Password, ["Change.New"] = "saffron-tugboat-evening",
+        }));
+        Assert.Contains("Your password is changed.", await changed.Content.ReadAsStringAsync(), StringComparison.Ordinal);
+        Assert.Equal(HttpStatusCode.OK, (await laptop.GetAsync("/proposals")).StatusCode);
+        Assert.Equal(HttpStatusCode.Redirect, (await phone.GetAsync("/proposals")).StatusCode);
+    }
+
+    [Fact]
     public async Task A_session_ends_after_thirty_idle_minutes_and_twelve_hours_after_the_sign_in_however_busy()
     {
         var clock = new SteppedClock(DateTimeOffset.UtcNow);
