@@ -5,8 +5,8 @@ using OtpNet;
 namespace CapReview.Web.Identity;
 
 /// <summary>
-/// Checks an authenticator app's code (RFC 6238: HMAC-SHA1, 30-second steps, six digits, one step either side for
-/// clock drift) and accepts each code once: the step last accepted is kept with the account, and a code of that
+/// Checks an authenticator app's code (RFC 6238: HMAC-SHA1, 30-second steps, six digits; the current step and the one
+/// before, for the time it takes to type and send a code, RFC 6238 section 5.2) and accepts each code once: the step last accepted is kept with the account, and a code of that
 /// step or an earlier one is refused, so a code seen over someone's shoulder cannot be used again.
 /// </summary>
 public sealed class SingleUseAuthenticatorTokenProvider(TimeProvider clock) : IUserTwoFactorTokenProvider<CapReviewUser>
@@ -33,7 +33,7 @@ public sealed class SingleUseAuthenticatorTokenProvider(TimeProvider clock) : IU
             return false;
         }
         var totp = new Totp(Base32Encoding.ToBytes(key));
-        if (!totp.VerifyTotp(clock.GetUtcNow().UtcDateTime, token, out long step, new VerificationWindow(previous: 1, future: 1)))
+        if (!totp.VerifyTotp(clock.GetUtcNow().UtcDateTime, token, out long step, new VerificationWindow(previous: 1, future: 0)))
         {
             return false;
         }

@@ -76,7 +76,7 @@ public sealed class SessionTests(ApiFactory factory) : IClassFixture<ApiFactory>
     }
 
     [Fact]
-    public async Task An_administrator_ends_a_persons_sessions_or_disables_the_account_and_its_sessions_end_at_once()
+    public async Task An_administrator_ends_a_persons_sessions_disables_the_account_or_resets_its_password_and_its_sessions_end_at_once()
     {
         using var app = WithClock(new SteppedClock(DateTimeOffset.UtcNow));
         var administration = app.Services.GetRequiredService<UserAdministration>();
@@ -103,6 +103,19 @@ public sealed class SessionTests(ApiFactory factory) : IClassFixture<ApiFactory>
         using (HttpClient back = NewBrowser(app))
         {
             Assert.Equal(HttpStatusCode.Redirect, (await FormSignIn.PostAsync(back, "disabled@tarnby.example", Password)).StatusCode);
+        }
+        // A forgotten password: a new random first password, to be replaced at the next sign-in; the old one stops working.
+        string first = await administration.ResetPasswordAsync(Admin, id);
+        Assert.Matches("^[a-km-np-z2-9]{20}$", first);
+        using (HttpClient old = NewBrowser(app))
+        {
+            Assert.Equal(HttpStatusCode.OK, (await FormSignIn.PostAsync(old, "disabled@tarnby.example", Password)).StatusCode);
+        }
+        using (HttpClient reset = NewBrowser(app))
+        {
+            Assert.Equal(HttpStatusCode.Redirect, (await FormSignIn.PostAsync(reset, "disabled@tarnby.example", first)).StatusCode);
+            using var page = await reset.GetAsync("/proposals");
+            Assert.Equal("/account", page.Headers.Location!.OriginalString);
         }
         await Assert.ThrowsAsync<CapReview.Reviews.Common.RuleViolationException>(() =>
             administration.SetDisabledAsync(Actor.Of(id, "Self", Role.Administrator), id, disabled: true));
