@@ -47,6 +47,7 @@ public sealed class AccessibilityInChromium(BrowserFixture browser) : IClassFixt
         { RoleNames.Reviewer, "cycles/{open}/ranking" },
         { RoleNames.Reviewer, "cycles/{open}/portfolio" },
         { RoleNames.Finance, "cycles/{decided}" },
+        { RoleNames.ProjectLead, "account" },
         { RoleNames.Administrator, "admin/users" },
         { RoleNames.Administrator, "admin/marr" },
         { RoleNames.Administrator, "admin/cycles" },

@@ -108,7 +108,7 @@ public sealed class GuideScreenshots(BrowserFixture browser) : IClassFixture<Bro
         await GoAsync(finance, $"cycles/{decided}/ranking");
         await ShotAsync(finance.Locator("section[aria-labelledby=ranking-heading]"), "finance-ranking");
 
-        // Administrator: the MARR policy, the cycles, the audit trail.
+        // Administrator: the MARR policy, the cycles, the audit trail, the users.
         IPage admin = await AsAsync("ines.varga@tarnby.example", "admin/marr");
         await ShotAsync(admin, "admin-marr");
         await GoAsync(admin, "admin/cycles");
@@ -118,6 +118,14 @@ public sealed class GuideScreenshots(BrowserFixture browser) : IClassFixture<Bro
         await admin.GetByRole(AriaRole.Button, new() { Name = "Verify the chain" }).ClickAsync();
         await Assertions.Expect(admin.GetByTestId("audit-verification")).ToContainTextAsync("intact");
         await ShotAsync(admin, "admin-audit");
+        await GoAsync(admin, "admin/users");
+        await Assertions.Expect(admin.GetByRole(AriaRole.Button, new() { Name = "Give Oskar Lind a new first password" })).ToBeVisibleAsync();
+        await ShotAsync(admin, "admin-users");
+
+        // Everyone: the account page, with the authenticator app still to be set up.
+        await GoAsync(admin, "account");
+        await Assertions.Expect(admin.GetByTestId("authenticator-key")).ToBeVisibleAsync();
+        await ShotAsync(admin, "account");
 
         // The editor on a phone (the browser's pages share one sign-in, the last one's; administrators see every proposal).
         await admin.SetViewportSizeAsync(390, 844);
