@@ -79,6 +79,102 @@ public sealed class FullDiskTests(PacketDatabase db) : IClassFixture<PacketDatab
         }
     }
 
+    /// <summary>
+    /// A real full disk where the machine allows it (root may mount a tmpfs, as on CI): the database on a file system of
+    /// 8 MiB filled to its last few kilobytes, so the operating system itself refuses the packets' pages (ENOSPC).
+    /// Where mounting is not allowed the test says so and ends; the simulated one above covers every point of the write.
+    /// </summary>
+    [Fact]
+    public async Task On_a_file_system_that_is_really_full_the_packets_are_refused_whole_and_made_once_there_is_room()
+    {
+        string mountPoint = Directory.CreateTempSubdirectory("capreview-fullfs-").FullName;
+        if (!Run("mount", "-t", "tmpfs", "-o", "size=8m", "tmpfs", mountPoint))
+        {
+            Directory.Delete(mountPoint);
+            Console.WriteLine("Mounting a tmpfs is not allowed here; the real full-disk test did not run.");
+            return;
+        }
+        try
+        {
+            var small = new PacketDatabase { DatabaseFolder = mountPoint };
+            await small.InitializeAsync();
+            try
+            {
+                var (cycle, _) = await small.DecidedCycleAsync("Really full 2027", (90_000, 16_000), (40_000, 9_000));
+                string filler = Path.Combine(mountPoint, "filler");
+                await using (var fill = new FileStream(filler, FileMode.CreateNew))
+                {
+                    byte[] block = new byte[4096];
+                    try
+                    {
+                        while (true)
+                        {
+                            fill.Write(block);
+                            fill.Flush();
+                        }
+                    }
+                    catch (IOException)
+                    {
+                        // The file system is full.
+                    }
+                }
+                // Give back a few pages, less than one packet needs.
+                using (var trim = new FileStream(filler, FileMode.Open))
+                {
+                    trim.SetLength(Math.Max(0, trim.Length - (16 * 1024)));
+                }
+
+                var refusal = await Assert.ThrowsAnyAsync<Exception>(() => small.Get<PacketService>().PublishCycleAsync(Board, cycle.Id, None));
+                // SQLite reports a full disk as SQLITE_FULL, or as SQLITE_IOERR when the write of its journal is what fails.
+                Assert.Contains(Innermost<SqliteException>(refusal)?.SqliteErrorCode ?? 0, new[] { 10, 13 });
+
+                // Room again: SQLite rolls its journal back on the next open (it may not even read while the disk is full).
+                File.Delete(filler);
+                Assert.Empty(await small.Get<PacketArchive>().ListAsync(Finance, cycle.Id, None));
+                var made = await small.Get<PacketService>().PublishCycleAsync(Board, cycle.Id, None);
+                Assert.Equal(3, made.Count);
+                foreach (PacketSummary packet in made)
+                {
+                    AssertWhole(await small.Get<PacketArchive>().DownloadAsync(Finance, packet.Id, None));
+                }
+                await using var context = small.NewContext();
+                await context.Database.OpenConnectionAsync();
+                await using var check = context.Database.GetDbConnection().CreateCommand();
+                check.CommandText = "PRAGMA integrity_check";
+                Assert.Equal("ok", await check.ExecuteScalarAsync());
+            }
+            finally
+            {
+                await small.DisposeAsync();
+            }
+        }
+        finally
+        {
+            SqliteConnection.ClearAllPools();
+            Run("umount", mountPoint);
+            Directory.Delete(mountPoint, recursive: true);
+        }
+    }
+
+    private static bool Run(string program, params string[] arguments)
+    {
+        try
+        {
+            var start = new System.Diagnostics.ProcessStartInfo(program) { RedirectStandardError = true, RedirectStandardOutput = true, UseShellExecute = false };
+            foreach (string argument in arguments)
+            {
+                start.ArgumentList.Add(argument);
+            }
+            using var process = System.Diagnostics.Process.Start(start)!;
+            process.WaitForExit();
+            return process.ExitCode == 0;
+        }
+        catch (System.ComponentModel.Win32Exception)
+        {
+            return false;
+        }
+    }
+
     private static void AssertWhole(ApprovalPacket packet)
     {
         Assert.Equal(packet.FileSha256, PacketArchive.Sha256(packet.Content));

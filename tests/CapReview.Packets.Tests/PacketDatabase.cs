@@ -20,6 +20,9 @@ public sealed class PacketDatabase : IAsyncLifetime
 {
     private readonly string _folder = Directory.CreateTempSubdirectory("capreview-packetdb-").FullName;
 
+    /// <summary>Where the database file lives: the fixture's own folder unless a test gives another (a small file system of its own).</summary>
+    public string? DatabaseFolder { get; init; }
+
     public static readonly Actor Admin = Actor.Of("admin-1", "Ines Admin", Role.Administrator);
     public static readonly Actor Lead = Actor.Of("lead-1", "Oskar Lead", Role.ProjectLead);
     public static readonly Actor OtherLead = Actor.Of("lead-2", "Maren Lead", Role.ProjectLead);
@@ -39,7 +42,7 @@ public sealed class PacketDatabase : IAsyncLifetime
     public async Task InitializeAsync()
     {
         Services = new ServiceCollection()
-            .AddReviews($"Data Source={Path.Combine(_folder, "packets.db")};Pooling=False")
+            .AddReviews($"Data Source={Path.Combine(DatabaseFolder ?? _folder, "packets.db")};Pooling=False")
             .ConfigureDbContext<CapReviewDbContext>(options => options.AddInterceptors(Disk))
             .AddPackets(new PacketOptions { Signing = new PacketSigningOptions { DevelopmentCertificatePath = Path.Combine(_folder, "signing.pfx") } })
             .BuildServiceProvider();
