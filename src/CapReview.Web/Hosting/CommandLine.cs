@@ -4,11 +4,12 @@ namespace CapReview.Web.Hosting;
 
 /// <summary>
 /// Verbs of the web app for a fresh install, so that automation never needs a browser:
-/// <c>create-admin --email a@b --name "A B" --password …</c> and <c>issue-token --email a@b --token-name ci</c>.
+/// <c>create-admin --email a@b --name "A B" --password …</c>, <c>issue-token --email a@b --token-name ci</c> and
+/// <c>revoke-tokens --email a@b</c> (every token of that person; other app servers refuse them within 30 seconds).
 /// </summary>
 public static class CommandLine
 {
-    private static readonly string[] Verbs = ["create-admin", "issue-token"];
+    private static readonly string[] Verbs = ["create-admin", "issue-token", "revoke-tokens"];
 
     public static bool Handles(string[] args) => args is [var verb, ..] && Verbs.Contains(verb);
 
@@ -27,10 +28,13 @@ public static class CommandLine
                     var user = await identity.CreateUserAsync(Required(options, "email"), Required(options, "name"), Required(options, "password"), [RoleNames.Administrator]).ConfigureAwait(false);
                     await Console.Out.WriteLineAsync($"Administrator {user.Email} created.").ConfigureAwait(false);
                     return 0;
+                case "revoke-tokens":
+                    var holder = await FindAsync(identity, options).ConfigureAwait(false);
+                    int revoked = await scope.ServiceProvider.GetRequiredService<ApiTokenService>().RevokeAllAsync(holder.Id, CancellationToken.None).ConfigureAwait(false);
+                    await Console.Out.WriteLineAsync($"{revoked} API token(s) of {holder.Email} revoked.").ConfigureAwait(false);
+                    return 0;
                 default:
-                    string email = Required(options, "email");
-                    var owner = await identity.FindByEmailAsync(email).ConfigureAwait(false)
-                        ?? throw new InvalidOperationException($"There is no user {email}.");
+                    var owner = await FindAsync(identity, options).ConfigureAwait(false);
                     string token = await scope.ServiceProvider.GetRequiredService<ApiTokenService>()
                         .IssueAsync(owner.Id, options.GetValueOrDefault("token-name") ?? "command line", CancellationToken.None).ConfigureAwait(false);
                     await Console.Out.WriteLineAsync(token).ConfigureAwait(false);
@@ -42,6 +46,12 @@ public static class CommandLine
             await Console.Error.WriteLineAsync($"{args[0]}: {ex.Message}").ConfigureAwait(false);
             return 2;
         }
+    }
+
+    private static async Task<CapReviewUser> FindAsync(IdentityStore identity, Dictionary<string, string> options)
+    {
+        string email = Required(options, "email");
+        return await identity.FindByEmailAsync(email).ConfigureAwait(false) ?? throw new InvalidOperationException($"There is no user {email}.");
     }
 
     private static Dictionary<string, string> Options(string[] args)

@@ -32,6 +32,14 @@ public sealed class ApiTokenService(IDbContextFactory<CapReviewIdentityDbContext
             .SingleOrDefaultAsync(cancellationToken).ConfigureAwait(false);
     }
 
+    /// <summary>Revokes every token of the user (kept, marked with the time); how many were still valid.</summary>
+    public async Task<int> RevokeAllAsync(string userId, CancellationToken cancellationToken)
+    {
+        await using var db = await contexts.CreateDbContextAsync(cancellationToken).ConfigureAwait(false);
+        return await db.ApiTokens.Where(t => t.UserId == userId && t.RevokedAt == null)
+            .ExecuteUpdateAsync(t => t.SetProperty(x => x.RevokedAt, clock.GetUtcNow()), cancellationToken).ConfigureAwait(false);
+    }
+
     public static string Hash(string token) => Convert.ToHexStringLower(SHA256.HashData(Encoding.UTF8.GetBytes(token)));
 
     private static string Base64Url(byte[] bytes) => Convert.ToBase64String(bytes).TrimEnd('=').Replace('+', '-').Replace('/', '_');

@@ -16,7 +16,7 @@ public sealed record UserSummary(string Id, string Email, string DisplayName, IR
 /// Users and roles for administrators. Each operation runs in a scope of its own, so that no page holds Identity's
 /// DbContext for the life of a circuit.
 /// </summary>
-public sealed class UserAdministration(IServiceScopeFactory scopes, ReviewWork work, CapReview.Reviews.Audit.AuditTrail audit)
+public sealed class UserAdministration(IServiceScopeFactory scopes, ReviewWork work, CapReview.Reviews.Audit.AuditTrail audit, ApiTokenCache tokens)
 {
     public async Task<IReadOnlyList<UserSummary>> ListAsync(Actor actor, CancellationToken cancellationToken)
     {
@@ -138,6 +138,8 @@ public sealed class UserAdministration(IServiceScopeFactory scopes, ReviewWork w
             throw new RuleViolationException(string.Join(" ", result.Errors.Select(e => e.Description)));
         }
         await users.UpdateSecurityStampAsync(user).ConfigureAwait(false);
+        // A disabled account's tokens are refused at once here (other servers within the cache's 30 seconds).
+        tokens.Forget();
         await work.RunAsync(async db =>
         {
             await audit.AppendAsync(db, actor, action, "user", user.Id, null, new { user.Email }, CancellationToken.None).ConfigureAwait(false);

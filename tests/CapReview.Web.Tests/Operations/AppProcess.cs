@@ -39,22 +39,11 @@ public sealed class AppProcess : IAsyncDisposable
     {
         ArgumentNullException.ThrowIfNull(database);
         Uri address = new($"http://127.0.0.1:{FreePort()}");
-        var start = new ProcessStartInfo("dotnet")
-        {
-            WorkingDirectory = AppContext.BaseDirectory,
-            RedirectStandardOutput = true,
-            RedirectStandardError = true,
-            UseShellExecute = false,
-        };
-        start.ArgumentList.Add(Path.Combine(AppContext.BaseDirectory, "CapReview.Web.dll"));
+        var start = Start(database);
         start.ArgumentList.Add("--contentRoot");
         start.ArgumentList.Add(WebProjectFolder());
         start.ArgumentList.Add("--urls");
         start.ArgumentList.Add(address.ToString());
-        start.Environment["ASPNETCORE_ENVIRONMENT"] = "Development";
-        start.Environment["Storage__Provider"] = database.Provider.ToString();
-        start.Environment["ConnectionStrings__CapReview"] = database.ConnectionString;
-        start.Environment["Demo__Enabled"] = "false";
         start.Environment["RateLimits__ApiPerMinute"] = "1000000";
         var app = new AppProcess(Process.Start(start) ?? throw new InvalidOperationException("dotnet did not start."), address);
         app._process.OutputDataReceived += app.Keep;
@@ -88,6 +77,22 @@ public sealed class AppProcess : IAsyncDisposable
         throw new InvalidOperationException("The app did not become ready. It wrote:\n" + output);
     }
 
+    /// <summary>Runs one of the app's command-line verbs (create-admin, issue-token, revoke-tokens) on the database; its exit code and output.</summary>
+    public static async Task<(int ExitCode, string Output)> RunVerbAsync(DatabaseSettings database, params string[] arguments)
+    {
+        ArgumentNullException.ThrowIfNull(database);
+        var start = Start(database);
+        foreach (string argument in arguments)
+        {
+            start.ArgumentList.Add(argument);
+        }
+        using Process process = Process.Start(start) ?? throw new InvalidOperationException("dotnet did not start.");
+        Task<string> output = process.StandardOutput.ReadToEndAsync();
+        Task<string> errors = process.StandardError.ReadToEndAsync();
+        await process.WaitForExitAsync();
+        return (process.ExitCode, await output + await errors);
+    }
+
     /// <summary>Ends the process at once with SIGKILL: no shutdown, no flushing, no finally blocks.</summary>
     public async Task KillAsync()
     {
@@ -102,6 +107,24 @@ public sealed class AppProcess : IAsyncDisposable
     {
         await KillAsync();
         _process.Dispose();
+    }
+
+    /// <summary>The built app under dotnet, in Development settings without demo data, on the database.</summary>
+    private static ProcessStartInfo Start(DatabaseSettings database)
+    {
+        var start = new ProcessStartInfo("dotnet")
+        {
+            WorkingDirectory = AppContext.BaseDirectory,
+            RedirectStandardOutput = true,
+            RedirectStandardError = true,
+            UseShellExecute = false,
+        };
+        start.ArgumentList.Add(Path.Combine(AppContext.BaseDirectory, "CapReview.Web.dll"));
+        start.Environment["ASPNETCORE_ENVIRONMENT"] = "Development";
+        start.Environment["Storage__Provider"] = database.Provider.ToString();
+        start.Environment["ConnectionStrings__CapReview"] = database.ConnectionString;
+        start.Environment["Demo__Enabled"] = "false";
+        return start;
     }
 
     private void Keep(object sender, DataReceivedEventArgs e)
