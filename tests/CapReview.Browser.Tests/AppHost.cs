@@ -29,6 +29,8 @@ public sealed class AppHost : WebApplicationFactory<Program>
         builder.UseSetting("Demo:Enabled", "false");
         // The tests sign in far more often than a person would; the limit itself is tested in CapReview.Web.Tests.
         builder.UseSetting("RateLimits:SignInPerMinute", "100000");
+        // Open pages check their sessions every second here, so that a session ended elsewhere shows at once.
+        builder.UseSetting("Security:SessionCheckSeconds", "1");
     }
 
     public const string Password = "browser-tests-2027";

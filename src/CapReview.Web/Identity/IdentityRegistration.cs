@@ -134,6 +134,8 @@ public static class IdentityRegistration
                 .AddAuthenticationSchemes(IdentityConstants.ApplicationScheme, ApiTokenAuthenticationHandler.SchemeName)
                 .RequireAuthenticatedUser());
         services.AddCascadingAuthenticationState();
+        services.AddSingleton(sessions);
+        services.AddScoped<Microsoft.AspNetCore.Components.Authorization.AuthenticationStateProvider, CircuitSessionCheck>();
         services.AddSingleton<ApiTokenService>();
         services.AddSingleton<ApiTokenCache>();
         services.AddSingleton<CapReview.Reviews.Interchange.IPeopleDirectory, PeopleDirectory>();

@@ -1,5 +1,6 @@
 using System.Net;
 using System.Text.RegularExpressions;
+using CapReview.TestSupport;
 using CapReview.Web.Identity;
 using CapReview.Web.Tests.Api;
 using Microsoft.AspNetCore.Hosting;

@@ -1,7 +1,7 @@
 using System.Globalization;
 using System.Security.Cryptography;
 
-namespace CapReview.Web.Tests.Security;
+namespace CapReview.TestSupport;
 
 /// <summary>
 /// The tests' own authenticator app: time-based one-time codes as RFC 6238 defines them (HMAC-SHA1 over the count
