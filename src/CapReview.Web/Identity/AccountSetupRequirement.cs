@@ -12,6 +12,9 @@ public static class AccountSetupRequirement
 {
     private static readonly string[] Open = ["/account", "/signin", "/signout", "/health", "/not-found", "/denied", "/error", "/_framework", "/_content"];
 
+    /// <summary>The kinds of static file the pages load (styles, scripts, icons, fonts); not JSON, so not the OpenAPI document.</summary>
+    private static readonly string[] StaticFiles = [".css", ".js", ".mjs", ".map", ".svg", ".png", ".ico", ".woff", ".woff2"];
+
     public static IApplicationBuilder UseAccountSetupRequirement(this IApplicationBuilder app, IConfiguration configuration)
     {
         ArgumentNullException.ThrowIfNull(app);
@@ -21,7 +24,7 @@ public static class AccountSetupRequirement
             bool browser = context.User.Identity is { IsAuthenticated: true, AuthenticationType: var scheme } && scheme == IdentityConstants.ApplicationScheme;
             bool unfinished = browser && ((twoStepRequired && !context.User.HasClaim("amr", "mfa")) || context.User.HasClaim(FirstPassword.Claim, "1"));
             if (!unfinished || Open.Any(p => context.Request.Path.StartsWithSegments(p, StringComparison.OrdinalIgnoreCase))
-                || Path.HasExtension(context.Request.Path.Value))
+                || (HttpMethods.IsGet(context.Request.Method) && StaticFiles.Contains(Path.GetExtension(context.Request.Path.Value), StringComparer.OrdinalIgnoreCase)))
             {
                 await next(context).ConfigureAwait(false);
                 return;

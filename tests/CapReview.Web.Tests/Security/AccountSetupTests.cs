@@ -59,6 +59,10 @@ public sealed partial class AccountSetupTests(ApiFactory factory) : IClassFixtur
         {
             Assert.Equal(HttpStatusCode.Forbidden, api.StatusCode);
         }
+        using (var openApi = await browser.GetAsync("/openapi/v1.json"))
+        {
+            Assert.Equal(HttpStatusCode.Forbidden, openApi.StatusCode);
+        }
         string account = await browser.GetStringAsync("/account");
         Assert.Contains("data-testid=\"two-step-required\"", account, StringComparison.Ordinal);
         Assert.Contains("<svg", account, StringComparison.Ordinal);
