@@ -72,10 +72,7 @@ public sealed class FullDiskTests(PacketDatabase db) : IClassFixture<PacketDatab
             Assert.Equal(ids.Order(), storedEvents.Order());
             AuditVerification chain = await AuditTrail.VerifyAsync(context, None);
             Assert.True(chain.Intact, chain.Message);
-            await context.Database.OpenConnectionAsync();
-            await using var check = context.Database.GetDbConnection().CreateCommand();
-            check.CommandText = "PRAGMA integrity_check";
-            Assert.Equal("ok", await check.ExecuteScalarAsync());
+            await AssertFileIntactAsync(context);
         }
     }
 
@@ -138,10 +135,7 @@ public sealed class FullDiskTests(PacketDatabase db) : IClassFixture<PacketDatab
                     AssertWhole(await small.Get<PacketArchive>().DownloadAsync(Finance, packet.Id, None));
                 }
                 await using var context = small.NewContext();
-                await context.Database.OpenConnectionAsync();
-                await using var check = context.Database.GetDbConnection().CreateCommand();
-                check.CommandText = "PRAGMA integrity_check";
-                Assert.Equal("ok", await check.ExecuteScalarAsync());
+                await AssertFileIntactAsync(context);
             }
             finally
             {
@@ -173,6 +167,15 @@ public sealed class FullDiskTests(PacketDatabase db) : IClassFixture<PacketDatab
         {
             return false;
         }
+    }
+
+    /// <summary>SQLite's own check of the whole file: pages, indexes, free list.</summary>
+    private static async Task AssertFileIntactAsync(CapReview.Reviews.Storage.CapReviewDbContext context)
+    {
+        await context.Database.OpenConnectionAsync();
+        await using var check = context.Database.GetDbConnection().CreateCommand();
+        check.CommandText = "PRAGMA integrity_check";
+        Assert.Equal("ok", await check.ExecuteScalarAsync());
     }
 
     private static void AssertWhole(ApprovalPacket packet)

@@ -1,4 +1,11 @@
 using System.Net.Http.Headers;
+using CapReview.Engine.CashFlows;
+using CapReview.Engine.Rates;
+using CapReview.Engine.Specifications;
+using CapReview.Reviews.Access;
+using CapReview.Reviews.Cycles;
+using CapReview.Reviews.Marr;
+using CapReview.Reviews.Proposals;
 using CapReview.Web.Identity;
 using Microsoft.AspNetCore.Hosting;
 using Microsoft.AspNetCore.Mvc.Testing;
@@ -51,6 +58,39 @@ public sealed class ApiFactory : WebApplicationFactory<Program>
         client.DefaultRequestHeaders.Authorization = new AuthenticationHeaderValue("Bearer", token);
         return (client, user.Id);
     }
+
+    /// <summary>
+    /// An open cycle under a MARR policy of its own (effective <paramref name="marr"/>) with the draft of a project lead
+    /// submitted to it; the cycle and the proposal as submitted.
+    /// </summary>
+    public async Task<(BudgetCycle Cycle, ProposalView Proposal)> CycleWithSubmittedProposalAsync(string cycleName, double marr, ProposalDraft draft, string leadId = "cycle-lead")
+    {
+        var admin = Actor.Of("cycle-admin", "Cycle Admin", Role.Administrator);
+        var lead = Actor.Of(leadId, "Cycle Lead", Role.ProjectLead);
+        var policy = await Services.GetRequiredService<MarrPolicyService>().AddVersionAsync(admin,
+            new NewMarrPolicy(marr, RateBasis.Effective, 1, new DateOnly(2027, 1, 1), cycleName + " policy"), CancellationToken.None);
+        var cycle = await Services.GetRequiredService<CycleService>().CreateAsync(admin,
+            new NewBudgetCycle(cycleName, 500_000m, policy.Id, new DateOnly(2027, 1, 1), new DateOnly(2027, 3, 31)), CancellationToken.None);
+        var proposals = Services.GetRequiredService<ProposalService>();
+        var created = await proposals.CreateDraftAsync(lead, draft, CancellationToken.None);
+        return (cycle, await proposals.SubmitAsync(lead, created.Id, cycle.Id, created.Revision, CancellationToken.None));
+    }
+
+    /// <summary>A draft of one first cost and a level yearly saving, as leads write them.</summary>
+    public static ProposalDraft Draft(string title, int horizon, double cost, double saving, string costLabel = "Purchase", string savingLabel = "Saving",
+        CashFlowCategory savingCategory = CashFlowCategory.Revenue, string description = "", ProposalCategory category = ProposalCategory.CostReduction) =>
+        new(title, description, category, RiskClass.Standard, new ProposalAssumptions
+        {
+            Model = new ModelSpec
+            {
+                Horizon = horizon,
+                Elements =
+                [
+                    new ElementSpec { Type = ElementKind.Single, Label = costLabel, Category = CashFlowCategory.Capital, Period = 0, Amount = -cost },
+                    new ElementSpec { Type = ElementKind.Uniform, Label = savingLabel, Category = savingCategory, First = 1, Last = horizon, Amount = saving },
+                ],
+            },
+        }, null);
 
     protected override void Dispose(bool disposing)
     {

@@ -20,26 +20,7 @@ public sealed class CycleApiTests(ApiFactory factory) : IClassFixture<ApiFactory
     [Fact]
     public async Task Finance_reads_the_cycles_and_a_cycles_ranking_and_a_lead_is_refused_the_ranking()
     {
-        var admin = Actor.Of("api-admin", "API Admin", Role.Administrator);
-        var lead = Actor.Of("api-lead", "API Lead", Role.ProjectLead);
-        var marr = await factory.Services.GetRequiredService<MarrPolicyService>().AddVersionAsync(admin,
-            new NewMarrPolicy(0.08, RateBasis.Effective, 1, new DateOnly(2027, 1, 1), "API policy"), CancellationToken.None);
-        var cycle = await factory.Services.GetRequiredService<CycleService>().CreateAsync(admin,
-            new NewBudgetCycle("API cycle", 500_000m, marr.Id, new DateOnly(2027, 1, 1), new DateOnly(2027, 3, 31)), CancellationToken.None);
-        var proposals = factory.Services.GetRequiredService<ProposalService>();
-        var draft = await proposals.CreateDraftAsync(lead, new ProposalDraft("Press", "", ProposalCategory.CostReduction, RiskClass.Standard, new ProposalAssumptions
-        {
-            Model = new ModelSpec
-            {
-                Horizon = 10,
-                Elements =
-                [
-                    new ElementSpec { Type = ElementKind.Single, Label = "Press", Category = CashFlowCategory.Capital, Period = 0, Amount = -80_000 },
-                    new ElementSpec { Type = ElementKind.Uniform, Label = "Saving", Category = CashFlowCategory.Revenue, First = 1, Last = 10, Amount = 16_000 },
-                ],
-            },
-        }, null), CancellationToken.None);
-        await proposals.SubmitAsync(lead, draft.Id, cycle.Id, draft.Revision, CancellationToken.None);
+        var (cycle, draft) = await factory.CycleWithSubmittedProposalAsync("API cycle", 0.08, ApiFactory.Draft("Press", 10, 80_000, 16_000, costLabel: "Press"), "api-lead");
 
         using HttpClient finance = await FinanceClientAsync();
         using JsonDocument cycles = JsonDocument.Parse(await finance.GetStringAsync("/api/v1/cycles"));

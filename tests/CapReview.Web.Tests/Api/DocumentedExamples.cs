@@ -77,16 +77,8 @@ public sealed partial class DocumentedExamples(ApiFactory factory) : IClassFixtu
         }
     }
 
-    private static string ApiDocument()
-    {
-        var folder = new DirectoryInfo(AppContext.BaseDirectory);
-        while (folder is not null && !File.Exists(Path.Combine(folder.FullName, "CapReview.sln")))
-        {
-            folder = folder.Parent;
-        }
-        Assert.NotNull(folder);
-        return File.ReadAllText(Path.Combine(folder.FullName, "docs", "api.md")).Replace("\r\n", "\n", StringComparison.Ordinal);
-    }
+    private static string ApiDocument() =>
+        File.ReadAllText(RepositoryFolder.Path("docs", "api.md")).Replace("\r\n", "\n", StringComparison.Ordinal);
 
     [GeneratedRegex(@"<!-- example: ([\w-]+)(?: \(answers (\d{3})\))? -->")]
     private static partial Regex ExampleMarker();

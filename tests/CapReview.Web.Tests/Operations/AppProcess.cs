@@ -41,7 +41,7 @@ public sealed class AppProcess : IAsyncDisposable
         Uri address = new($"http://127.0.0.1:{FreePort()}");
         var start = Start(database);
         start.ArgumentList.Add("--contentRoot");
-        start.ArgumentList.Add(WebProjectFolder());
+        start.ArgumentList.Add(RepositoryFolder.Path("src", "CapReview.Web"));
         start.ArgumentList.Add("--urls");
         start.ArgumentList.Add(address.ToString());
         start.Environment["RateLimits__ApiPerMinute"] = "1000000";
@@ -143,17 +143,5 @@ public sealed class AppProcess : IAsyncDisposable
         using var listener = new TcpListener(IPAddress.Loopback, 0);
         listener.Start();
         return ((IPEndPoint)listener.LocalEndpoint).Port;
-    }
-
-    private static string WebProjectFolder()
-    {
-        for (var folder = new DirectoryInfo(AppContext.BaseDirectory); folder is not null; folder = folder.Parent)
-        {
-            if (File.Exists(Path.Combine(folder.FullName, "CapReview.sln")))
-            {
-                return Path.Combine(folder.FullName, "src", "CapReview.Web");
-            }
-        }
-        throw new InvalidOperationException("The repository's root (CapReview.sln) is not above the test's folder.");
     }
 }

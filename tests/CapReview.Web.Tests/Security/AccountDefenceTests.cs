@@ -50,12 +50,8 @@ public sealed class AccountDefenceTests(ApiFactory factory) : IClassFixture<ApiF
         await CreateUserAsync(factory.Services, "return.address@tarnby.example", "return-tests-2027");
         using HttpClient client = factory.CreateClient(new WebApplicationFactoryClientOptions { AllowAutoRedirect = false });
         string form = await client.GetStringAsync("/signin?ReturnUrl=%5C%5Celsewhere.example");
-        using var content = new FormUrlEncodedContent(new Dictionary<string, string>
-        {
-            ["__RequestVerificationToken"] = FormSignIn.AntiforgeryToken(form), ["_handler"] = "signin",
-            ["Input.Email"] = "return.address@tarnby.example", ["Input.Password"] = "return-tests-2027",
-        });
-        using var signedIn = await client.PostAsync("/signin?ReturnUrl=%5C%5Celsewhere.example", content);
+        using var signedIn = await FormSignIn.PostFormAsync(client, "/signin?ReturnUrl=%5C%5Celsewhere.example", form, "signin",
+            ("Input.Email", "return.address@tarnby.example"), ("Input.Password", "return-tests-2027"));
         Assert.Equal(HttpStatusCode.Redirect, signedIn.StatusCode);
         Assert.Equal("localhost", new Uri(new Uri("http://localhost/"), signedIn.Headers.Location!).Host);
     }
@@ -84,13 +80,13 @@ public sealed class AccountDefenceTests(ApiFactory factory) : IClassFixture<ApiF
         Assert.DoesNotContain("expires=", session.ToLowerInvariant(), StringComparison.Ordinal);
     }
 
-    internal static async Task CreateUserAsync(IServiceProvider services, string email, string password)
+    internal static async Task CreateUserAsync(IServiceProvider services, string email, string password, string role = RoleNames.ProjectLead)
     {
         using var scope = services.CreateScope();
         var identity = scope.ServiceProvider.GetRequiredService<IdentityStore>();
         if (await identity.FindByEmailAsync(email) is null)
         {
-            await identity.CreateUserAsync(email, email, password, [RoleNames.ProjectLead]);
+            await identity.CreateUserAsync(email, email, password, [role]);
         }
     }
 }

@@ -37,12 +37,7 @@ public sealed partial class AccountSetupTests(ApiFactory factory) : IClassFixtur
     public async Task Where_two_step_sign_in_is_required_a_password_alone_reaches_only_the_account_page_until_an_app_is_set_up()
     {
         var clock = new SteppedClock(DateTimeOffset.UtcNow);
-        using var app = factory.WithWebHostBuilder(builder =>
-        {
-            builder.UseSetting("Security:RequireTwoFactor", "true");
-            builder.UseSetting("Security:SessionCheckSeconds", "0");
-            builder.ConfigureTestServices(services => services.AddSingleton<TimeProvider>(clock));
-        });
+        using var app = TwoStepRequired(clock);
         await AccountDefenceTests.CreateUserAsync(app.Services, "two.step@tarnby.example", Password);
         using HttpClient browser = NewBrowser(app);
         using (var signedIn = await FormSignIn.PostAsync(browser, "two.step@tarnby.example", Password))
@@ -96,7 +91,7 @@ public sealed partial class AccountSetupTests(ApiFactory factory) : IClassFixtur
         string replayed = await PostFormAsync(again, "/signin", second, "signin-code", ("Second.Code", Rfc6238.Code(secret, clock.GetUtcNow())));
         Assert.Contains("That code is not right", replayed, StringComparison.Ordinal);
         clock.Advance(TimeSpan.FromSeconds(30));
-        using (var signedIn = await PostFormResponseAsync(again, "/signin", replayed, "signin-code", ("Second.Code", Rfc6238.Code(secret, clock.GetUtcNow()))))
+        using (var signedIn = await FormSignIn.PostFormAsync(again, "/signin", replayed, "signin-code", ("Second.Code", Rfc6238.Code(secret, clock.GetUtcNow()))))
         {
             Assert.Equal(HttpStatusCode.Redirect, signedIn.StatusCode);
         }
@@ -108,7 +103,7 @@ public sealed partial class AccountSetupTests(ApiFactory factory) : IClassFixtur
         // A recovery code signs in once, typed in lower case without its hyphens if need be.
         using HttpClient lostPhone = NewBrowser(app);
         string asked = await (await FormSignIn.PostAsync(lostPhone, "two.step@tarnby.example", Password)).Content.ReadAsStringAsync();
-        using (var recovered = await PostFormResponseAsync(lostPhone, "/signin", asked, "signin-code", ("Second.Code", recovery[0].Replace("-", "", StringComparison.Ordinal).ToLowerInvariant())))
+        using (var recovered = await FormSignIn.PostFormAsync(lostPhone, "/signin", asked, "signin-code", ("Second.Code", recovery[0].Replace("-", "", StringComparison.Ordinal).ToLowerInvariant())))
         {
             Assert.Equal(HttpStatusCode.Redirect, recovered.StatusCode);
         }
@@ -187,12 +182,7 @@ public sealed partial class AccountSetupTests(ApiFactory factory) : IClassFixtur
     public async Task An_administrator_resets_two_step_sign_in_for_a_lost_phone_and_the_old_key_stops_working()
     {
         var clock = new SteppedClock(DateTimeOffset.UtcNow);
-        using var app = factory.WithWebHostBuilder(builder =>
-        {
-            builder.UseSetting("Security:RequireTwoFactor", "true");
-            builder.UseSetting("Security:SessionCheckSeconds", "0");
-            builder.ConfigureTestServices(services => services.AddSingleton<TimeProvider>(clock));
-        });
+        using var app = TwoStepRequired(clock);
         await AccountDefenceTests.CreateUserAsync(app.Services, "lost.phone@tarnby.example", Password);
         using HttpClient browser = NewBrowser(app);
         (await FormSignIn.PostAsync(browser, "lost.phone@tarnby.example", Password)).Dispose();
@@ -221,24 +211,21 @@ public sealed partial class AccountSetupTests(ApiFactory factory) : IClassFixtur
         Assert.Contains("That code is not the one the app shows now", refused, StringComparison.Ordinal);
     }
 
-    private static HttpClient NewBrowser(WebApplicationFactory<Program> app) =>
-        app.CreateClient(new WebApplicationFactoryClientOptions { AllowAutoRedirect = false, HandleCookies = true });
+    /// <summary>The app with two-step sign-in required, the test's clock, and sessions checked against the account on every request.</summary>
+    private WebApplicationFactory<Program> TwoStepRequired(SteppedClock clock) => factory.WithWebHostBuilder(builder =>
+    {
+        builder.UseSetting("Security:RequireTwoFactor", "true");
+        builder.UseSetting("Security:SessionCheckSeconds", "0");
+        builder.ConfigureTestServices(services => services.AddSingleton<TimeProvider>(clock));
+    });
+
+    private static HttpClient NewBrowser(WebApplicationFactory<Program> app) => FormSignIn.NewBrowser(app);
 
     private static async Task<string> PostFormAsync(HttpClient client, string path, string page, string form, params (string Name, string Value)[] fields)
     {
-        using var answer = await PostFormResponseAsync(client, path, page, form, fields);
+        using var answer = await FormSignIn.PostFormAsync(client, path, page, form, fields);
         Assert.Equal(HttpStatusCode.OK, answer.StatusCode);
         return await answer.Content.ReadAsStringAsync();
-    }
-
-    private static Task<HttpResponseMessage> PostFormResponseAsync(HttpClient client, string path, string page, string form, params (string Name, string Value)[] fields)
-    {
-        var values = new Dictionary<string, string> { ["__RequestVerificationToken"] = FormSignIn.AntiforgeryToken(page), ["_handler"] = form };
-        foreach (var (name, value) in fields)
-        {
-            values[name] = value;
-        }
-        return client.PostAsync(path, new FormUrlEncodedContent(values));
     }
 
     [GeneratedRegex("data-testid=\"authenticator-key\">([a-z2-7 ]+)<")]

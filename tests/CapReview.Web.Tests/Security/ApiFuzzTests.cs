@@ -137,30 +137,8 @@ public sealed class ApiFuzzTests(ApiFactory factory) : IClassFixture<ApiFactory>
         return client;
     }
 
-    private async Task<int> CycleWithProposalAsync()
-    {
-        var admin = Actor.Of("fuzz-admin", "Fuzz Admin", Role.Administrator);
-        var lead = Actor.Of("fuzz-lead", "Fuzz Lead", Role.ProjectLead);
-        var marr = await factory.Services.GetRequiredService<MarrPolicyService>().AddVersionAsync(admin,
-            new NewMarrPolicy(0.09, RateBasis.Effective, 1, new DateOnly(2027, 1, 1), "Fuzz policy"), CancellationToken.None);
-        var cycle = await factory.Services.GetRequiredService<CycleService>().CreateAsync(admin,
-            new NewBudgetCycle("Fuzz cycle " + Guid.NewGuid().ToString("N")[..6], 300_000m, marr.Id, new DateOnly(2027, 1, 1), new DateOnly(2027, 3, 31)), CancellationToken.None);
-        var proposals = factory.Services.GetRequiredService<ProposalService>();
-        var draft = await proposals.CreateDraftAsync(lead, new ProposalDraft("Kiln burner", "", ProposalCategory.CostReduction, RiskClass.Standard, new ProposalAssumptions
-        {
-            Model = new ModelSpec
-            {
-                Horizon = 8,
-                Elements =
-                [
-                    new ElementSpec { Type = ElementKind.Single, Label = "Kiln", Category = CashFlowCategory.Capital, Period = 0, Amount = -64_000 },
-                    new ElementSpec { Type = ElementKind.Uniform, Label = "Gas saved", Category = CashFlowCategory.Operating, First = 1, Last = 8, Amount = 11_000 },
-                ],
-            },
-        }, null), CancellationToken.None);
-        await proposals.SubmitAsync(lead, draft.Id, cycle.Id, draft.Revision, CancellationToken.None);
-        return cycle.Id;
-    }
+    private async Task<int> CycleWithProposalAsync() => (await factory.CycleWithSubmittedProposalAsync("Fuzz cycle " + Guid.NewGuid().ToString("N")[..6], 0.09,
+        ApiFactory.Draft("Kiln burner", 8, 64_000, 11_000, "Kiln", "Gas saved", CashFlowCategory.Operating), "fuzz-lead")).Cycle.Id;
 
     private static string Shorten(string body) => body.Length <= 400 ? body : body[..400] + "…";
 

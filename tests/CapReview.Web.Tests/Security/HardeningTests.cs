@@ -29,35 +29,10 @@ public sealed class HardeningTests(ApiFactory factory) : IClassFixture<ApiFactor
     [Fact]
     public async Task Text_a_lead_typed_is_shown_encoded_on_the_boards_pages_never_run()
     {
-        var admin = Actor.Of("hardening-admin", "Hardening Admin", Role.Administrator);
-        var lead = Actor.Of("hardening-lead", "Hardening Lead", Role.ProjectLead);
-        var marr = await factory.Services.GetRequiredService<MarrPolicyService>().AddVersionAsync(admin,
-            new NewMarrPolicy(0.08, RateBasis.Effective, 1, new DateOnly(2027, 1, 1), "Hardening policy"), CancellationToken.None);
-        var cycle = await factory.Services.GetRequiredService<CycleService>().CreateAsync(admin,
-            new NewBudgetCycle("Hardening cycle", 200_000m, marr.Id, new DateOnly(2027, 1, 1), new DateOnly(2027, 3, 31)), CancellationToken.None);
-        var proposals = factory.Services.GetRequiredService<ProposalService>();
-        var draft = await proposals.CreateDraftAsync(lead, new ProposalDraft(Script, "\" onmouseover=\"alert(2)", ProposalCategory.Other, RiskClass.Standard,
-            new ProposalAssumptions
-            {
-                Model = new ModelSpec
-                {
-                    Horizon = 4,
-                    Elements =
-                    [
-                        new ElementSpec { Type = ElementKind.Single, Label = "<img src=x onerror=alert(3)>", Category = CashFlowCategory.Capital, Period = 0, Amount = -10_000 },
-                        new ElementSpec { Type = ElementKind.Uniform, Label = "Saving", Category = CashFlowCategory.Revenue, First = 1, Last = 4, Amount = 4_000 },
-                    ],
-                },
-            }, null), CancellationToken.None);
-        await proposals.SubmitAsync(lead, draft.Id, cycle.Id, draft.Revision, CancellationToken.None);
+        var (cycle, draft) = await factory.CycleWithSubmittedProposalAsync("Hardening cycle", 0.08, ApiFactory.Draft(Script, 4, 10_000, 4_000,
+            costLabel: "<img src=x onerror=alert(3)>", description: "\" onmouseover=\"alert(2)", category: ProposalCategory.Other), "hardening-lead");
 
-        await AccountDefenceTests.CreateUserAsync(factory.Services, "hardening.board@tarnby.example", "ivory-trellis-2027");
-        using (var scope = factory.Services.CreateScope())
-        {
-            var users = scope.ServiceProvider.GetRequiredService<Microsoft.AspNetCore.Identity.UserManager<CapReviewUser>>();
-            var board = await users.FindByEmailAsync("hardening.board@tarnby.example");
-            await users.AddToRoleAsync(board!, RoleNames.Reviewer);
-        }
+        await AccountDefenceTests.CreateUserAsync(factory.Services, "hardening.board@tarnby.example", "ivory-trellis-2027", RoleNames.Reviewer);
         using HttpClient browser = factory.CreateClient(new WebApplicationFactoryClientOptions { AllowAutoRedirect = false });
         Assert.Equal(HttpStatusCode.Redirect, (await FormSignIn.PostAsync(browser, "hardening.board@tarnby.example", "ivory-trellis-2027")).StatusCode);
         foreach (string path in new[] { $"/cycles/{cycle.Id}/ranking", $"/cycles/{cycle.Id}", $"/proposals/{draft.Id}" })

@@ -67,7 +67,7 @@ public sealed partial class SecretsTests(ApiFactory factory) : IClassFixture<Api
     [Fact]
     public void The_repository_holds_no_private_key_no_token_and_no_real_password()
     {
-        string root = RepositoryRoot();
+        string root = RepositoryFolder.Root;
         var files = Git(root, "ls-files", "-z").Split('\0', StringSplitOptions.RemoveEmptyEntries);
         Assert.True(files.Length > 100, "git ls-files listed too few files");
         Assert.DoesNotContain(files, f => KeyFile().IsMatch(f));
@@ -92,18 +92,6 @@ public sealed partial class SecretsTests(ApiFactory factory) : IClassFixture<Api
                 Assert.True(allowed.Contains(password.Groups[1].Value), $"{file} holds a connection-string password: {password.Value}");
             }
         }
-    }
-
-    private static string RepositoryRoot()
-    {
-        for (var folder = new DirectoryInfo(AppContext.BaseDirectory); folder is not null; folder = folder.Parent)
-        {
-            if (File.Exists(Path.Combine(folder.FullName, "CapReview.sln")))
-            {
-                return folder.FullName;
-            }
-        }
-        throw new InvalidOperationException("The repository's root is not above the tests.");
     }
 
     private static string Git(string root, params string[] arguments)

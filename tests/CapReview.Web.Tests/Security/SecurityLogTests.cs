@@ -29,7 +29,7 @@ public sealed class SecurityLogTests(ApiFactory factory) : IClassFixture<ApiFact
         (await FormSignIn.PostAsync(browser, "logged.lead@tarnby.example", "plum-anchor-2027")).Dispose();
         Assert.Equal(HttpStatusCode.Redirect, (await browser.GetAsync("/admin/users")).StatusCode);
         string page = await browser.GetStringAsync("/proposals");
-        (await browser.PostAsync("/signout", new FormUrlEncodedContent(new Dictionary<string, string> { ["__RequestVerificationToken"] = FormSignIn.AntiforgeryToken(page) }))).Dispose();
+        (await FormSignIn.PostFormAsync(browser, "/signout", page, null)).Dispose();
         using (var forged = await browser.PostAsync("/signin", new FormUrlEncodedContent(new Dictionary<string, string> { ["_handler"] = "signin", ["Input.Email"] = "x@tarnby.example" })))
         {
             Assert.Equal(HttpStatusCode.BadRequest, forged.StatusCode);

@@ -28,7 +28,7 @@ public sealed class SessionTests(ApiFactory factory) : IClassFixture<ApiFactory>
         string cookie = signedIn.Headers.GetValues("Set-Cookie").Single(c => c.StartsWith("capreview=", StringComparison.Ordinal)).Split(';')[0];
         Assert.Equal(HttpStatusCode.OK, await StatusWithCookieAsync(app, cookie, "/proposals"));
         string form = await browser.GetStringAsync("/proposals");
-        using var signOut = await browser.PostAsync("/signout", new FormUrlEncodedContent(new Dictionary<string, string> { ["__RequestVerificationToken"] = FormSignIn.AntiforgeryToken(form) }));
+        using var signOut = await FormSignIn.PostFormAsync(browser, "/signout", form, null);
         Assert.Equal(HttpStatusCode.Redirect, signOut.StatusCode);
         Assert.Equal("\"cache\", \"storage\"", signOut.Headers.GetValues("Clear-Site-Data").Single());
 
@@ -43,11 +43,8 @@ public sealed class SessionTests(ApiFactory factory) : IClassFixture<ApiFactory>
         using HttpClient phone = NewBrowser(app);
         Assert.Equal(HttpStatusCode.Redirect, (await FormSignIn.PostAsync(phone, "changes.everywhere@tarnby.example", Password)).StatusCode);
         string account = await laptop.GetStringAsync("/account");
-        using var changed = await laptop.PostAsync("/account", new FormUrlEncodedContent(new Dictionary<string, string>
-        {
-            ["__RequestVerificationToken"] = FormSignIn.AntiforgeryToken(account), ["_handler"] = "change-password",
-            ["Change.Current"] = Password, ["Change.New"] = "saffron-tugboat-evening",
-        }));
+        using var changed = await FormSignIn.PostFormAsync(laptop, "/account", account, "change-password",
+            ("Change.Current", Password), ("Change.New", "saffron-tugboat-evening"));
         Assert.Contains("Your password is changed.", await changed.Content.ReadAsStringAsync(), StringComparison.Ordinal);
         Assert.Equal(HttpStatusCode.OK, (await laptop.GetAsync("/proposals")).StatusCode);
         Assert.Equal(HttpStatusCode.Redirect, (await phone.GetAsync("/proposals")).StatusCode);
@@ -153,6 +150,5 @@ public sealed class SessionTests(ApiFactory factory) : IClassFixture<ApiFactory>
         return (await scope.ServiceProvider.GetRequiredService<IdentityStore>().FindByEmailAsync(email))!.Id;
     }
 
-    private static HttpClient NewBrowser(WebApplicationFactory<Program> app) =>
-        app.CreateClient(new WebApplicationFactoryClientOptions { AllowAutoRedirect = false, HandleCookies = true });
+    private static HttpClient NewBrowser(WebApplicationFactory<Program> app) => FormSignIn.NewBrowser(app);
 }
