@@ -1,12 +1,5 @@
 using System.Net;
 using System.Text.Json;
-using CapReview.Engine.CashFlows;
-using CapReview.Engine.Rates;
-using CapReview.Engine.Specifications;
-using CapReview.Reviews.Access;
-using CapReview.Reviews.Cycles;
-using CapReview.Reviews.Marr;
-using CapReview.Reviews.Proposals;
 using CapReview.Web.Identity;
 using Microsoft.Extensions.DependencyInjection;
 using Microsoft.VisualBasic;

@@ -1,12 +1,6 @@
 using System.Net;
 using System.Text;
 using CapReview.Engine.CashFlows;
-using CapReview.Engine.Rates;
-using CapReview.Engine.Specifications;
-using CapReview.Reviews.Access;
-using CapReview.Reviews.Cycles;
-using CapReview.Reviews.Marr;
-using CapReview.Reviews.Proposals;
 using CapReview.Reviews.Storage;
 using CapReview.Web.Identity;
 using CapReview.Web.Tests.Api;
