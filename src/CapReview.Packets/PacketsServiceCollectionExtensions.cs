@@ -12,6 +12,7 @@ public static class PacketsServiceCollectionExtensions
         services.AddSingleton(options);
         services.AddSingleton<PacketCertificateSource>();
         services.AddSingleton<PacketService>();
+        services.AddSingleton<PacketJobRunner>();
         return services;
     }
 }

@@ -48,6 +48,8 @@ public static class ReviewsServiceCollectionExtensions
         services.AddSingleton<ReplacementService>();
         services.AddSingleton<Records.PacketArchive>();
         services.AddSingleton<Records.DecisionRecords>();
+        services.AddSingleton<Records.PacketJobSignal>();
+        services.AddSingleton<Records.PacketJobs>();
         services.AddSingleton<Interchange.CycleExporter>();
         services.AddSingleton<Interchange.CycleImporter>();
         services.AddSingleton<Preferences.PreferenceService>();

@@ -76,9 +76,11 @@ public sealed class ReviewFlowInChromium(BrowserFixture browser) : IClassFixture
         await Assertions.Expect(second.GetByTestId("cycle-status")).ToContainTextAsync("Decided");
         await Assertions.Expect(second.GetByTestId("sign-offs")).ToContainTextAsync("Ulla Board");
         await Assertions.Expect(second.GetByTestId("sign-offs")).ToContainTextAsync("Jon Board");
-        // The deciding sign-off makes the signed packets: one for the proposal, one for the cycle.
-        await Assertions.Expect(second.GetByTestId("cycle-message")).ToContainTextAsync("2 signed packets are stored.");
+        // The deciding sign-off queues the signed packets (one for the proposal, one for the cycle); the page shows them
+        // once the packet worker has made them, without a reload.
+        await Assertions.Expect(second.GetByTestId("cycle-message")).ToContainTextAsync("decides the cycle; its signed packets are being made");
         await Assertions.Expect(second.GetByTestId("packets").Locator("tbody tr")).ToHaveCountAsync(2);
+        await Assertions.Expect(second.GetByTestId("packet-job")).ToHaveAttributeAsync("data-status", "done");
         string href = (await second.GetByTestId("packets").Locator("a").First.GetAttributeAsync("href"))!;
         var download = await second.APIRequest.GetAsync(browser.App.BaseAddress + href);
         Assert.Equal("application/pdf", download.Headers["content-type"]);

@@ -30,6 +30,9 @@ public sealed class PacketDatabase : IAsyncLifetime
     public static readonly Actor SecondBoard = Actor.Of("board-2", "Aino Board", Role.Reviewer);
     public static readonly Actor Finance = Actor.Of("finance-1", "Rui Finance", Role.Finance);
 
+    /// <summary>The services' clock: the system's unless a test moves its own.</summary>
+    public TimeProvider? Clock { get; init; }
+
     public ServiceProvider Services { get; private set; } = null!;
 
     /// <summary>Unlimited unless a test fills it.</summary>
@@ -41,11 +44,15 @@ public sealed class PacketDatabase : IAsyncLifetime
 
     public async Task InitializeAsync()
     {
-        Services = new ServiceCollection()
+        var services = new ServiceCollection()
             .AddReviews($"Data Source={Path.Combine(DatabaseFolder ?? _folder, "packets.db")};Pooling=False")
             .ConfigureDbContext<CapReviewDbContext>(options => options.AddInterceptors(Disk))
-            .AddPackets(new PacketOptions { Signing = new PacketSigningOptions { DevelopmentCertificatePath = Path.Combine(_folder, "signing.pfx") } })
-            .BuildServiceProvider();
+            .AddPackets(new PacketOptions { Signing = new PacketSigningOptions { DevelopmentCertificatePath = Path.Combine(_folder, "signing.pfx") } });
+        if (Clock is not null)
+        {
+            services.AddSingleton(Clock);
+        }
+        Services = services.BuildServiceProvider();
         await Get<DatabaseInitializer>().InitializeAsync(new OrganisationProfile { Name = "Tarnby Components Ltd", CurrencyCode = "EUR", CultureName = "en-IE" }, CancellationToken.None);
     }
 

@@ -14,7 +14,7 @@ namespace CapReview.Reviews.Decisions;
 /// The board's part: deciding each submitted proposal of a cycle on its latest frozen version, and signing off the
 /// cycle once every proposal is decided. With the configured number of sign-offs the cycle is decided.
 /// </summary>
-public sealed class DecisionService(ReviewWork work, AuditTrail audit, TimeProvider clock)
+public sealed class DecisionService(ReviewWork work, AuditTrail audit, TimeProvider clock, Records.PacketJobs packetJobs)
 {
     public Task<Decision> DecideAsync(Actor actor, int proposalId, DecisionOutcome outcome, string conditions, int expectedRevision, CancellationToken cancellationToken)
     {
@@ -79,12 +79,16 @@ public sealed class DecisionService(ReviewWork work, AuditTrail audit, TimeProvi
         }, cancellationToken);
     }
 
-    /// <summary>Signs off every decision of the cycle; the last required sign-off makes the cycle decided.</summary>
-    public Task<SignOff> SignOffAsync(Actor actor, int cycleId, CancellationToken cancellationToken)
+    /// <summary>
+    /// Signs off every decision of the cycle; the last required sign-off makes the cycle decided and queues the making of
+    /// its packets in the same transaction (<see cref="Records.PacketJobs"/>), whoever signs and through whichever face.
+    /// </summary>
+    public async Task<SignOff> SignOffAsync(Actor actor, int cycleId, CancellationToken cancellationToken)
     {
         ArgumentNullException.ThrowIfNull(actor);
         RequireBoard(actor);
-        return work.RunAsync(async db =>
+        bool decided = false;
+        SignOff result = await work.RunAsync(async db =>
         {
             BudgetCycle cycle = await db.BudgetCycles.SingleOrDefaultAsync(c => c.Id == cycleId, cancellationToken).ConfigureAwait(false)
                 ?? throw new NotFoundException("There is no such budget cycle.");
@@ -129,12 +133,19 @@ public sealed class DecisionService(ReviewWork work, AuditTrail audit, TimeProvi
             {
                 cycle.Status = CycleStatus.Decided;
                 cycle.Revision++;
+                await Records.PacketJobs.QueueAsync(db, cycleId, actor, signOff.SignedAt, cancellationToken).ConfigureAwait(false);
+                decided = true;
             }
             await db.SaveChangesAsync(cancellationToken).ConfigureAwait(false);
             await audit.AppendAsync(db, actor, "cycle.signed-off", "budget_cycle", cycleId.ToString(CultureInfo.InvariantCulture),
                 new { Status = cycleBefore }, new { Status = cycle.Status.ToString(), SignOffs = count, Decisions = signed }, cancellationToken).ConfigureAwait(false);
             return signOff;
-        }, cancellationToken);
+        }, cancellationToken).ConfigureAwait(false);
+        if (decided)
+        {
+            packetJobs.Wake();
+        }
+        return result;
     }
 
     public Task<IReadOnlyList<SignOff>> SignOffsAsync(int cycleId, CancellationToken cancellationToken) =>

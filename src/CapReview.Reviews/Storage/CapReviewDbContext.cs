@@ -54,6 +54,8 @@ public class CapReviewDbContext : DbContext
 
     public DbSet<ApprovalPacket> ApprovalPackets => Set<ApprovalPacket>();
 
+    public DbSet<PacketJob> PacketJobs => Set<PacketJob>();
+
     public DbSet<Preferences.UserPreference> UserPreferences => Set<Preferences.UserPreference>();
 
     public override int SaveChanges(bool acceptAllChangesOnSuccess)
@@ -216,6 +218,18 @@ public class CapReviewDbContext : DbContext
             p.HasOne<BudgetCycle>().WithMany().HasForeignKey(x => x.BudgetCycleId).OnDelete(DeleteBehavior.Restrict);
             p.HasOne<Proposal>().WithMany().HasForeignKey(x => x.ProposalId).OnDelete(DeleteBehavior.Restrict);
             p.HasOne<MarrPolicyVersion>().WithMany().HasForeignKey(x => x.MarrPolicyVersionId).OnDelete(DeleteBehavior.Restrict);
+        });
+
+        modelBuilder.Entity<PacketJob>(j =>
+        {
+            j.ToTable("packet_job");
+            // One job per cycle: asking again queues the same row.
+            j.HasIndex(x => x.BudgetCycleId).IsUnique();
+            j.Property(x => x.Status).HasConversion<string>().HasMaxLength(20);
+            j.Property(x => x.RequestedBy).HasMaxLength(100);
+            j.Property(x => x.RequestedByName).HasMaxLength(200);
+            j.Property(x => x.LastError).HasMaxLength(500);
+            j.HasOne<BudgetCycle>().WithMany().HasForeignKey(x => x.BudgetCycleId).OnDelete(DeleteBehavior.Restrict);
         });
 
         modelBuilder.Entity<Preferences.UserPreference>(p =>

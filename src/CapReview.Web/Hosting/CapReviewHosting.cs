@@ -38,6 +38,7 @@ public static partial class CapReviewHosting
                 X509CertificateLoader.LoadPkcs12FromFile(keyCertificate, builder.Configuration["DataProtection:CertificatePassword"]));
         }
         services.AddPackets(PacketSettings.Read(builder.Configuration, database, builder.Environment.ContentRootPath));
+        services.AddHostedService<PacketWorker>();
         services.AddScoped<DemoScenario>();
         services.AddScoped<DemoDecidedCycle>();
 

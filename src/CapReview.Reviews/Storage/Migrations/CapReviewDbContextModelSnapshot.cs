@@ -607,6 +607,63 @@ namespace CapReview.Reviews.Storage.Migrations
                     b.ToTable("approval_packet", (string)null);
                 });
 
+            modelBuilder.Entity("CapReview.Reviews.Records.PacketJob", b =>
+                {
+                    b.Property<int>("Id")
+                        .ValueGeneratedOnAdd()
+                        .HasColumnType("INTEGER");
+
+                    b.Property<int>("Attempts")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<int>("BudgetCycleId")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<DateTimeOffset?>("CompletedAt")
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("LastError")
+                        .HasMaxLength(500)
+                        .HasColumnType("TEXT");
+
+                    b.Property<DateTimeOffset?>("LeaseUntil")
+                        .HasColumnType("TEXT");
+
+                    b.Property<DateTimeOffset>("NotBefore")
+                        .HasColumnType("TEXT");
+
+                    b.Property<int>("PacketsStored")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<DateTimeOffset>("RequestedAt")
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("RequestedBy")
+                        .IsRequired()
+                        .HasMaxLength(100)
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("RequestedByName")
+                        .IsRequired()
+                        .HasMaxLength(200)
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("Status")
+                        .IsRequired()
+                        .HasMaxLength(20)
+                        .HasColumnType("TEXT");
+
+                    b.Property<DateTimeOffset>("UpdatedAt")
+                        .HasColumnType("TEXT");
+
+                    b.HasKey("Id");
+
+                    b.HasIndex("BudgetCycleId")
+                        .IsUnique();
+
+                    b.ToTable("packet_job", (string)null);
+                });
+
             modelBuilder.Entity("CapReview.Reviews.Comments.ProposalComment", b =>
                 {
                     b.HasOne("CapReview.Reviews.Proposals.Proposal", null)
@@ -714,6 +771,15 @@ namespace CapReview.Reviews.Storage.Migrations
                         .WithMany()
                         .HasForeignKey("ProposalId")
                         .OnDelete(DeleteBehavior.Restrict);
+                });
+
+            modelBuilder.Entity("CapReview.Reviews.Records.PacketJob", b =>
+                {
+                    b.HasOne("CapReview.Reviews.Cycles.BudgetCycle", null)
+                        .WithMany()
+                        .HasForeignKey("BudgetCycleId")
+                        .OnDelete(DeleteBehavior.Restrict)
+                        .IsRequired();
                 });
 
             modelBuilder.Entity("CapReview.Reviews.Proposals.Proposal", b =>
