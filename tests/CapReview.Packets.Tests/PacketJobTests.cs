@@ -28,7 +28,7 @@ public sealed class PacketJobTests : IAsyncLifetime
     {
         var (cycle, proposals) = await _db.DecidedCycleAsync("Queued 2027", (90_000, 16_000), (40_000, 9_000), (70_000, 8_000));
 
-        PacketJobView? queued = await _db.Get<PacketJobs>().StatusAsync(cycle.Id, None);
+        PacketJobView? queued = await _db.Get<PacketJobs>().StatusAsync(Finance, cycle.Id, None);
         Assert.NotNull(queued);
         Assert.Equal(PacketJobStatus.Queued, queued.Status);
         Assert.Equal(0, queued.Attempts);
@@ -41,7 +41,7 @@ public sealed class PacketJobTests : IAsyncLifetime
         var packets = await _db.Get<PacketArchive>().ListAsync(Finance, cycle.Id, None);
         // Three decided proposals and the cycle.
         Assert.Equal(4, packets.Count);
-        PacketJobView done = (await _db.Get<PacketJobs>().StatusAsync(cycle.Id, None))!;
+        PacketJobView done = (await _db.Get<PacketJobs>().StatusAsync(Finance, cycle.Id, None))!;
         Assert.Equal(PacketJobStatus.Done, done.Status);
         Assert.Equal(1, done.Attempts);
         Assert.Equal(4, done.PacketsStored);
@@ -64,7 +64,7 @@ public sealed class PacketJobTests : IAsyncLifetime
         var marr = (await _db.Get<Reviews.Cycles.CycleService>().GetAsync(cycle.Id, None)).Marr;
         var open = await _db.Get<Reviews.Cycles.CycleService>().CreateAsync(Admin,
             new Reviews.Cycles.NewBudgetCycle("Undecided 2027", 100_000m, marr.Id, new DateOnly(2027, 1, 1), new DateOnly(2027, 3, 31)), None);
-        Assert.Null(await _db.Get<PacketJobs>().StatusAsync(open.Id, None));
+        Assert.Null(await _db.Get<PacketJobs>().StatusAsync(Finance, open.Id, None));
         var refusal = await Assert.ThrowsAsync<Reviews.Common.RuleViolationException>(() => _db.Get<PacketJobs>().RequestAsync(Board, open.Id, None));
         Assert.Equal("Packets are made when Undecided 2027 is decided by its sign-offs.", refusal.Message);
         await Assert.ThrowsAsync<Reviews.Common.AccessDeniedException>(() => _db.Get<PacketJobs>().RequestAsync(Lead, cycle.Id, None));
@@ -91,7 +91,7 @@ public sealed class PacketJobTests : IAsyncLifetime
             {
                 _db.Disk.Free();
             }
-            PacketJobView job = (await jobs.StatusAsync(cycle.Id, None))!;
+            PacketJobView job = (await jobs.StatusAsync(Finance, cycle.Id, None))!;
             Assert.Equal(attempt, job.Attempts);
             Assert.Contains("database or disk is full", job.LastError, StringComparison.Ordinal);
             if (attempt < PacketJob.MaxAttempts)
@@ -117,7 +117,7 @@ public sealed class PacketJobTests : IAsyncLifetime
         Assert.Equal(PacketJobStatus.Queued, asked.Status);
         Assert.Equal("Tove Board", asked.RequestedByName);
         Assert.Equal(1, await runner.RunDueAsync(None));
-        Assert.Equal(PacketJobStatus.Done, (await jobs.StatusAsync(cycle.Id, None))!.Status);
+        Assert.Equal(PacketJobStatus.Done, (await jobs.StatusAsync(Finance, cycle.Id, None))!.Status);
         Assert.Equal(3, (await _db.Get<PacketArchive>().ListAsync(Finance, cycle.Id, None)).Count);
     }
 
@@ -131,14 +131,14 @@ public sealed class PacketJobTests : IAsyncLifetime
         PacketJob? claimed = await jobs.ClaimAsync(None);
         Assert.NotNull(claimed);
         Assert.Null(await jobs.ClaimAsync(None));
-        Assert.Equal(PacketJobStatus.Running, (await jobs.StatusAsync(cycle.Id, None))!.Status);
+        Assert.Equal(PacketJobStatus.Running, (await jobs.StatusAsync(Finance, cycle.Id, None))!.Status);
 
         _clock.Advance(PacketJobs.Lease - TimeSpan.FromSeconds(1));
         Assert.Equal(0, await _db.Get<PacketJobRunner>().RunDueAsync(None));
         _clock.Advance(TimeSpan.FromSeconds(1));
         Assert.Equal(1, await _db.Get<PacketJobRunner>().RunDueAsync(None));
 
-        PacketJobView done = (await jobs.StatusAsync(cycle.Id, None))!;
+        PacketJobView done = (await jobs.StatusAsync(Finance, cycle.Id, None))!;
         Assert.Equal(PacketJobStatus.Done, done.Status);
         Assert.Equal(2, done.Attempts);
         Assert.Equal(2, (await _db.Get<PacketArchive>().ListAsync(Finance, cycle.Id, None)).Count);

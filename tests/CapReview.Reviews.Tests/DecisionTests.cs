@@ -47,7 +47,7 @@ public sealed class DecisionTests(ReviewsDatabase db) : IClassFixture<ReviewsDat
 
         await db.Decisions.SignOffAsync(SecondReviewer, cycle.Id, None);
         Assert.Equal(CycleStatus.Decided, (await db.Cycles.ListAsync(None)).Single(c => c.Id == cycle.Id).Status);
-        var signOffs = await db.Decisions.SignOffsAsync(cycle.Id, None);
+        var signOffs = await db.Decisions.SignOffsAsync(Reviewer, cycle.Id, None);
         Assert.Equal([Reviewer.UserId, SecondReviewer.UserId], signOffs.Select(s => s.UserId));
         await Assert.ThrowsAsync<RuleViolationException>(() => db.Decisions.DecideAsync(Reviewer, one.Id, DecisionOutcome.Reject, "", 0, None));
     }

@@ -16,9 +16,19 @@ namespace CapReview.Reviews.Decisions;
 /// </summary>
 public sealed class DecisionService(ReviewWork work, AuditTrail audit, TimeProvider clock, Records.PacketJobs packetJobs)
 {
-    public Task<Decision> DecideAsync(Actor actor, int proposalId, DecisionOutcome outcome, string conditions, int expectedRevision, CancellationToken cancellationToken)
+    public Task<Decision> DecideAsync(Actor actor, int proposalId, DecisionOutcome outcome, string conditions, int expectedRevision, CancellationToken cancellationToken) =>
+        DecideAsync(actor, new DecisionRequest(proposalId, outcome, conditions, null, null, expectedRevision), cancellationToken);
+
+    /// <summary>
+    /// Records the board's decision on a proposal. Where the request names the cycle and the version the member
+    /// judged, a proposal of another cycle is not found and a later submitted version is a conflict: the member
+    /// decides on what they saw, or not at all.
+    /// </summary>
+    public Task<Decision> DecideAsync(Actor actor, DecisionRequest request, CancellationToken cancellationToken)
     {
+        ArgumentNullException.ThrowIfNull(request);
         ArgumentNullException.ThrowIfNull(actor);
+        var (proposalId, outcome, conditions, expectedCycle, expectedVersion, expectedRevision) = request;
         RequireBoard(actor);
         if (!Enum.IsDefined(outcome))
         {
@@ -32,6 +42,10 @@ public sealed class DecisionService(ReviewWork work, AuditTrail audit, TimeProvi
         {
             Proposal proposal = await db.Proposals.Include(p => p.Versions).SingleOrDefaultAsync(p => p.Id == proposalId, cancellationToken).ConfigureAwait(false)
                 ?? throw new NotFoundException("There is no such proposal.");
+            if (expectedCycle is int named && named != proposal.BudgetCycleId)
+            {
+                throw new NotFoundException("There is no such proposal in this cycle.");
+            }
             if (proposal.Status is not (ProposalStatus.Submitted or ProposalStatus.InReview) || proposal.BudgetCycleId is not int cycleId)
             {
                 throw new RuleViolationException("Only a submitted proposal can be decided.");
@@ -42,8 +56,15 @@ public sealed class DecisionService(ReviewWork work, AuditTrail audit, TimeProvi
                 throw new RuleViolationException($"The cycle {cycle.Name} is already decided.");
             }
             ProposalVersion version = proposal.Versions.Where(v => v.IsFrozen).OrderBy(v => v.Number).Last();
+            if (expectedVersion is int judged && judged != version.Number)
+            {
+                throw new ConcurrencyConflictException($"version: {proposal.Reference} was decided on version {judged}, but its latest submitted version is {version.Number}. Look at version {version.Number} and decide again.");
+            }
             object before = new { proposal.Reference, Status = proposal.Status.ToString() };
-            db.Entry(proposal).Property(p => p.Revision).OriginalValue = expectedRevision;
+            if (expectedRevision is int revision)
+            {
+                db.Entry(proposal).Property(p => p.Revision).OriginalValue = revision;
+            }
             // A decision on a proposal not yet in review passes through review: the workflow's path stays whole.
             ProposalStatus from = proposal.Status == ProposalStatus.Submitted ? ProposalStatus.InReview : proposal.Status;
             ProposalStatus to = outcome switch
@@ -148,9 +169,40 @@ public sealed class DecisionService(ReviewWork work, AuditTrail audit, TimeProvi
         return result;
     }
 
-    public Task<IReadOnlyList<SignOff>> SignOffsAsync(int cycleId, CancellationToken cancellationToken) =>
-        work.ReadAsync<IReadOnlyList<SignOff>>(async db =>
-            await db.SignOffs.Where(s => s.BudgetCycleId == cycleId).OrderBy(s => s.Id).ToListAsync(cancellationToken).ConfigureAwait(false), cancellationToken);
+    /// <summary>The decisions of a cycle in the order they were made, on the proposals the actor may see.</summary>
+    public Task<IReadOnlyList<DecisionView>> DecisionsAsync(Actor actor, int cycleId, CancellationToken cancellationToken)
+    {
+        ArgumentNullException.ThrowIfNull(actor);
+        return work.ReadAsync<IReadOnlyList<DecisionView>>(async db =>
+        {
+            if (!await db.BudgetCycles.AnyAsync(c => c.Id == cycleId, cancellationToken).ConfigureAwait(false))
+            {
+                throw new NotFoundException("There is no such budget cycle.");
+            }
+            var proposals = await db.Proposals.Where(p => p.BudgetCycleId == cycleId).ToListAsync(cancellationToken).ConfigureAwait(false);
+            var visible = proposals.Where(p => ProposalAccess.CanSee(actor, p)).ToDictionary(p => p.Id, p => p.Reference);
+            var decisions = await db.Decisions.Where(d => d.BudgetCycleId == cycleId).OrderBy(d => d.Id).ToListAsync(cancellationToken).ConfigureAwait(false);
+            return [.. decisions.Where(d => visible.ContainsKey(d.ProposalId)).Select(d => DecisionView.Of(d, visible[d.ProposalId]))];
+        }, cancellationToken);
+    }
+
+    /// <summary>The sign-offs of a cycle, for the board, finance and administrators.</summary>
+    public Task<IReadOnlyList<SignOff>> SignOffsAsync(Actor actor, int cycleId, CancellationToken cancellationToken)
+    {
+        ArgumentNullException.ThrowIfNull(actor);
+        if (!(actor.Has(Role.Reviewer) || actor.Has(Role.Finance) || actor.Has(Role.Administrator)))
+        {
+            throw new AccessDeniedException("Only the board, finance and administrators see a cycle's sign-offs.");
+        }
+        return work.ReadAsync<IReadOnlyList<SignOff>>(async db =>
+        {
+            if (!await db.BudgetCycles.AnyAsync(c => c.Id == cycleId, cancellationToken).ConfigureAwait(false))
+            {
+                throw new NotFoundException("There is no such budget cycle.");
+            }
+            return await db.SignOffs.Where(s => s.BudgetCycleId == cycleId).OrderBy(s => s.Id).ToListAsync(cancellationToken).ConfigureAwait(false);
+        }, cancellationToken);
+    }
 
     private static void RequireBoard(Actor actor)
     {

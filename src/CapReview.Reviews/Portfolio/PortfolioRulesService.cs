@@ -20,6 +20,24 @@ public sealed class PortfolioRulesService(ReviewWork work, AuditTrail audit)
     public Task<PortfolioRules> GetAsync(int cycleId, CancellationToken cancellationToken) =>
         work.ReadAsync(db => LoadAsync(db, cycleId, cancellationToken), cancellationToken);
 
+    /// <summary>The rules as the board, finance and administrators read them; a missing cycle is not found.</summary>
+    public Task<PortfolioRules> GetAsync(Actor actor, int cycleId, CancellationToken cancellationToken)
+    {
+        ArgumentNullException.ThrowIfNull(actor);
+        if (!(actor.Has(Role.Reviewer) || actor.Has(Role.Finance) || actor.Has(Role.Administrator)))
+        {
+            throw new AccessDeniedException("Only the board, finance and administrators see a cycle's portfolio rules.");
+        }
+        return work.ReadAsync(async db =>
+        {
+            if (!await db.BudgetCycles.AnyAsync(c => c.Id == cycleId, cancellationToken).ConfigureAwait(false))
+            {
+                throw new NotFoundException("There is no such budget cycle.");
+            }
+            return await LoadAsync(db, cycleId, cancellationToken).ConfigureAwait(false);
+        }, cancellationToken);
+    }
+
     public Task<BudgetCycle> SetPlanAsync(Actor actor, int cycleId, CyclePlan plan, int expectedRevision, CancellationToken cancellationToken)
     {
         ArgumentNullException.ThrowIfNull(plan);

@@ -85,6 +85,69 @@ public sealed class ProposalService(ReviewWork work, AuditTrail audit, TimeProvi
         }, cancellationToken);
     }
 
+    /// <summary>
+    /// Changes the assumptions of the proposal's draft version in place. <paramref name="versionNumber"/> names the
+    /// draft the lead edits: a frozen version, or one that is no longer the latest, is refused rather than changed.
+    /// </summary>
+    public async Task<ProposalView> EditDraftAsync(Actor actor, int proposalId, int versionNumber, int expectedRevision, ProposalAssumptions assumptions, CancellationToken cancellationToken)
+    {
+        ArgumentNullException.ThrowIfNull(actor);
+        ProposalView current = await OwnAsync(actor, proposalId, cancellationToken).ConfigureAwait(false);
+        VersionView version = current.Version(versionNumber);
+        if (version.IsFrozen || version.Number != current.Latest.Number)
+        {
+            throw new RuleViolationException($"version: version {versionNumber} of {current.Reference} is frozen; revise the proposal to make a new version.");
+        }
+        return await UpdateDraftAsync(actor, proposalId, expectedRevision, WithAssumptions(current, assumptions, null), cancellationToken).ConfigureAwait(false);
+    }
+
+    /// <summary>
+    /// Starts a new draft version after a frozen one (a proposal returned for changes), from new assumptions and the
+    /// reason for the change. The frozen version stays as it was.
+    /// </summary>
+    public async Task<ProposalView> ReviseAsync(Actor actor, int proposalId, int expectedRevision, ProposalAssumptions assumptions, string reason, CancellationToken cancellationToken)
+    {
+        ArgumentNullException.ThrowIfNull(actor);
+        ProposalView current = await OwnAsync(actor, proposalId, cancellationToken).ConfigureAwait(false);
+        ProposalDraft draft = WithAssumptions(current, assumptions, reason);
+        if (!current.Latest.IsFrozen)
+        {
+            throw new RuleViolationException($"version: version {current.Latest.Number} of {current.Reference} is still a draft; change it in place.");
+        }
+        if (string.IsNullOrWhiteSpace(reason))
+        {
+            throw new RuleViolationException("reason: say why the assumptions changed.");
+        }
+        if (reason.Trim().Length > 1000)
+        {
+            throw new RuleViolationException("reason: the reason is longer than 1,000 characters.");
+        }
+        if (AssumptionsDocument.Serialize(assumptions) == AssumptionsDocument.Serialize(current.Latest.Assumptions))
+        {
+            throw new RuleViolationException($"assumptions: these are the assumptions of version {current.Latest.Number} already; change something to make a new version.");
+        }
+        return await UpdateDraftAsync(actor, proposalId, expectedRevision, draft, cancellationToken).ConfigureAwait(false);
+    }
+
+    /// <summary>Withdraws the lead's own proposal (a draft, submitted, or returned for changes).</summary>
+    public Task<ProposalView> WithdrawAsync(Actor actor, int proposalId, int expectedRevision, CancellationToken cancellationToken) =>
+        TransitionAsync(actor, proposalId, ProposalStatus.Withdrawn, expectedRevision, cancellationToken);
+
+    private async Task<ProposalView> OwnAsync(Actor actor, int proposalId, CancellationToken cancellationToken)
+    {
+        ProposalView current = await GetAsync(actor, proposalId, cancellationToken).ConfigureAwait(false);
+        return current.OwnerId == actor.UserId ? current : throw new AccessDeniedException("Only the proposal's project lead can change it.");
+    }
+
+    private static ProposalDraft WithAssumptions(ProposalView current, ProposalAssumptions? assumptions, string? reason)
+    {
+        if (assumptions?.Model is null)
+        {
+            throw new RuleViolationException("assumptions.model: give the model, at least its horizon and elements (a draft may be incomplete).");
+        }
+        return new ProposalDraft(current.Title, current.Description, current.Category, current.RiskClass, assumptions, reason);
+    }
+
     /// <summary>Submits the latest version to an open cycle and freezes it; the model must be valid.</summary>
     public Task<ProposalView> SubmitAsync(Actor actor, int proposalId, int cycleId, int expectedRevision, CancellationToken cancellationToken)
     {

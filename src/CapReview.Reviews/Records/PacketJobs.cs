@@ -40,11 +40,7 @@ public sealed class PacketJobs(ReviewWork work, AuditTrail audit, TimeProvider c
     /// </summary>
     public async Task<PacketJobView> RequestAsync(Actor actor, int cycleId, CancellationToken cancellationToken)
     {
-        ArgumentNullException.ThrowIfNull(actor);
-        if (!(actor.Has(Role.Reviewer) || actor.Has(Role.Finance) || actor.Has(Role.Administrator)))
-        {
-            throw new AccessDeniedException("Only the board, finance and administrators make packets.");
-        }
+        MayMakePackets(actor);
         PacketJobView view = await work.RunAsync(async db =>
         {
             BudgetCycle cycle = await db.BudgetCycles.SingleOrDefaultAsync(c => c.Id == cycleId, cancellationToken).ConfigureAwait(false)
@@ -79,12 +75,24 @@ public sealed class PacketJobs(ReviewWork work, AuditTrail audit, TimeProvider c
     }
 
     /// <summary>The cycle's packet job, or null when none was ever queued (an undecided cycle, or one imported already decided).</summary>
-    public Task<PacketJobView?> StatusAsync(int cycleId, CancellationToken cancellationToken) =>
-        work.ReadAsync(async db =>
+    public Task<PacketJobView?> StatusAsync(Actor actor, int cycleId, CancellationToken cancellationToken)
+    {
+        MayMakePackets(actor);
+        return work.ReadAsync(async db =>
         {
             PacketJob? job = await db.PacketJobs.SingleOrDefaultAsync(j => j.BudgetCycleId == cycleId, cancellationToken).ConfigureAwait(false);
             return job is null ? null : PacketJobView.Of(job);
         }, cancellationToken);
+    }
+
+    private static void MayMakePackets(Actor actor)
+    {
+        ArgumentNullException.ThrowIfNull(actor);
+        if (!(actor.Has(Role.Reviewer) || actor.Has(Role.Finance) || actor.Has(Role.Administrator)))
+        {
+            throw new AccessDeniedException("Only the board, finance and administrators make packets and follow their making.");
+        }
+    }
 
     /// <summary>Takes the oldest due job for this worker, or null when none is due.</summary>
     public Task<PacketJob?> ClaimAsync(CancellationToken cancellationToken) =>

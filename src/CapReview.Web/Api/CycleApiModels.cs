@@ -5,12 +5,12 @@ namespace CapReview.Web.Api;
 
 /// <summary>A budget cycle as the API shows it.</summary>
 public sealed record CycleResponse(int Id, string Name, string Status, decimal CapitalLimit, IReadOnlyList<decimal> LaterYearLimits, int? StudyPeriodYears,
-    int MarrPolicyVersionId, DateOnly OpensOn, DateOnly ClosesOn, int RequiredSignOffs)
+    int MarrPolicyVersionId, DateOnly OpensOn, DateOnly ClosesOn, int RequiredSignOffs, int Revision)
 {
     public static CycleResponse From(BudgetCycle c)
     {
         ArgumentNullException.ThrowIfNull(c);
-        return new(c.Id, c.Name, c.Status.ToString(), c.CapitalLimit, [.. c.LaterYearLimits], c.StudyPeriodYears, c.MarrPolicyVersionId, c.OpensOn, c.ClosesOn, c.RequiredSignOffs);
+        return new(c.Id, c.Name, c.Status.ToString(), c.CapitalLimit, [.. c.LaterYearLimits], c.StudyPeriodYears, c.MarrPolicyVersionId, c.OpensOn, c.ClosesOn, c.RequiredSignOffs, c.Revision);
     }
 }
 

@@ -1,4 +1,3 @@
-using System.Text.Json;
 using CapReview.Reviews.Access;
 using CapReview.Reviews.Common;
 using CapReview.Reviews.Cycles;
@@ -80,26 +79,10 @@ public static class ProposalEndpoints
 
     private static async Task<IResult> CreateAsync(HttpRequest request, ProposalService proposals, CancellationToken cancellationToken)
     {
-        if (request.ContentLength > EvaluationEndpoints.MaxRequestBytes)
-        {
-            return ApiProblems.Invalid("body", $"The request is larger than {EvaluationEndpoints.MaxRequestBytes:N0} bytes.");
-        }
-        if (!request.HasJsonContentType())
-        {
-            return ApiProblems.Invalid("body", "Send the proposal as application/json.");
-        }
-        NewProposalRequest? body;
-        try
-        {
-            body = await JsonSerializer.DeserializeAsync<NewProposalRequest>(request.Body, ApiJson.Options, cancellationToken).ConfigureAwait(false);
-        }
-        catch (JsonException ex)
-        {
-            return ApiProblems.Invalid(EvaluationEndpoints.FieldOf(ex.Path), "This value is not valid here: check its type and spelling.");
-        }
+        var (body, problem) = await ApiBody.ReadAsync<NewProposalRequest>(request, "the proposal", cancellationToken).ConfigureAwait(false);
         if (body is null)
         {
-            return ApiProblems.Invalid("body", "Send a proposal object.");
+            return problem!;
         }
         if (string.IsNullOrWhiteSpace(body.Title))
         {

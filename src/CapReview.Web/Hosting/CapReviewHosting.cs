@@ -171,6 +171,9 @@ public static partial class CapReviewHosting
         app.MapHealthEndpoints();
         app.MapCycleEndpoints();
         app.MapProposalEndpoints();
+        app.MapProposalWorkflowEndpoints();
+        app.MapBoardEndpoints();
+        app.MapAdministrationEndpoints();
         app.MapCycleDocumentEndpoints();
         app.MapAccountEndpoints();
         app.MapExportEndpoints();

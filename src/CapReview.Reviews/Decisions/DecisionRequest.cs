@@ -1,0 +1,7 @@
+namespace CapReview.Reviews.Decisions;
+
+/// <summary>
+/// A board member's decision as asked for: the proposal, the outcome and its conditions, and optionally what the member
+/// saw (the cycle, the version judged, the proposal's revision) so that a decision is never recorded on anything else.
+/// </summary>
+public sealed record DecisionRequest(int ProposalId, DecisionOutcome Outcome, string? Conditions, int? CycleId, int? Version, int? ExpectedRevision);

@@ -1,0 +1,12 @@
+namespace CapReview.Reviews.Decisions;
+
+/// <summary>A recorded decision with the reference of its proposal, detached from storage.</summary>
+public sealed record DecisionView(int Id, int ProposalId, string Reference, int CycleId, int VersionNumber, string AssumptionsHash, int MarrPolicyVersionId,
+    DecisionOutcome Outcome, string Conditions, string DecidedBy, DateTimeOffset DecidedAt)
+{
+    public static DecisionView Of(Decision d, string reference)
+    {
+        ArgumentNullException.ThrowIfNull(d);
+        return new(d.Id, d.ProposalId, reference, d.BudgetCycleId, d.VersionNumber, d.AssumptionsHash, d.MarrPolicyVersionId, d.Outcome, d.Conditions, d.DecidedBy, d.DecidedAt);
+    }
+}

@@ -1,0 +1,73 @@
+using CapReview.Reviews.Comments;
+using CapReview.Reviews.Decisions;
+using CapReview.Reviews.Proposals;
+using CapReview.Reviews.Records;
+
+namespace CapReview.Web.Api;
+
+/// <summary>A new version after a frozen one: the assumptions, why they changed, and the proposal's revision the lead started from.</summary>
+public sealed record RevisionRequest(int? Revision, string? Reason, ProposalAssumptions? Assumptions);
+
+/// <summary>A draft version's new assumptions and the proposal's revision the lead started from.</summary>
+public sealed record DraftEditRequest(int? Revision, ProposalAssumptions? Assumptions);
+
+/// <summary>A submission of the latest version to a cycle.</summary>
+public sealed record SubmissionRequest(int? CycleId, int? Revision);
+
+/// <summary>A withdrawal of the lead's proposal.</summary>
+public sealed record WithdrawalRequest(int? Revision);
+
+/// <summary>A board member's decision on the version they judged; <c>revision</c> is optional.</summary>
+public sealed record DecisionApiRequest(int? ProposalId, DecisionOutcome? Outcome, string? Conditions, int? Version, int? Revision);
+
+/// <summary>A recorded decision.</summary>
+public sealed record DecisionResponse(int Id, int ProposalId, string Reference, int CycleId, int Version, string AssumptionsHash, int MarrPolicyVersionId,
+    DecisionOutcome Outcome, string Conditions, string DecidedBy, DateTimeOffset DecidedAt)
+{
+    public static DecisionResponse From(DecisionView d)
+    {
+        ArgumentNullException.ThrowIfNull(d);
+        return new(d.Id, d.ProposalId, d.Reference, d.CycleId, d.VersionNumber, d.AssumptionsHash, d.MarrPolicyVersionId, d.Outcome, d.Conditions, d.DecidedBy, d.DecidedAt);
+    }
+}
+
+/// <summary>A sign-off and the decisions it covered.</summary>
+public sealed record SignOffResponse(int Id, int CycleId, string UserId, string Name, DateTimeOffset SignedAt, IReadOnlyList<SignedDecisionResponse> DecisionsSigned)
+{
+    public static SignOffResponse From(SignOff s)
+    {
+        ArgumentNullException.ThrowIfNull(s);
+        // Stored as the sign-off wrote it (PascalCase names, the outcome's enum name); answered in the API's conventions.
+        var signed = System.Text.Json.JsonSerializer.Deserialize<List<SignedDecisionResponse>>(s.DecisionsSigned) ?? [];
+        return new(s.Id, s.BudgetCycleId, s.UserId, s.DisplayName, s.SignedAt,
+            [.. signed.Select(d => d with { Outcome = System.Text.Json.JsonNamingPolicy.CamelCase.ConvertName(d.Outcome) })]);
+    }
+}
+
+/// <summary>One decision a sign-off covered: the proposal's reference, the version, its assumptions hash and the outcome.</summary>
+public sealed record SignedDecisionResponse(string Proposal, int Version, string AssumptionsHash, string Outcome);
+
+/// <summary>Where the making of a cycle's packets stands.</summary>
+public sealed record PacketJobResponse(int CycleId, string Status, int Attempts, string RequestedBy, DateTimeOffset RequestedAt, DateTimeOffset UpdatedAt,
+    DateTimeOffset? CompletedAt, DateTimeOffset? NextAttemptAt, string? LastError, int PacketsStored)
+{
+    public static PacketJobResponse From(PacketJobView j)
+    {
+        ArgumentNullException.ThrowIfNull(j);
+        return new(j.CycleId, j.Status.ToString().ToLowerInvariant(), j.Attempts, j.RequestedByName, j.RequestedAt, j.UpdatedAt, j.CompletedAt, j.NextAttemptAt,
+            j.LastError, j.PacketsStored);
+    }
+}
+
+/// <summary>A comment to add.</summary>
+public sealed record CommentRequest(string? Text);
+
+/// <summary>A comment on a proposal, with the version that was current when it was written.</summary>
+public sealed record CommentResponse(int Id, int ProposalId, int Version, string Author, DateTimeOffset At, string Text)
+{
+    public static CommentResponse From(ProposalComment c)
+    {
+        ArgumentNullException.ThrowIfNull(c);
+        return new(c.Id, c.ProposalId, c.VersionNumber, c.AuthorName, c.At, c.Text);
+    }
+}
