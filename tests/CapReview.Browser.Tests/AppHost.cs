@@ -31,11 +31,6 @@ public sealed class AppHost : WebApplicationFactory<Program>
         builder.UseSetting("RateLimits:SignInPerMinute", "100000");
         // Open pages check their sessions every second here, so that a session ended elsewhere shows at once.
         builder.UseSetting("Security:SessionCheckSeconds", "1");
-        // CAPREVIEW_TEST_REDIS=host:port runs the suite with the SignalR Redis backplane (docs/operations.md).
-        if (Environment.GetEnvironmentVariable("CAPREVIEW_TEST_REDIS") is { Length: > 0 } redis)
-        {
-            builder.UseSetting("SignalR:Redis", redis);
-        }
     }
 
     public const string Password = "browser-tests-2027";

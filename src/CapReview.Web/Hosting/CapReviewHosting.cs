@@ -43,12 +43,6 @@ public static partial class CapReviewHosting
         services.AddScoped<DemoDecidedCycle>();
 
         services.AddRazorComponents().AddInteractiveServerComponents();
-        // Optional with several app servers: the circuits' SignalR traffic through a Redis backplane (SignalR:Redis,
-        // host:port). Sticky sessions at the proxy are still required; the backplane is for messages between servers.
-        if (builder.Configuration["SignalR:Redis"] is { Length: > 0 } redis)
-        {
-            services.AddSignalR().AddStackExchangeRedis(redis, options => options.Configuration.ChannelPrefix = StackExchange.Redis.RedisChannel.Literal("capreview"));
-        }
         services.AddProblemDetails();
         services.ConfigureHttpJsonOptions(options => ApiJson.Configure(options.SerializerOptions));
         services.AddOpenApi("v1", options => options.AddDocumentTransformer((document, _, _) =>
