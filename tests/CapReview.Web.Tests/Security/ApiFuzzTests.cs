@@ -61,6 +61,32 @@ public sealed class ApiFuzzTests(ApiFactory factory) : IClassFixture<ApiFactory>
     }
 
     [Fact]
+    public async Task Mutated_decisions_never_fail_with_5xx_and_a_refused_one_stores_nothing()
+    {
+        using HttpClient board = await ClientAsync("fuzz.board@tarnby.example", RoleNames.Reviewer);
+        var (cycle, proposal) = await factory.CycleWithSubmittedProposalAsync("Fuzz decisions " + Guid.NewGuid().ToString("N")[..6], 0.09,
+            ApiFactory.Draft("Kiln burner", 8, 64_000, 11_000, "Kiln", "Gas saved", CashFlowCategory.Operating), "fuzz-lead");
+        string decision = $$$"""{"proposalId":{{{proposal.Id}}},"outcome":"returnForChanges","conditions":"Fuzzed","version":1,"revision":{{{proposal.Revision}}}}""";
+        await AssertRefusalsStoreNothingAsync(board, $"/api/v1/cycles/{cycle.Id}/decisions", decision, accepted: HttpStatusCode.Created, acceptedStores: true, iterations: 300);
+    }
+
+    [Fact]
+    public async Task Mutated_draft_edits_never_fail_with_5xx_and_a_refused_one_stores_nothing()
+    {
+        var (tokenClient, leadId) = await factory.TokenClientAsync("fuzz.editor@tarnby.example", RoleNames.ProjectLead);
+        tokenClient.Dispose();
+        using HttpClient lead = await ClientAsync("fuzz.editor@tarnby.example", RoleNames.ProjectLead);
+        var created = await factory.Services.GetRequiredService<CapReview.Reviews.Proposals.ProposalService>().CreateDraftAsync(
+            CapReview.Reviews.Access.Actor.Of(leadId, "Fuzz editor", CapReview.Reviews.Access.Role.ProjectLead),
+            ApiFactory.Draft("Kiln burner", 8, 64_000, 11_000, "Kiln", "Gas saved", CashFlowCategory.Operating), CancellationToken.None);
+        // Every accepted edit raises the revision, so later mutations of this body meet a stale revision (409) unless
+        // the mutation itself changed the revision to the current one: most are refused, as a person's stale tab would be.
+        string edit = """{"revision":REVISION,"assumptions":{"model":{"horizon":8,"elements":[{"type":"single","label":"Kiln","category":"capital","period":0,"amount":-64000},{"type":"uniform","label":"Gas saved","category":"operating","first":1,"last":8,"amount":12000}]}}}"""
+            .Replace("REVISION", created.Revision.ToString(System.Globalization.CultureInfo.InvariantCulture), StringComparison.Ordinal);
+        await AssertRefusalsStoreNothingAsync(lead, $"/api/v1/proposals/{created.Id}/versions/1", edit, accepted: HttpStatusCode.OK, acceptedStores: true, iterations: 300, HttpMethod.Put);
+    }
+
+    [Fact]
     public async Task Generated_route_values_and_query_strings_never_fail_with_5xx_and_store_nothing()
     {
         using HttpClient finance = await ClientAsync("fuzz.finance@tarnby.example", RoleNames.Finance);
@@ -80,17 +106,21 @@ public sealed class ApiFuzzTests(ApiFactory factory) : IClassFixture<ApiFactory>
         Assert.Equal(before, await StoredStateAsync());
     }
 
-    private async Task AssertRefusalsStoreNothingAsync(HttpClient client, string path, string valid, HttpStatusCode accepted, bool acceptedStores, int iterations)
+    private async Task AssertRefusalsStoreNothingAsync(HttpClient client, string path, string valid, HttpStatusCode accepted, bool acceptedStores, int iterations,
+        HttpMethod? method = null)
     {
         string state = await StoredStateAsync();
         int refused = 0;
         await JsonFuzz.Samples.SampleAsync(async c =>
         {
             string body = JsonFuzz.Apply(valid, c);
-            using var content = new StringContent(body, Encoding.UTF8, "application/json");
-            using var answer = await client.PostAsync(new Uri(path, UriKind.Relative), content);
+            using var request = new HttpRequestMessage(method ?? HttpMethod.Post, new Uri(path, UriKind.Relative))
+            {
+                Content = new StringContent(body, Encoding.UTF8, "application/json"),
+            };
+            using var answer = await client.SendAsync(request);
             int status = (int)answer.StatusCode;
-            Assert.True(status < 500, $"POST {path} answered {status} to: {Shorten(body)}");
+            Assert.True(status < 500, $"{method ?? HttpMethod.Post} {path} answered {status} to: {Shorten(body)}");
             string now = await StoredStateAsync();
             if (answer.StatusCode == accepted)
             {
