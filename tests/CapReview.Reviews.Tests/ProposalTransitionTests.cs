@@ -210,4 +210,14 @@ public sealed class ProposalTransitionTests
         Assert.Equal(Reviewer.UserId, decision.DecidedBy);
         Assert.Equal(ProposalStatus.Approved, proposal.Status);
     }
+
+    [Fact]
+    public void A_quoted_reference_never_changes()
+    {
+        Proposal proposal = ProposalIn(ProposalStatus.Draft, BudgetCycle.Open(new NewBudgetCycle("C", 1m, 1, new DateOnly(2027, 1, 1), new DateOnly(2027, 1, 2))));
+        proposal.AssignReference("P-0007");
+        var error = Assert.Throws<RuleViolationException>(() => proposal.AssignReference("P-0008"));
+        Assert.Equal("P-0007 keeps its reference: decisions and packets quote it.", error.Message);
+        Assert.Equal("P-0007", proposal.Reference);
+    }
 }

@@ -114,7 +114,7 @@ public sealed class CycleImporter(ReviewWork work, AuditTrail audit, IPeopleDire
                 var proposal = Proposal.Imported(owners[reference] ?? actor.UserId, entry.Title!.Trim(), entry.Description ?? "",
                     entry.Category ?? ProposalCategory.Other, entry.RiskClass ?? RiskClass.Standard, entry.Status ?? ProposalStatus.Submitted, cycle.Id,
                     // A placeholder until the id is known, unique among the rows being added.
-                    taken.Contains(reference) ? $"import-{Guid.NewGuid():N}"[..20] : reference);
+                    taken.Contains(reference) ? $"{Proposal.PlaceholderReference}{Guid.NewGuid():N}"[..20] : reference);
                 if (owners[reference] is null)
                 {
                     held.Add(reference);

@@ -12,6 +12,9 @@ namespace CapReview.Reviews.Proposals;
 /// </summary>
 public sealed class Proposal
 {
+    /// <summary>How an imported proposal's reference starts while its own is not yet known.</summary>
+    internal const string PlaceholderReference = "import-";
+
     private readonly List<ProposalVersion> _versions = [];
 
     private Proposal()
@@ -79,10 +82,14 @@ public sealed class Proposal
 
     internal void AddImportedVersion(ProposalVersion version) => _versions.Add(version);
 
-    /// <summary>Gives the proposal the reference people will quote, once its id is known.</summary>
+    /// <summary>Gives the proposal the reference people will quote, once its id is known; a quoted one never changes.</summary>
     public void AssignReference(string reference)
     {
         ArgumentException.ThrowIfNullOrWhiteSpace(reference);
+        if (Reference.Length > 0 && !Reference.StartsWith(PlaceholderReference, StringComparison.Ordinal))
+        {
+            throw new RuleViolationException($"{Reference} keeps its reference: decisions and packets quote it.");
+        }
         Reference = reference;
     }
 

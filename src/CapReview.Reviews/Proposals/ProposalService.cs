@@ -1,4 +1,3 @@
-using CapReview.Engine.Evaluation;
 using CapReview.Reviews.Access;
 using CapReview.Reviews.Audit;
 using CapReview.Reviews.Common;
@@ -101,9 +100,9 @@ public sealed class ProposalService(ReviewWork work, AuditTrail audit, TimeProvi
                     proposal.Withdraw(actor);
                     break;
                 default:
-                    // No named step leads here (back to draft, say): the workflow refuses it with its own words.
+                    // No step leads here (back to draft, say): the workflow refuses it with its own words.
                     proposal.EnsureMayBecome(actor, to);
-                    break;
+                    throw new InvalidOperationException($"The workflow table allows {to}, but no step of a proposal makes it.");
             }
             await db.SaveChangesAsync(cancellationToken).ConfigureAwait(false);
             await audit.AppendAsync(db, actor, $"proposal.{to.ToString().ToLowerInvariant()}", "proposal", proposal.Reference, before, Summary(proposal), cancellationToken).ConfigureAwait(false);

@@ -1,6 +1,5 @@
 using CapReview.Reviews.Audit;
 using CapReview.Reviews.Comments;
-using CapReview.Reviews.Common;
 using CapReview.Reviews.Cycles;
 using CapReview.Reviews.Decisions;
 using CapReview.Reviews.Marr;
