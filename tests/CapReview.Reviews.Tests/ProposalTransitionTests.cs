@@ -204,7 +204,10 @@ public sealed class ProposalTransitionTests
         Proposal proposal = ProposalIn(ProposalStatus.Submitted, cycle);
         Decision decision = proposal.Decide(Reviewer, DecisionOutcome.Approve, "  Order in March  ", cycle, At);
         Assert.Equal(1, decision.VersionNumber);
-        Assert.Equal(proposal.Versions[0].AssumptionsHash, decision.AssumptionsHash);
+        // Outside reference: System.Security.Cryptography.SHA256 over the frozen version's stored JSON, computed here.
+        string expected = Convert.ToHexStringLower(System.Security.Cryptography.SHA256.HashData(
+            System.Text.Encoding.UTF8.GetBytes(proposal.Versions[0].AssumptionsJson)));
+        Assert.Equal(expected, decision.AssumptionsHash);
         Assert.Equal(1, decision.MarrPolicyVersionId);
         Assert.Equal("Order in March", decision.Conditions);
         Assert.Equal(Reviewer.UserId, decision.DecidedBy);
