@@ -169,9 +169,27 @@ public sealed class ProposalTransitionTests
     public void Revising_needs_a_frozen_version_to_follow()
     {
         Proposal proposal = ProposalIn(ProposalStatus.Draft, OpenCycle());
-        var error = Assert.Throws<RuleViolationException>(() => proposal.Revise(Lead, "Why not", "{}", At));
+        var error = Assert.Throws<RuleViolationException>(() => proposal.Revise(Lead, "Why not", Draft(firstCost: -1).Assumptions, At));
         Assert.Equal("The latest version is still a draft: edit it instead of starting another.", error.Message);
         Assert.Single(proposal.Versions);
+    }
+
+    [Fact]
+    public void A_returned_proposal_is_revised_into_a_new_draft_version_that_can_be_submitted()
+    {
+        BudgetCycle cycle = OpenCycle();
+        Proposal proposal = ProposalIn(ProposalStatus.Submitted, cycle);
+        Assert.Throws<RuleViolationException>(() => proposal.Revise(Lead, "Too early", Draft(firstCost: -1).Assumptions, At));
+        proposal.Return(Reviewer);
+        Assert.Throws<RuleViolationException>(() => proposal.Revise(Lead, " ", Draft(firstCost: -1).Assumptions, At));
+        Assert.Throws<AccessDeniedException>(() => proposal.Revise(OtherLead, "Theirs", Draft(firstCost: -1).Assumptions, At));
+        proposal.Revise(Lead, "  Quote revised  ", Draft(firstCost: -140_000).Assumptions, At);
+        Assert.Equal("Quote revised", proposal.Latest.Reason);
+        Assert.Equal(2, proposal.Latest.Number);
+        Assert.Equal(-140_000, AssumptionsDocument.Deserialize(proposal.Latest.AssumptionsJson).Model.Elements![0]!.Amount);
+        proposal.Submit(Lead, cycle, At);
+        Assert.Equal(ProposalStatus.Submitted, proposal.Status);
+        Assert.All(proposal.Versions, v => Assert.True(v.IsFrozen));
     }
 
     [Fact]

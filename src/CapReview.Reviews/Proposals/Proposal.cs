@@ -101,11 +101,7 @@ public sealed class Proposal
     {
         ArgumentNullException.ThrowIfNull(lead);
         ArgumentNullException.ThrowIfNull(draft);
-        RequireOwner(lead, "Only the proposal's project lead can change it.");
-        if (Status is not (ProposalStatus.Draft or ProposalStatus.ReturnedForChanges))
-        {
-            throw new RuleViolationException($"A proposal that is {ProposalStatusWords.Describe(Status)} cannot be edited.");
-        }
+        RequireEditableBy(lead);
         string json = AssumptionsDocument.Serialize(draft.Assumptions);
         ProposalVersion latest = Latest;
         if (!latest.IsFrozen)
@@ -114,7 +110,7 @@ public sealed class Proposal
         }
         else if (latest.AssumptionsJson != json)
         {
-            Revise(lead, draft.ChangeReason, json, at);
+            AddRevision(lead, draft.ChangeReason, json, at);
         }
         TakeDetails(draft);
         Revision++;
@@ -123,14 +119,17 @@ public sealed class Proposal
     /// <summary>
     /// A new draft version after a frozen one, with the reason for the change: the submitted version stays as it was.
     /// </summary>
-    public void Revise(Actor lead, string? reason, string assumptionsJson, DateTimeOffset at)
+    public void Revise(Actor lead, string? reason, ProposalAssumptions assumptions, DateTimeOffset at)
     {
         ArgumentNullException.ThrowIfNull(lead);
-        RequireOwner(lead, "Only the proposal's project lead can change it.");
-        if (Status is not (ProposalStatus.Draft or ProposalStatus.ReturnedForChanges))
-        {
-            throw new RuleViolationException($"A proposal that is {ProposalStatusWords.Describe(Status)} cannot be edited.");
-        }
+        ArgumentNullException.ThrowIfNull(assumptions);
+        RequireEditableBy(lead);
+        AddRevision(lead, reason, AssumptionsDocument.Serialize(assumptions), at);
+        Revision++;
+    }
+
+    private void AddRevision(Actor lead, string? reason, string assumptionsJson, DateTimeOffset at)
+    {
         ProposalVersion latest = Latest;
         if (!latest.IsFrozen)
         {
@@ -246,11 +245,15 @@ public sealed class Proposal
         Revision++;
     }
 
-    private void RequireOwner(Actor actor, string message)
+    private void RequireEditableBy(Actor lead)
     {
-        if (OwnerId != actor.UserId)
+        if (OwnerId != lead.UserId)
         {
-            throw new AccessDeniedException(message);
+            throw new AccessDeniedException("Only the proposal's project lead can change it.");
+        }
+        if (Status is not (ProposalStatus.Draft or ProposalStatus.ReturnedForChanges))
+        {
+            throw new RuleViolationException($"A proposal that is {ProposalStatusWords.Describe(Status)} cannot be edited.");
         }
     }
 
