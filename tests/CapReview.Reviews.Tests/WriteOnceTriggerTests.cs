@@ -15,7 +15,7 @@ public sealed class WriteOnceTriggerTests(ReviewsDatabase db) : IClassFixture<Re
 
     private static Task<int> BulkUpdateAsync(CapReviewDbContext c, string table, WrittenOnceRow row)
     {
-        int id = (int)Math.Min(row.Id, int.MaxValue);
+        int id = checked((int)row.Id);
         return table switch
         {
             "proposal_version" => c.ProposalVersions.Where(x => x.Id == id).ExecuteUpdateAsync(s => s.SetProperty(x => x.Reason, "changed")),
@@ -30,7 +30,7 @@ public sealed class WriteOnceTriggerTests(ReviewsDatabase db) : IClassFixture<Re
 
     private static Task<int> BulkDeleteAsync(CapReviewDbContext c, string table, WrittenOnceRow row)
     {
-        int id = (int)Math.Min(row.Id, int.MaxValue);
+        int id = checked((int)row.Id);
         return table switch
         {
             "proposal_version" => c.ProposalVersions.Where(x => x.Id == id).ExecuteDeleteAsync(),
