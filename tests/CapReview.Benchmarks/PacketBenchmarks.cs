@@ -52,21 +52,15 @@ internal static class BenchmarkPackets
     public static readonly PacketOrganisation Organisation = new("Benchmark Works Ltd", "EUR", CultureInfo.GetCultureInfo("en-IE"));
     private static readonly DateTimeOffset Made = new(2027, 3, 30, 9, 0, 0, TimeSpan.Zero);
 
-    private static readonly BudgetCycle BenchCycle = new()
-    {
-        Id = 1, Name = "Benchmark plan", CapitalLimit = 90_000_000m, MarrPolicyVersionId = 1, OpensOn = new DateOnly(2027, 1, 1),
-        ClosesOn = new DateOnly(2027, 3, 1), Status = CycleStatus.Decided, RequiredSignOffs = 2,
-    };
+    private static readonly BudgetCycle BenchCycle = BudgetCycle.Imported(
+        new NewBudgetCycle("Benchmark plan", 90_000_000m, 1, new DateOnly(2027, 1, 1), new DateOnly(2027, 3, 1), 2), CycleStatus.Decided, null, [], Reviews.Portfolio.SelectionObjective.PresentWorth);
 
-    private static readonly MarrPolicyVersion Policy = new()
-    {
-        Id = 1, Number = 1, Rate = 0.09, Basis = Engine.Rates.RateBasis.Effective, EffectiveFrom = new DateOnly(2027, 1, 1), SetBy = "bench", Reason = "Benchmark",
-    };
+    private static readonly MarrPolicyVersion Policy = new(1, new NewMarrPolicy(0.09, Engine.Rates.RateBasis.Effective, 1, new DateOnly(2027, 1, 1), "Benchmark"), "bench", default);
 
     private static readonly SignOff[] Signed =
     [
-        new() { BudgetCycleId = 1, UserId = "b1", DisplayName = "First Member", SignedAt = Made, DecisionsSigned = "[]" },
-        new() { BudgetCycleId = 1, UserId = "b2", DisplayName = "Second Member", SignedAt = Made, DecisionsSigned = "[]" },
+        new(1, "b1", "First Member", Made, "[]"),
+        new(1, "b2", "Second Member", Made, "[]"),
     ];
 
     public static ProposalPacketData Proposal(int id, Random random)
@@ -92,11 +86,7 @@ internal static class BenchmarkPackets
         }
         var versions = new[] { Version(1, BenchmarkModels.VariedSpec(random)), Version(2, BenchmarkModels.VariedSpec(random)) };
         var proposal = new ProposalView(id, $"P-{id:D4}", "lead", $"Plant line {id}", "", ProposalCategory.Expansion, RiskClass.Standard, ProposalStatus.Approved, 1, 3, versions);
-        var decision = new Decision
-        {
-            ProposalId = id, BudgetCycleId = 1, VersionNumber = 2, AssumptionsHash = versions[1].AssumptionsHash, MarrPolicyVersionId = 1,
-            Outcome = DecisionOutcome.Approve, DecidedBy = "b1", DecidedAt = Made,
-        };
+        var decision = new Decision(id, 1, 2, versions[1].AssumptionsHash, 1, DecisionOutcome.Approve, "", "b1", Made);
         return (proposal, decision);
     }
 }

@@ -73,7 +73,12 @@ public sealed class PacketFlowTests(PacketDatabase db) : IClassFixture<PacketDat
 
         await using (var context = db.NewContext())
         {
-            // Someone with database access swaps the stored file.
+            // The database itself refuses to swap a stored file.
+            var refused = await Assert.ThrowsAnyAsync<Microsoft.Data.Sqlite.SqliteException>(() =>
+                context.Database.ExecuteSqlRawAsync("UPDATE approval_packet SET Content = X'255044462D' WHERE Id = {0}", proposalPacket));
+            Assert.Contains("approval_packet rows are written once: update refused", refused.Message);
+            // Someone who owns the database file drops the guard and swaps the stored file.
+            await context.Database.ExecuteSqlRawAsync("DROP TRIGGER approval_packet_written_once_update");
             await context.Database.ExecuteSqlRawAsync("UPDATE approval_packet SET Content = X'255044462D' WHERE Id = {0}", proposalPacket);
             var packet = await context.ApprovalPackets.SingleAsync(p => p.Id == proposalPacket);
             packet.FileName = "changed.pdf";

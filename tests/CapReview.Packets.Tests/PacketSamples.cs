@@ -18,22 +18,19 @@ internal static class PacketSamples
     public static readonly PacketOrganisation Organisation = new("Tarnby Components Ltd", "EUR", CultureInfo.GetCultureInfo("en-IE"));
     public static readonly DateTimeOffset Now = new(2027, 3, 30, 14, 5, 0, TimeSpan.Zero);
 
-    public static readonly BudgetCycle Cycle = new()
-    {
-        Id = 1, Name = "Capital plan 2027", CapitalLimit = 1_500_000m, MarrPolicyVersionId = 1, OpensOn = new DateOnly(2027, 1, 4),
-        ClosesOn = new DateOnly(2027, 3, 26), Status = CycleStatus.Decided, RequiredSignOffs = 2,
-    };
+    // A decided cycle is made here as an import would make it: the sample has no sign-off history to reach it by.
+    public static readonly BudgetCycle Cycle = BudgetCycle.Imported(
+        new NewBudgetCycle("Capital plan 2027", 1_500_000m, 1, new DateOnly(2027, 1, 4), new DateOnly(2027, 3, 26), 2),
+        CycleStatus.Decided, null, [], Reviews.Portfolio.SelectionObjective.PresentWorth);
 
-    public static readonly MarrPolicyVersion Marr = new()
-    {
-        Id = 1, Number = 1, Rate = 0.09, Basis = RateBasis.Effective, EffectiveFrom = new DateOnly(2027, 1, 1), LowRiskPremium = -0.01,
-        HighRiskPremium = 0.03, SetBy = "admin-1", Reason = "Board resolution on the cost of capital", CreatedAt = Now.AddMonths(-4),
-    };
+    public static readonly MarrPolicyVersion Marr = new(1,
+        new NewMarrPolicy(0.09, RateBasis.Effective, 1, new DateOnly(2027, 1, 1), "Board resolution on the cost of capital", LowRiskPremium: -0.01, HighRiskPremium: 0.03),
+        "admin-1", Now.AddMonths(-4));
 
     public static readonly SignOff[] SignOffs =
     [
-        new() { Id = 1, BudgetCycleId = 1, UserId = "board-1", DisplayName = "Tove Berg", SignedAt = Now.AddHours(-3), DecisionsSigned = "[]" },
-        new() { Id = 2, BudgetCycleId = 1, UserId = "board-2", DisplayName = "Aino Salo", SignedAt = Now.AddHours(-1), DecisionsSigned = "[]" },
+        new(1, "board-1", "Tove Berg", Now.AddHours(-3), "[]"),
+        new(1, "board-2", "Aino Salo", Now.AddHours(-1), "[]"),
     ];
 
     public static ModelSpec Model(double saving, int life = 12) => new()
@@ -64,11 +61,8 @@ internal static class PacketSamples
         var v2 = Version(2, Model(saving), "Savings re-estimated after the supplier's trial run", frozen: true, tax, risk);
         var proposal = new ProposalView(id, $"P-{id:D4}", "lead-1", id == 2 ? "CNC line 3 replacement" : $"Machining cell {id}", "Replace two machining centres.",
             ProposalCategory.Replacement, RiskClass.Standard, ProposalStatus.Approved, 1, 3, [v1, v2]);
-        var decision = new Decision
-        {
-            Id = id, ProposalId = id, BudgetCycleId = 1, VersionNumber = 2, AssumptionsHash = v2.AssumptionsHash, MarrPolicyVersionId = 1,
-            Outcome = outcome, Conditions = outcome == DecisionOutcome.Approve ? "Order before the March price rise" : "", DecidedBy = "board-1", DecidedAt = Now.AddDays(-2),
-        };
+        var decision = new Decision(id, 1, 2, v2.AssumptionsHash, 1, outcome,
+            outcome == DecisionOutcome.Approve ? "Order before the March price rise" : "", "board-1", Now.AddDays(-2));
         return (proposal, decision);
     }
 

@@ -61,7 +61,7 @@ public sealed class DecisionTests(ReviewsDatabase db) : IClassFixture<ReviewsDat
         await db.Decisions.DecideAsync(Reviewer, draft.Id, DecisionOutcome.Approve, "", submitted.Revision, None);
         await using var context = db.NewContext();
         var decision = await context.Decisions.SingleAsync(d => d.ProposalId == draft.Id);
-        decision.Outcome = DecisionOutcome.Reject;
+        context.Entry(decision).Property(d => d.Outcome).CurrentValue = DecisionOutcome.Reject;
         Assert.Throws<RuleViolationException>(() => context.SaveChanges());
     }
 }

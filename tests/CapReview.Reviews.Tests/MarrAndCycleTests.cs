@@ -33,17 +33,14 @@ public sealed class MarrAndCycleTests(ReviewsDatabase db) : IClassFixture<Review
         Assert.Equal(a.Number + 1, b.Number);
         await using var context = db.NewContext();
         var stored = await context.MarrPolicyVersions.SingleAsync(m => m.Id == a.Id);
-        stored.Rate = 0.5;
+        context.Entry(stored).Property(m => m.Rate).CurrentValue = 0.5;
         Assert.Throws<RuleViolationException>(() => context.SaveChanges());
     }
 
     [Fact]
     public void Risk_premiums_add_to_the_effective_base_rate()
     {
-        var policy = new MarrPolicyVersion
-        {
-            Rate = 0.12, Basis = RateBasis.Nominal, CompoundingsPerYear = 12, HighRiskPremium = 0.03, SetBy = "a", Reason = "b",
-        };
+        var policy = new MarrPolicyVersion(1, new NewMarrPolicy(0.12, RateBasis.Nominal, 12, new DateOnly(2027, 1, 1), "b", HighRiskPremium: 0.03), "a", default);
         // (1.01)^12 − 1 = 12.6825% effective, plus 3 points for high risk (common practice, no source).
         Assert.Equal(Math.Pow(1.01, 12) - 1 + 0.03, policy.RateFor(RiskClass.High).EffectiveAnnual(), 12);
         Assert.Equal(RateBasis.Nominal, policy.RateFor(RiskClass.Standard).Basis);

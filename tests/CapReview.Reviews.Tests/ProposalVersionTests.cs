@@ -55,7 +55,7 @@ public sealed class ProposalVersionTests(ReviewsDatabase db) : IClassFixture<Rev
         await using (var context = db.NewContext())
         {
             var frozen = await context.ProposalVersions.SingleAsync(v => v.ProposalId == draft.Id);
-            frozen.AssumptionsJson = "{}";
+            context.Entry(frozen).Property(v => v.AssumptionsJson).CurrentValue = "{}";
             Assert.Throws<RuleViolationException>(() => context.SaveChanges());
         }
         await using (var context = db.NewContext())

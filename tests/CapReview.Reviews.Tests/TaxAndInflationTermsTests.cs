@@ -62,7 +62,7 @@ public sealed class TaxAndInflationTermsTests(ReviewsDatabase db) : IClassFixtur
     [Fact]
     public void A_policy_without_inflation_keeps_the_canonical_form_it_had_before_inflation_existed()
     {
-        var policy = new MarrPolicyVersion { Number = 1, Rate = 0.09, Basis = RateBasis.Effective, EffectiveFrom = new DateOnly(2027, 1, 1), SetBy = "a", Reason = "r" };
+        var policy = new MarrPolicyVersion(1, new NewMarrPolicy(0.09, RateBasis.Effective, 1, new DateOnly(2027, 1, 1), "r"), "a", default);
         Assert.DoesNotContain("inflation", MarrPolicyDocument.Serialize(policy));
         Assert.Equal("""{"number":1,"rate":"0.09","basis":"Effective","compoundingsPerYear":1,"effectiveFrom":"2027-01-01","lowRiskPremium":"0","standardRiskPremium":"0","highRiskPremium":"0","setBy":"a","reason":"r"}""",
             MarrPolicyDocument.Serialize(policy));

@@ -6,24 +6,47 @@ namespace CapReview.Reviews.Audit;
 /// </summary>
 public sealed class AuditEvent
 {
-    public long Id { get; set; }
+    private AuditEvent()
+    {
+    }
 
-    public DateTimeOffset At { get; set; }
+    /// <summary>The event that follows <paramref name="previousHash"/>, its own hash computed from its fields.</summary>
+    public static AuditEvent Chained(DateTimeOffset at, string userId, string action, string entityType, string entityId,
+        string? before, string? after, string previousHash)
+    {
+        var e = new AuditEvent
+        {
+            At = at,
+            UserId = userId,
+            Action = action,
+            EntityType = entityType,
+            EntityId = entityId,
+            Before = before,
+            After = after,
+            PreviousHash = previousHash,
+        };
+        e.Hash = AuditChain.HashOf(e, previousHash);
+        return e;
+    }
 
-    public required string UserId { get; set; }
+    public long Id { get; private set; }
+
+    public DateTimeOffset At { get; private set; }
+
+    public string UserId { get; private set; } = "";
 
     /// <summary>e.g. proposal.created, proposal.submitted.</summary>
-    public required string Action { get; set; }
+    public string Action { get; private set; } = "";
 
-    public required string EntityType { get; set; }
+    public string EntityType { get; private set; } = "";
 
-    public required string EntityId { get; set; }
+    public string EntityId { get; private set; } = "";
 
-    public string? Before { get; set; }
+    public string? Before { get; private set; }
 
-    public string? After { get; set; }
+    public string? After { get; private set; }
 
-    public required string PreviousHash { get; set; }
+    public string PreviousHash { get; private set; } = "";
 
-    public required string Hash { get; set; }
+    public string Hash { get; private set; } = "";
 }

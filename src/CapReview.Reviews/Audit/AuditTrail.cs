@@ -21,19 +21,10 @@ public sealed class AuditTrail(TimeProvider clock)
         ArgumentNullException.ThrowIfNull(actor);
         string previous = await db.AuditEvents.OrderByDescending(e => e.Id).Select(e => e.Hash)
             .FirstOrDefaultAsync(cancellationToken).ConfigureAwait(false) ?? AuditChain.Genesis;
-        var e = new AuditEvent
-        {
-            At = clock.GetUtcNow(),
-            UserId = actor.UserId,
-            Action = action,
-            EntityType = entityType,
-            EntityId = entityId,
-            Before = before is null ? null : JsonSerializer.Serialize(before, Snapshot),
-            After = after is null ? null : JsonSerializer.Serialize(after, Snapshot),
-            PreviousHash = previous,
-            Hash = "",
-        };
-        e.Hash = AuditChain.HashOf(e, previous);
+        var e = AuditEvent.Chained(clock.GetUtcNow(), actor.UserId, action, entityType, entityId,
+            before is null ? null : JsonSerializer.Serialize(before, Snapshot),
+            after is null ? null : JsonSerializer.Serialize(after, Snapshot),
+            previous);
         db.AuditEvents.Add(e);
         await db.SaveChangesAsync(cancellationToken).ConfigureAwait(false);
     }

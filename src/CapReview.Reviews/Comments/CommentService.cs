@@ -30,15 +30,7 @@ public sealed class CommentService(ReviewWork work, AuditTrail audit, TimeProvid
             {
                 throw new AccessDeniedException("Only the proposal's lead and board members can comment.");
             }
-            var comment = new ProposalComment
-            {
-                ProposalId = proposal.Id,
-                VersionNumber = proposal.Versions.Max(v => v.Number),
-                AuthorId = actor.UserId,
-                AuthorName = actor.DisplayName,
-                At = clock.GetUtcNow(),
-                Text = text.Trim(),
-            };
+            var comment = new ProposalComment(proposal.Id, proposal.Latest.Number, actor.UserId, actor.DisplayName, clock.GetUtcNow(), text.Trim());
             db.Comments.Add(comment);
             await db.SaveChangesAsync(cancellationToken).ConfigureAwait(false);
             await audit.AppendAsync(db, actor, "comment.added", "proposal", proposal.Reference, null,

@@ -3,17 +3,31 @@ namespace CapReview.Reviews.Comments;
 /// <summary>A remark on a proposal by its lead or a board member, on the version that was current. Written once.</summary>
 public sealed class ProposalComment
 {
-    public int Id { get; set; }
+    private ProposalComment()
+    {
+    }
 
-    public int ProposalId { get; set; }
+    public ProposalComment(int proposalId, int versionNumber, string authorId, string authorName, DateTimeOffset at, string text)
+    {
+        ProposalId = proposalId;
+        VersionNumber = versionNumber;
+        AuthorId = authorId;
+        AuthorName = authorName;
+        At = at;
+        Text = text;
+    }
 
-    public int VersionNumber { get; set; }
+    public int Id { get; private set; }
 
-    public required string AuthorId { get; set; }
+    public int ProposalId { get; private set; }
 
-    public required string AuthorName { get; set; }
+    public int VersionNumber { get; private set; }
 
-    public DateTimeOffset At { get; set; }
+    public string AuthorId { get; private set; } = "";
 
-    public required string Text { get; set; }
+    public string AuthorName { get; private set; } = "";
+
+    public DateTimeOffset At { get; private set; }
+
+    public string Text { get; private set; } = "";
 }

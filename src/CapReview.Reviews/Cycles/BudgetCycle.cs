@@ -1,34 +1,189 @@
+using CapReview.Reviews.Access;
+using CapReview.Reviews.Common;
+using CapReview.Reviews.Decisions;
+using CapReview.Reviews.Portfolio;
+using CapReview.Reviews.Proposals;
+
 namespace CapReview.Reviews.Cycles;
 
-/// <summary>A review round: its capital limit, the MARR version it is pinned to, its dates and status.</summary>
+/// <summary>
+/// A review round: its capital limit, the MARR version it is pinned to, its dates and status. It moves only forward:
+/// open, in review (administrator), decided (by its board sign-offs), closed (administrator).
+/// </summary>
 public sealed class BudgetCycle
 {
-    public int Id { get; set; }
+    private BudgetCycle()
+    {
+    }
 
-    public required string Name { get; set; }
+    public int Id { get; private set; }
+
+    public string Name { get; private set; } = "";
 
     /// <summary>Capital that may be committed in the cycle, in the organisation's currency.</summary>
-    public decimal CapitalLimit { get; set; }
+    public decimal CapitalLimit { get; private set; }
 
     /// <summary>The MARR policy version every evaluation in the cycle uses; later policy versions do not change it.</summary>
-    public int MarrPolicyVersionId { get; set; }
+    public int MarrPolicyVersionId { get; private set; }
 
-    public DateOnly OpensOn { get; set; }
+    public DateOnly OpensOn { get; private set; }
 
-    public DateOnly ClosesOn { get; set; }
+    public DateOnly ClosesOn { get; private set; }
 
-    public CycleStatus Status { get; set; } = CycleStatus.Open;
+    public CycleStatus Status { get; private set; } = CycleStatus.Open;
 
     /// <summary>Board sign-offs the cycle's decision needs.</summary>
-    public int RequiredSignOffs { get; set; } = 2;
+    public int RequiredSignOffs { get; private set; } = 2;
 
     /// <summary>A board-set study period in years for the ranking, or null to rank by annual worth over each life.</summary>
-    public int? StudyPeriodYears { get; set; }
+    public int? StudyPeriodYears { get; private set; }
 
     /// <summary>Capital limits for budget years 1, 2, … of a multi-year budget; year 0 is <see cref="CapitalLimit"/>.</summary>
-    public List<decimal> LaterYearLimits { get; set; } = [];
+    public List<decimal> LaterYearLimits { get; private set; } = [];
 
-    public Portfolio.SelectionObjective Objective { get; set; } = Portfolio.SelectionObjective.PresentWorth;
+    public SelectionObjective Objective { get; private set; } = SelectionObjective.PresentWorth;
 
-    public int Revision { get; set; }
+    public int Revision { get; private set; }
+
+    /// <summary>Refuses terms no cycle may have, with the message the administrator sees.</summary>
+    public static void CheckTerms(NewBudgetCycle terms)
+    {
+        ArgumentNullException.ThrowIfNull(terms);
+        if (string.IsNullOrWhiteSpace(terms.Name) || terms.Name.Trim().Length > 200)
+        {
+            throw new RuleViolationException("Give the cycle a name of at most 200 characters.");
+        }
+        if (terms.CapitalLimit <= 0m)
+        {
+            throw new RuleViolationException("The capital limit must be above zero.");
+        }
+        if (terms.ClosesOn < terms.OpensOn)
+        {
+            throw new RuleViolationException("The cycle closes before it opens.");
+        }
+        if (terms.RequiredSignOffs is < 1 or > 20)
+        {
+            throw new RuleViolationException("A cycle's decision needs between 1 and 20 sign-offs.");
+        }
+    }
+
+    /// <summary>A new cycle, open for proposals.</summary>
+    public static BudgetCycle Open(NewBudgetCycle terms)
+    {
+        CheckTerms(terms);
+        return new BudgetCycle
+        {
+            Name = terms.Name.Trim(),
+            CapitalLimit = terms.CapitalLimit,
+            MarrPolicyVersionId = terms.MarrPolicyVersionId,
+            OpensOn = terms.OpensOn,
+            ClosesOn = terms.ClosesOn,
+            RequiredSignOffs = terms.RequiredSignOffs,
+        };
+    }
+
+    /// <summary>A cycle as another installation recorded it, in whatever status the document gives (checked by the importer).</summary>
+    public static BudgetCycle Imported(NewBudgetCycle terms, CycleStatus status, int? studyPeriodYears, IEnumerable<decimal> laterYearLimits, SelectionObjective objective)
+    {
+        ArgumentNullException.ThrowIfNull(terms);
+        ArgumentNullException.ThrowIfNull(laterYearLimits);
+        return new BudgetCycle
+        {
+            Name = terms.Name.Trim(),
+            CapitalLimit = terms.CapitalLimit,
+            MarrPolicyVersionId = terms.MarrPolicyVersionId,
+            OpensOn = terms.OpensOn,
+            ClosesOn = terms.ClosesOn,
+            RequiredSignOffs = terms.RequiredSignOffs,
+            Status = status,
+            StudyPeriodYears = studyPeriodYears,
+            LaterYearLimits = [.. laterYearLimits],
+            Objective = objective,
+        };
+    }
+
+    /// <summary>An administrator ends submissions: an open cycle goes into review.</summary>
+    public void StartReview(Actor admin) => Move(admin, CycleStatus.Open, CycleStatus.InReview);
+
+    /// <summary>An administrator closes a decided cycle.</summary>
+    public void Close(Actor admin) => Move(admin, CycleStatus.Decided, CycleStatus.Closed);
+
+    /// <summary>The cycle becomes decided once <paramref name="signOffs"/> reach the required number, and only then.</summary>
+    public void MarkDecided(int signOffs)
+    {
+        if (Status is not (CycleStatus.Open or CycleStatus.InReview))
+        {
+            throw new RuleViolationException($"The cycle {Name} is already decided.");
+        }
+        if (signOffs < RequiredSignOffs)
+        {
+            throw new RuleViolationException("A cycle is decided by its board sign-offs.");
+        }
+        Status = CycleStatus.Decided;
+        Revision++;
+    }
+
+    /// <summary>
+    /// A board member signs off every decision of the cycle (<paramref name="decisionsSigned"/>, as JSON): refused while
+    /// a proposal is still open, or when they have signed already. The last required sign-off makes the cycle decided.
+    /// </summary>
+    public SignOff SignOff(Actor board, IReadOnlyCollection<Proposal> proposals, bool alreadySigned, int signOffsBefore, string decisionsSigned, DateTimeOffset at)
+    {
+        ArgumentNullException.ThrowIfNull(board);
+        ArgumentNullException.ThrowIfNull(proposals);
+        if (!board.Has(Role.Reviewer))
+        {
+            throw new AccessDeniedException("Only a board member can decide and sign off.");
+        }
+        if (Status is CycleStatus.Decided or CycleStatus.Closed)
+        {
+            throw new RuleViolationException($"The cycle {Name} is already decided.");
+        }
+        var open = proposals.Where(p => p.Status is ProposalStatus.Submitted or ProposalStatus.InReview or ProposalStatus.ReturnedForChanges).ToList();
+        if (proposals.Count == 0 || open.Count > 0)
+        {
+            throw new RuleViolationException(proposals.Count == 0
+                ? "The cycle has no proposals to sign off."
+                : $"Decide every proposal first: {string.Join(", ", open.Select(p => p.Reference))} still open.");
+        }
+        if (alreadySigned)
+        {
+            throw new RuleViolationException("You have already signed off this cycle.");
+        }
+        var signOff = new SignOff(Id, board.UserId, board.DisplayName, at, decisionsSigned);
+        if (signOffsBefore + 1 >= RequiredSignOffs)
+        {
+            MarkDecided(signOffsBefore + 1);
+        }
+        return signOff;
+    }
+
+    /// <summary>The board's plan: a study period, later years' limits and what the selection maximises; only while the cycle is undecided.</summary>
+    public void SetPlan(int? studyPeriodYears, IEnumerable<decimal> laterYearLimits, SelectionObjective objective)
+    {
+        ArgumentNullException.ThrowIfNull(laterYearLimits);
+        if (Status is not (CycleStatus.Open or CycleStatus.InReview))
+        {
+            throw new RuleViolationException($"The cycle {Name} is {Status}: its portfolio rules can no longer change.");
+        }
+        StudyPeriodYears = studyPeriodYears;
+        LaterYearLimits = [.. laterYearLimits];
+        Objective = objective;
+        Revision++;
+    }
+
+    private void Move(Actor admin, CycleStatus from, CycleStatus to)
+    {
+        ArgumentNullException.ThrowIfNull(admin);
+        if (!admin.Has(Role.Administrator))
+        {
+            throw new AccessDeniedException("Only an administrator can move a cycle on.");
+        }
+        if (Status != from)
+        {
+            throw new RuleViolationException($"A cycle that is {Status} cannot become {to}.");
+        }
+        Status = to;
+        Revision++;
+    }
 }

@@ -16,22 +16,7 @@ public sealed class CycleService(ReviewWork work, AuditTrail audit)
         {
             throw new AccessDeniedException("Only an administrator can open a budget cycle.");
         }
-        if (string.IsNullOrWhiteSpace(cycle.Name) || cycle.Name.Trim().Length > 200)
-        {
-            throw new RuleViolationException("Give the cycle a name of at most 200 characters.");
-        }
-        if (cycle.CapitalLimit <= 0m)
-        {
-            throw new RuleViolationException("The capital limit must be above zero.");
-        }
-        if (cycle.ClosesOn < cycle.OpensOn)
-        {
-            throw new RuleViolationException("The cycle closes before it opens.");
-        }
-        if (cycle.RequiredSignOffs is < 1 or > 20)
-        {
-            throw new RuleViolationException("A cycle's decision needs between 1 and 20 sign-offs.");
-        }
+        BudgetCycle.CheckTerms(cycle);
         return work.RunAsync(async db =>
         {
             if (!await db.MarrPolicyVersions.AnyAsync(m => m.Id == cycle.MarrPolicyVersionId, cancellationToken).ConfigureAwait(false))
@@ -42,15 +27,7 @@ public sealed class CycleService(ReviewWork work, AuditTrail audit)
             {
                 throw new RuleViolationException($"There is already a cycle called {cycle.Name.Trim()}.");
             }
-            var entity = new BudgetCycle
-            {
-                Name = cycle.Name.Trim(),
-                CapitalLimit = cycle.CapitalLimit,
-                MarrPolicyVersionId = cycle.MarrPolicyVersionId,
-                OpensOn = cycle.OpensOn,
-                ClosesOn = cycle.ClosesOn,
-                RequiredSignOffs = cycle.RequiredSignOffs,
-            };
+            var entity = BudgetCycle.Open(cycle);
             db.BudgetCycles.Add(entity);
             await db.SaveChangesAsync(cancellationToken).ConfigureAwait(false);
             await audit.AppendAsync(db, actor, "cycle.created", "budget_cycle", entity.Id.ToString(System.Globalization.CultureInfo.InvariantCulture), null, cycle, cancellationToken).ConfigureAwait(false);
@@ -73,17 +50,21 @@ public sealed class CycleService(ReviewWork work, AuditTrail audit)
         {
             BudgetCycle cycle = await db.BudgetCycles.SingleOrDefaultAsync(c => c.Id == cycleId, cancellationToken).ConfigureAwait(false)
                 ?? throw new NotFoundException("There is no such budget cycle.");
-            bool allowed = (cycle.Status, to) is (CycleStatus.Open, CycleStatus.InReview) or (CycleStatus.Decided, CycleStatus.Closed);
-            if (!allowed)
-            {
-                throw new RuleViolationException(to == CycleStatus.Decided
-                    ? "A cycle is decided by its board sign-offs."
-                    : $"A cycle that is {cycle.Status} cannot become {to}.");
-            }
             string before = cycle.Status.ToString();
             db.Entry(cycle).Property(c => c.Revision).OriginalValue = expectedRevision;
-            cycle.Status = to;
-            cycle.Revision++;
+            switch (to)
+            {
+                case CycleStatus.InReview:
+                    cycle.StartReview(actor);
+                    break;
+                case CycleStatus.Closed:
+                    cycle.Close(actor);
+                    break;
+                case CycleStatus.Decided:
+                    throw new RuleViolationException("A cycle is decided by its board sign-offs.");
+                default:
+                    throw new RuleViolationException($"A cycle that is {cycle.Status} cannot become {to}.");
+            }
             await db.SaveChangesAsync(cancellationToken).ConfigureAwait(false);
             await audit.AppendAsync(db, actor, "cycle.moved", "budget_cycle", cycle.Id.ToString(System.Globalization.CultureInfo.InvariantCulture),
                 new { Status = before }, new { Status = to.ToString() }, cancellationToken).ConfigureAwait(false);

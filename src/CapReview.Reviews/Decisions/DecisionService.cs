@@ -46,51 +46,16 @@ public sealed class DecisionService(ReviewWork work, AuditTrail audit, TimeProvi
             {
                 throw new NotFoundException("There is no such proposal in this cycle.");
             }
-            if (proposal.Status is not (ProposalStatus.Submitted or ProposalStatus.InReview) || proposal.BudgetCycleId is not int cycleId)
-            {
-                throw new RuleViolationException("Only a submitted proposal can be decided.");
-            }
-            BudgetCycle cycle = await db.BudgetCycles.SingleAsync(c => c.Id == cycleId, cancellationToken).ConfigureAwait(false);
-            if (cycle.Status is CycleStatus.Decided or CycleStatus.Closed)
-            {
-                throw new RuleViolationException($"The cycle {cycle.Name} is already decided.");
-            }
-            ProposalVersion version = proposal.Versions.Where(v => v.IsFrozen).OrderBy(v => v.Number).Last();
-            if (expectedVersion is int judged && judged != version.Number)
-            {
-                throw new ConcurrencyConflictException($"version: {proposal.Reference} was decided on version {judged}, but its latest submitted version is {version.Number}. Look at version {version.Number} and decide again.");
-            }
+            // The cycle it was submitted to, if any: the proposal refuses a decision without one.
+            BudgetCycle? cycle = proposal.BudgetCycleId is int cycleId
+                ? await db.BudgetCycles.SingleAsync(c => c.Id == cycleId, cancellationToken).ConfigureAwait(false)
+                : null;
             object before = new { proposal.Reference, Status = proposal.Status.ToString() };
             if (expectedRevision is int revision)
             {
                 db.Entry(proposal).Property(p => p.Revision).OriginalValue = revision;
             }
-            // A decision on a proposal not yet in review passes through review: the workflow's path stays whole.
-            ProposalStatus from = proposal.Status == ProposalStatus.Submitted ? ProposalStatus.InReview : proposal.Status;
-            ProposalStatus to = outcome switch
-            {
-                DecisionOutcome.Approve => ProposalStatus.Approved,
-                DecisionOutcome.Reject => ProposalStatus.Rejected,
-                _ => ProposalStatus.ReturnedForChanges,
-            };
-            if (ProposalWorkflow.RoleFor(from, to) != Role.Reviewer)
-            {
-                throw new RuleViolationException("The workflow does not allow this decision now.");
-            }
-            proposal.Status = to;
-            proposal.Revision++;
-            var decision = new Decision
-            {
-                ProposalId = proposal.Id,
-                BudgetCycleId = cycleId,
-                VersionNumber = version.Number,
-                AssumptionsHash = version.AssumptionsHash,
-                MarrPolicyVersionId = cycle.MarrPolicyVersionId,
-                Outcome = outcome,
-                Conditions = (conditions ?? "").Trim(),
-                DecidedBy = actor.UserId,
-                DecidedAt = clock.GetUtcNow(),
-            };
+            Decision decision = proposal.Decide(actor, outcome, conditions, cycle, clock.GetUtcNow(), expectedVersion);
             db.Decisions.Add(decision);
             await db.SaveChangesAsync(cancellationToken).ConfigureAwait(false);
             await audit.AppendAsync(db, actor, "decision.recorded", "proposal", proposal.Reference, before,
@@ -113,22 +78,9 @@ public sealed class DecisionService(ReviewWork work, AuditTrail audit, TimeProvi
         {
             BudgetCycle cycle = await db.BudgetCycles.SingleOrDefaultAsync(c => c.Id == cycleId, cancellationToken).ConfigureAwait(false)
                 ?? throw new NotFoundException("There is no such budget cycle.");
-            if (cycle.Status is CycleStatus.Decided or CycleStatus.Closed)
-            {
-                throw new RuleViolationException($"The cycle {cycle.Name} is already decided.");
-            }
             var proposals = await db.Proposals.Where(p => p.BudgetCycleId == cycleId).ToListAsync(cancellationToken).ConfigureAwait(false);
-            var open = proposals.Where(p => p.Status is ProposalStatus.Submitted or ProposalStatus.InReview or ProposalStatus.ReturnedForChanges).ToList();
-            if (proposals.Count == 0 || open.Count > 0)
-            {
-                throw new RuleViolationException(proposals.Count == 0
-                    ? "The cycle has no proposals to sign off."
-                    : $"Decide every proposal first: {string.Join(", ", open.Select(p => p.Reference))} still open.");
-            }
-            if (await db.SignOffs.AnyAsync(s => s.BudgetCycleId == cycleId && s.UserId == actor.UserId, cancellationToken).ConfigureAwait(false))
-            {
-                throw new RuleViolationException("You have already signed off this cycle.");
-            }
+            bool alreadySigned = await db.SignOffs.AnyAsync(s => s.BudgetCycleId == cycleId && s.UserId == actor.UserId, cancellationToken).ConfigureAwait(false);
+            int signOffsBefore = await db.SignOffs.CountAsync(s => s.BudgetCycleId == cycleId, cancellationToken).ConfigureAwait(false);
             var ids = proposals.Select(p => p.Id).ToList();
             var latest = (await db.Decisions.Where(d => ids.Contains(d.ProposalId)).ToListAsync(cancellationToken).ConfigureAwait(false))
                 .GroupBy(d => d.ProposalId).Select(g => g.OrderBy(d => d.Id).Last()).ToList();
@@ -139,21 +91,12 @@ public sealed class DecisionService(ReviewWork work, AuditTrail audit, TimeProvi
                 d.AssumptionsHash,
                 Outcome = d.Outcome.ToString(),
             }).OrderBy(x => x.Proposal, StringComparer.Ordinal).ToArray();
-            var signOff = new SignOff
-            {
-                BudgetCycleId = cycleId,
-                UserId = actor.UserId,
-                DisplayName = actor.DisplayName,
-                SignedAt = clock.GetUtcNow(),
-                DecisionsSigned = JsonSerializer.Serialize(signed),
-            };
-            db.SignOffs.Add(signOff);
-            int count = await db.SignOffs.CountAsync(s => s.BudgetCycleId == cycleId, cancellationToken).ConfigureAwait(false) + 1;
             string cycleBefore = cycle.Status.ToString();
-            if (count >= cycle.RequiredSignOffs)
+            SignOff signOff = cycle.SignOff(actor, proposals, alreadySigned, signOffsBefore, JsonSerializer.Serialize(signed), clock.GetUtcNow());
+            db.SignOffs.Add(signOff);
+            int count = signOffsBefore + 1;
+            if (cycle.Status == CycleStatus.Decided)
             {
-                cycle.Status = CycleStatus.Decided;
-                cycle.Revision++;
                 await Records.PacketJobs.QueueAsync(db, cycleId, actor, signOff.SignedAt, cancellationToken).ConfigureAwait(false);
                 decided = true;
             }

@@ -98,12 +98,9 @@ public sealed class CycleImporter(ReviewWork work, AuditTrail audit, IPeopleDire
                 throw new ImportRefusedException([new InputError("cycle.name", $"A cycle named “{c.Name}” already exists here; rename it in the document or here first.")]);
             }
             MarrPolicyVersion policy = await PolicyAsync(db, document.MarrPolicy!, policySetter, cancellationToken).ConfigureAwait(false);
-            var cycle = new BudgetCycle
-            {
-                Name = c.Name!.Trim(), CapitalLimit = c.CapitalLimit!.Value, MarrPolicyVersionId = policy.Id, OpensOn = c.OpensOn!.Value, ClosesOn = c.ClosesOn!.Value,
-                Status = c.Status ?? CycleStatus.Open, RequiredSignOffs = c.RequiredSignOffs ?? 2, StudyPeriodYears = c.StudyPeriodYears,
-                LaterYearLimits = [.. c.LaterYearLimits ?? []], Objective = c.Objective ?? SelectionObjective.PresentWorth,
-            };
+            var cycle = BudgetCycle.Imported(
+                new NewBudgetCycle(c.Name!.Trim(), c.CapitalLimit!.Value, policy.Id, c.OpensOn!.Value, c.ClosesOn!.Value, c.RequiredSignOffs ?? 2),
+                c.Status ?? CycleStatus.Open, c.StudyPeriodYears, c.LaterYearLimits ?? [], c.Objective ?? SelectionObjective.PresentWorth);
             db.BudgetCycles.Add(cycle);
             await db.SaveChangesAsync(cancellationToken).ConfigureAwait(false);
 
@@ -114,14 +111,10 @@ public sealed class CycleImporter(ReviewWork work, AuditTrail audit, IPeopleDire
             foreach (ProposalEntry entry in document.Proposals!)
             {
                 string reference = entry.Reference!;
-                var proposal = new Proposal
-                {
-                    OwnerId = owners[reference] ?? actor.UserId, Title = entry.Title!.Trim(), Description = entry.Description ?? "",
-                    Category = entry.Category ?? ProposalCategory.Other, RiskClass = entry.RiskClass ?? RiskClass.Standard,
-                    Status = entry.Status ?? ProposalStatus.Submitted, BudgetCycleId = cycle.Id,
+                var proposal = Proposal.Imported(owners[reference] ?? actor.UserId, entry.Title!.Trim(), entry.Description ?? "",
+                    entry.Category ?? ProposalCategory.Other, entry.RiskClass ?? RiskClass.Standard, entry.Status ?? ProposalStatus.Submitted, cycle.Id,
                     // A placeholder until the id is known, unique among the rows being added.
-                    Reference = taken.Contains(reference) ? $"import-{Guid.NewGuid():N}"[..20] : reference,
-                };
+                    taken.Contains(reference) ? $"{Proposal.PlaceholderReference}{Guid.NewGuid():N}"[..20] : reference);
                 if (owners[reference] is null)
                 {
                     held.Add(reference);
@@ -129,11 +122,8 @@ public sealed class CycleImporter(ReviewWork work, AuditTrail audit, IPeopleDire
                 foreach (VersionEntry v in entry.Versions!)
                 {
                     string json = AssumptionsDocument.Serialize(v.Assumptions!);
-                    proposal.Versions.Add(new ProposalVersion
-                    {
-                        Number = v.Number!.Value, AuthorId = authors[(reference, v.Number!.Value)], CreatedAt = Stored(v.CreatedAt),
-                        Reason = v.Reason ?? "", IsFrozen = v.Frozen ?? false, FrozenAt = v.FrozenAt is { } frozen ? StorageClock.ToStored(frozen) : null, AssumptionsJson = json, AssumptionsHash = AssumptionsDocument.Hash(json),
-                    });
+                    proposal.AddImportedVersion(ProposalVersion.Imported(v.Number!.Value, authors[(reference, v.Number!.Value)], Stored(v.CreatedAt),
+                        v.Reason ?? "", json, v.Frozen ?? false, v.FrozenAt is { } frozen ? StorageClock.ToStored(frozen) : null));
                 }
                 db.Proposals.Add(proposal);
                 byReference[reference] = proposal;
@@ -143,7 +133,7 @@ public sealed class CycleImporter(ReviewWork work, AuditTrail audit, IPeopleDire
             taken.UnionWith(byReference.Where(x => x.Value.Reference == x.Key).Select(x => x.Key));
             foreach (var (reference, proposal) in byReference.Where(x => x.Value.Reference != x.Key))
             {
-                proposal.Reference = ProposalReferences.NextFree(proposal.Id, taken);
+                proposal.AssignReference(ProposalReferences.NextFree(proposal.Id, taken));
                 taken.Add(proposal.Reference);
                 renamed[reference] = proposal.Reference;
             }
@@ -159,16 +149,13 @@ public sealed class CycleImporter(ReviewWork work, AuditTrail audit, IPeopleDire
             int k = 0;
             foreach (DecisionEntry d in document.Decisions ?? [])
             {
-                db.Decisions.Add(new Decision
-                {
-                    ProposalId = byReference[d.Proposal!].Id, BudgetCycleId = cycle.Id, VersionNumber = d.Version!.Value, AssumptionsHash = d.AssumptionsSha256!,
-                    MarrPolicyVersionId = policy.Id, Outcome = d.Outcome!.Value, Conditions = d.Conditions ?? "", DecidedBy = deciders[k++], DecidedAt = Stored(d.DecidedAt),
-                });
+                db.Decisions.Add(new Decision(byReference[d.Proposal!].Id, cycle.Id, d.Version!.Value, d.AssumptionsSha256!, policy.Id,
+                    d.Outcome!.Value, d.Conditions ?? "", deciders[k++], Stored(d.DecidedAt)));
             }
             k = 0;
             foreach (SignOffEntry s in document.SignOffs ?? [])
             {
-                db.SignOffs.Add(new SignOff { BudgetCycleId = cycle.Id, UserId = signers[k++], DisplayName = s.By!.Name!, SignedAt = Stored(s.SignedAt), DecisionsSigned = s.DecisionsSigned ?? "[]" });
+                db.SignOffs.Add(new SignOff(cycle.Id, signers[k++], s.By!.Name!, Stored(s.SignedAt), s.DecisionsSigned ?? "[]"));
             }
             await db.SaveChangesAsync(cancellationToken).ConfigureAwait(false);
             await audit.AppendAsync(db, actor, "cycle.imported", "budget_cycle", cycle.Id.ToString(CultureInfo.InvariantCulture), null,
@@ -183,14 +170,11 @@ public sealed class CycleImporter(ReviewWork work, AuditTrail audit, IPeopleDire
     /// <summary>The policy version here with the same rates, or a new version carrying the document's.</summary>
     private async Task<MarrPolicyVersion> PolicyAsync(CapReviewDbContext db, PolicyEntry p, string setBy, CancellationToken cancellationToken)
     {
-        var candidate = new MarrPolicyVersion
-        {
-            Rate = p.Rate!.Value, Basis = p.Basis ?? RateBasis.Effective, CompoundingsPerYear = p.Basis == RateBasis.Nominal ? p.CompoundingsPerYear ?? 1 : 1,
-            EffectiveFrom = p.EffectiveFrom!.Value, LowRiskPremium = p.LowRiskPremium ?? 0, StandardRiskPremium = p.StandardRiskPremium ?? 0,
-            HighRiskPremium = p.HighRiskPremium ?? 0, InflationRate = p.InflationRate ?? 0, RealMarr = p.RealMarr ?? false, AfterTaxRate = p.AfterTaxRate,
-            SetBy = setBy, Reason = p.Reason ?? "", CreatedAt = clock.GetUtcNow(),
-        };
         var existing = await db.MarrPolicyVersions.ToListAsync(cancellationToken).ConfigureAwait(false);
+        var candidate = new MarrPolicyVersion(existing.Select(m => m.Number).DefaultIfEmpty(0).Max() + 1,
+            new NewMarrPolicy(p.Rate!.Value, p.Basis ?? RateBasis.Effective, p.CompoundingsPerYear ?? 1, p.EffectiveFrom!.Value, p.Reason ?? "",
+                p.LowRiskPremium ?? 0, p.StandardRiskPremium ?? 0, p.HighRiskPremium ?? 0, p.InflationRate ?? 0, p.RealMarr ?? false, p.AfterTaxRate),
+            setBy, clock.GetUtcNow());
         MarrPolicyVersion? same = existing.FirstOrDefault(m => m.Rate == candidate.Rate && m.Basis == candidate.Basis && m.CompoundingsPerYear == candidate.CompoundingsPerYear
             && m.EffectiveFrom == candidate.EffectiveFrom && m.LowRiskPremium == candidate.LowRiskPremium && m.StandardRiskPremium == candidate.StandardRiskPremium
             && m.HighRiskPremium == candidate.HighRiskPremium && m.InflationRate == candidate.InflationRate && m.RealMarr == candidate.RealMarr
@@ -199,7 +183,6 @@ public sealed class CycleImporter(ReviewWork work, AuditTrail audit, IPeopleDire
         {
             return same;
         }
-        candidate.Number = existing.Select(m => m.Number).DefaultIfEmpty(0).Max() + 1;
         db.MarrPolicyVersions.Add(candidate);
         await db.SaveChangesAsync(cancellationToken).ConfigureAwait(false);
         return candidate;

@@ -41,23 +41,7 @@ public sealed class MarrPolicyService(ReviewWork work, AuditTrail audit, TimePro
         return work.RunAsync(async db =>
         {
             int number = (await db.MarrPolicyVersions.MaxAsync(m => (int?)m.Number, cancellationToken).ConfigureAwait(false) ?? 0) + 1;
-            var version = new MarrPolicyVersion
-            {
-                Number = number,
-                Rate = policy.Rate,
-                Basis = policy.Basis,
-                CompoundingsPerYear = policy.Basis == RateBasis.Nominal ? policy.CompoundingsPerYear : 1,
-                EffectiveFrom = policy.EffectiveFrom,
-                LowRiskPremium = policy.LowRiskPremium,
-                StandardRiskPremium = policy.StandardRiskPremium,
-                HighRiskPremium = policy.HighRiskPremium,
-                InflationRate = policy.InflationRate,
-                RealMarr = policy.RealMarr,
-                AfterTaxRate = policy.AfterTaxRate,
-                SetBy = actor.UserId,
-                Reason = policy.Reason.Trim(),
-                CreatedAt = clock.GetUtcNow(),
-            };
+            var version = new MarrPolicyVersion(number, policy with { Reason = policy.Reason.Trim() }, actor.UserId, clock.GetUtcNow());
             db.MarrPolicyVersions.Add(version);
             await db.SaveChangesAsync(cancellationToken).ConfigureAwait(false);
             await audit.AppendAsync(db, actor, "marr.version-added", "marr_policy", number.ToString(System.Globalization.CultureInfo.InvariantCulture), null, policy, cancellationToken).ConfigureAwait(false);

@@ -9,39 +9,63 @@ namespace CapReview.Reviews.Marr;
 /// </summary>
 public sealed class MarrPolicyVersion
 {
-    public int Id { get; set; }
+    private MarrPolicyVersion()
+    {
+    }
 
-    public int Number { get; set; }
+    /// <summary>Version <paramref name="number"/> of the policy, as <paramref name="setBy"/> entered it; a rate that is not nominal is compounded once a year.</summary>
+    public MarrPolicyVersion(int number, NewMarrPolicy policy, string setBy, DateTimeOffset createdAt)
+    {
+        ArgumentNullException.ThrowIfNull(policy);
+        Number = number;
+        Rate = policy.Rate;
+        Basis = policy.Basis;
+        CompoundingsPerYear = policy.Basis == RateBasis.Nominal ? policy.CompoundingsPerYear : 1;
+        EffectiveFrom = policy.EffectiveFrom;
+        LowRiskPremium = policy.LowRiskPremium;
+        StandardRiskPremium = policy.StandardRiskPremium;
+        HighRiskPremium = policy.HighRiskPremium;
+        InflationRate = policy.InflationRate;
+        RealMarr = policy.RealMarr;
+        AfterTaxRate = policy.AfterTaxRate;
+        SetBy = setBy;
+        Reason = policy.Reason;
+        CreatedAt = createdAt;
+    }
 
-    public double Rate { get; set; }
+    public int Id { get; private set; }
 
-    public RateBasis Basis { get; set; }
+    public int Number { get; private set; }
+
+    public double Rate { get; private set; }
+
+    public RateBasis Basis { get; private set; }
 
     /// <summary>m for a nominal rate.</summary>
-    public int CompoundingsPerYear { get; set; } = 1;
+    public int CompoundingsPerYear { get; private set; } = 1;
 
-    public DateOnly EffectiveFrom { get; set; }
+    public DateOnly EffectiveFrom { get; private set; }
 
-    public double LowRiskPremium { get; set; }
+    public double LowRiskPremium { get; private set; }
 
-    public double StandardRiskPremium { get; set; }
+    public double StandardRiskPremium { get; private set; }
 
-    public double HighRiskPremium { get; set; }
+    public double HighRiskPremium { get; private set; }
 
     /// <summary>General inflation a year, applied to proposal amounts given in constant money.</summary>
-    public double InflationRate { get; set; }
+    public double InflationRate { get; private set; }
 
     /// <summary>Whether <see cref="Rate"/> is a real (inflation-free) MARR; the market MARR is then (1 + real)(1 + inflation) − 1.</summary>
-    public bool RealMarr { get; set; }
+    public bool RealMarr { get; private set; }
 
     /// <summary>The after-tax MARR (effective annual); null for the MARR times (1 − the proposal's tax rate).</summary>
-    public double? AfterTaxRate { get; set; }
+    public double? AfterTaxRate { get; private set; }
 
-    public required string SetBy { get; set; }
+    public string SetBy { get; private set; } = "";
 
-    public required string Reason { get; set; }
+    public string Reason { get; private set; } = "";
 
-    public DateTimeOffset CreatedAt { get; set; }
+    public DateTimeOffset CreatedAt { get; private set; }
 
     /// <summary>The base rate as quoted.</summary>
     public AnnualRate BaseRate() => AnnualRate.Create(Rate, Basis, CompoundingsPerYear);

@@ -66,10 +66,7 @@ public sealed class PortfolioRulesService(ReviewWork work, AuditTrail audit)
             BudgetCycle cycle = await EditableCycleAsync(db, cycleId, cancellationToken).ConfigureAwait(false);
             var before = new CyclePlan(cycle.StudyPeriodYears, [.. cycle.LaterYearLimits], cycle.Objective);
             db.Entry(cycle).Property(c => c.Revision).OriginalValue = expectedRevision;
-            cycle.StudyPeriodYears = plan.StudyPeriodYears;
-            cycle.LaterYearLimits = [.. plan.LaterYearLimits];
-            cycle.Objective = plan.Objective;
-            cycle.Revision++;
+            cycle.SetPlan(plan.StudyPeriodYears, plan.LaterYearLimits, plan.Objective);
             await db.SaveChangesAsync(cancellationToken).ConfigureAwait(false);
             await audit.AppendAsync(db, actor, "cycle.plan-changed", "budget_cycle", Id(cycle.Id), before, plan, cancellationToken).ConfigureAwait(false);
             return cycle;

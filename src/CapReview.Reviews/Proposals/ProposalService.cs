@@ -1,4 +1,3 @@
-using CapReview.Engine.Evaluation;
 using CapReview.Reviews.Access;
 using CapReview.Reviews.Audit;
 using CapReview.Reviews.Common;
@@ -22,19 +21,10 @@ public sealed class ProposalService(ReviewWork work, AuditTrail audit, TimeProvi
         CheckDraft(draft);
         return work.RunAsync(async db =>
         {
-            string json = AssumptionsDocument.Serialize(draft.Assumptions);
-            var proposal = new Proposal
-            {
-                OwnerId = actor.UserId,
-                Title = draft.Title.Trim(),
-                Description = draft.Description.Trim(),
-                Category = draft.Category,
-                RiskClass = draft.RiskClass,
-            };
-            proposal.Versions.Add(NewVersion(1, actor, "First draft", json));
+            var proposal = Proposal.Start(actor, draft, clock.GetUtcNow());
             db.Proposals.Add(proposal);
             await db.SaveChangesAsync(cancellationToken).ConfigureAwait(false);
-            proposal.Reference = await ProposalReferences.NextFreeAsync(db, proposal, cancellationToken).ConfigureAwait(false);
+            proposal.AssignReference(await ProposalReferences.NextFreeAsync(db, proposal, cancellationToken).ConfigureAwait(false));
             await db.SaveChangesAsync(cancellationToken).ConfigureAwait(false);
             await audit.AppendAsync(db, actor, "proposal.created", "proposal", proposal.Reference, null, Summary(proposal), cancellationToken).ConfigureAwait(false);
             return ProposalView.Of(proposal);
@@ -52,33 +42,9 @@ public sealed class ProposalService(ReviewWork work, AuditTrail audit, TimeProvi
         return work.RunAsync(async db =>
         {
             Proposal proposal = await LoadOwnAsync(db, actor, proposalId, cancellationToken).ConfigureAwait(false);
-            if (proposal.Status is not (ProposalStatus.Draft or ProposalStatus.ReturnedForChanges))
-            {
-                throw new RuleViolationException($"A proposal that is {Describe(proposal.Status)} cannot be edited.");
-            }
             object before = Summary(proposal);
             ExpectRevision(db, proposal, expectedRevision);
-            proposal.Title = draft.Title.Trim();
-            proposal.Description = draft.Description.Trim();
-            proposal.Category = draft.Category;
-            proposal.RiskClass = draft.RiskClass;
-            string json = AssumptionsDocument.Serialize(draft.Assumptions);
-            ProposalVersion latest = proposal.Versions.OrderBy(v => v.Number).Last();
-            if (!latest.IsFrozen)
-            {
-                latest.AssumptionsJson = json;
-                latest.AssumptionsHash = AssumptionsDocument.Hash(json);
-                latest.Revision++;
-            }
-            else if (latest.AssumptionsJson != json)
-            {
-                if (string.IsNullOrWhiteSpace(draft.ChangeReason))
-                {
-                    throw new RuleViolationException("Say why the assumptions changed: the submitted version stays as it was and the change becomes a new version.");
-                }
-                proposal.Versions.Add(NewVersion(latest.Number + 1, actor, draft.ChangeReason.Trim(), json));
-            }
-            proposal.Revision++;
+            proposal.EditDraft(actor, draft, clock.GetUtcNow());
             await db.SaveChangesAsync(cancellationToken).ConfigureAwait(false);
             await audit.AppendAsync(db, actor, "proposal.edited", "proposal", proposal.Reference, before, Summary(proposal), cancellationToken).ConfigureAwait(false);
             return ProposalView.Of(proposal);
@@ -155,33 +121,13 @@ public sealed class ProposalService(ReviewWork work, AuditTrail audit, TimeProvi
         return work.RunAsync(async db =>
         {
             Proposal proposal = await LoadOwnAsync(db, actor, proposalId, cancellationToken).ConfigureAwait(false);
-            CheckTransition(actor, proposal, ProposalStatus.Submitted);
+            // The workflow's refusal comes before a missing cycle's, as it always has.
+            proposal.EnsureMayBecome(actor, ProposalStatus.Submitted);
             BudgetCycle cycle = await db.BudgetCycles.SingleOrDefaultAsync(c => c.Id == cycleId, cancellationToken).ConfigureAwait(false)
                 ?? throw new NotFoundException("There is no such budget cycle.");
-            if (proposal.BudgetCycleId is int earlier && earlier != cycle.Id)
-            {
-                throw new RuleViolationException("A proposal returned for changes goes back to the cycle it came from.");
-            }
-            // New proposals only while the cycle is open; a returned one may come back while the board still reviews.
-            bool resubmission = proposal.BudgetCycleId == cycle.Id;
-            if (!(cycle.Status == CycleStatus.Open || (resubmission && cycle.Status == CycleStatus.InReview)))
-            {
-                throw new RuleViolationException($"The cycle {cycle.Name} no longer takes proposals.");
-            }
-            ProposalVersion latest = proposal.Versions.OrderBy(v => v.Number).Last();
-            var evaluation = Evaluator.Evaluate(AssumptionsDocument.Deserialize(latest.AssumptionsJson).Model);
-            if (!evaluation.IsValid && evaluation.Errors.Any(e => e.Field != "rate.value"))
-            {
-                var first = evaluation.Errors.First(e => e.Field != "rate.value");
-                throw new RuleViolationException($"The model is not complete: {first.Field}: {first.Message}");
-            }
             object before = Summary(proposal);
             ExpectRevision(db, proposal, expectedRevision);
-            latest.IsFrozen = true;
-            latest.FrozenAt = clock.GetUtcNow();
-            proposal.Status = ProposalStatus.Submitted;
-            proposal.BudgetCycleId = cycle.Id;
-            proposal.Revision++;
+            proposal.Submit(actor, cycle, clock.GetUtcNow());
             await db.SaveChangesAsync(cancellationToken).ConfigureAwait(false);
             await audit.AppendAsync(db, actor, "proposal.submitted", "proposal", proposal.Reference, before, Summary(proposal), cancellationToken).ConfigureAwait(false);
             return ProposalView.Of(proposal);
@@ -203,11 +149,24 @@ public sealed class ProposalService(ReviewWork work, AuditTrail audit, TimeProvi
         return work.RunAsync(async db =>
         {
             Proposal proposal = await LoadVisibleAsync(db, actor, proposalId, cancellationToken).ConfigureAwait(false);
-            CheckTransition(actor, proposal, to);
             object before = Summary(proposal);
             ExpectRevision(db, proposal, expectedRevision);
-            proposal.Status = to;
-            proposal.Revision++;
+            switch (to)
+            {
+                case ProposalStatus.InReview:
+                    proposal.StartReview(actor);
+                    break;
+                case ProposalStatus.ReturnedForChanges:
+                    proposal.Return(actor);
+                    break;
+                case ProposalStatus.Withdrawn:
+                    proposal.Withdraw(actor);
+                    break;
+                default:
+                    // No step leads here (back to draft, say): the workflow refuses it with its own words.
+                    proposal.EnsureMayBecome(actor, to);
+                    throw new InvalidOperationException($"The workflow table allows {to}, but no step of a proposal makes it.");
+            }
             await db.SaveChangesAsync(cancellationToken).ConfigureAwait(false);
             await audit.AppendAsync(db, actor, $"proposal.{to.ToString().ToLowerInvariant()}", "proposal", proposal.Reference, before, Summary(proposal), cancellationToken).ConfigureAwait(false);
             return ProposalView.Of(proposal);
@@ -263,34 +222,9 @@ public sealed class ProposalService(ReviewWork work, AuditTrail audit, TimeProvi
         return proposal;
     }
 
-    private static void CheckTransition(Actor actor, Proposal proposal, ProposalStatus to)
-    {
-        Role? needed = ProposalWorkflow.RoleFor(proposal.Status, to);
-        if (needed is null)
-        {
-            throw new RuleViolationException($"A proposal that is {Describe(proposal.Status)} cannot become {Describe(to)}.");
-        }
-        if (!actor.Has(needed.Value) || (needed == Role.ProjectLead && proposal.OwnerId != actor.UserId))
-        {
-            throw new AccessDeniedException(needed == Role.ProjectLead
-                ? "Only the proposal's project lead can do this."
-                : "Only a board member can do this.");
-        }
-    }
-
     /// <summary>Makes the save fail with a conflict when the row is no longer at the revision the user started from.</summary>
     private static void ExpectRevision(CapReviewDbContext db, Proposal proposal, int expectedRevision) =>
         db.Entry(proposal).Property(p => p.Revision).OriginalValue = expectedRevision;
-
-    private ProposalVersion NewVersion(int number, Actor actor, string reason, string json) => new()
-    {
-        Number = number,
-        AuthorId = actor.UserId,
-        CreatedAt = clock.GetUtcNow(),
-        Reason = reason,
-        AssumptionsJson = json,
-        AssumptionsHash = AssumptionsDocument.Hash(json),
-    };
 
     private static void Require(Actor actor, Role role, string message)
     {
@@ -351,12 +285,5 @@ public sealed class ProposalService(ReviewWork work, AuditTrail audit, TimeProvi
         Status = p.Status.ToString(),
         p.BudgetCycleId,
         Versions = p.Versions.OrderBy(v => v.Number).Select(v => new { v.Number, v.IsFrozen, v.AssumptionsHash }).ToArray(),
-    };
-
-    private static string Describe(ProposalStatus status) => status switch
-    {
-        ProposalStatus.InReview => "in review",
-        ProposalStatus.ReturnedForChanges => "returned for changes",
-        _ => status.ToString().ToLowerInvariant(),
     };
 }

@@ -1,6 +1,5 @@
 using CapReview.Reviews.Audit;
 using CapReview.Reviews.Comments;
-using CapReview.Reviews.Common;
 using CapReview.Reviews.Cycles;
 using CapReview.Reviews.Decisions;
 using CapReview.Reviews.Marr;
@@ -9,13 +8,13 @@ using CapReview.Reviews.Portfolio;
 using CapReview.Reviews.Proposals;
 using CapReview.Reviews.Records;
 using Microsoft.EntityFrameworkCore;
-using Microsoft.EntityFrameworkCore.ChangeTracking;
 
 namespace CapReview.Reviews.Storage;
 
 /// <summary>
-/// The installation's database. Create one per operation through IDbContextFactory. Saving refuses any change to a
-/// frozen proposal version, an audit event or a MARR policy version: those rows are written once.
+/// The installation's database. Create one per operation through IDbContextFactory. Rows written once (frozen
+/// proposal versions, decisions, sign-offs, comments, MARR policy versions, approval packets, audit events) are guarded
+/// twice: <see cref="WriteOnceRowsInterceptor"/> refuses a save that changes them, database triggers refuse everything else.
 /// </summary>
 public class CapReviewDbContext : DbContext
 {
@@ -58,40 +57,12 @@ public class CapReviewDbContext : DbContext
 
     public DbSet<Preferences.UserPreference> UserPreferences => Set<Preferences.UserPreference>();
 
-    public override int SaveChanges(bool acceptAllChangesOnSuccess)
+    protected override void OnConfiguring(DbContextOptionsBuilder optionsBuilder)
     {
-        RefuseChangesToWrittenOnceRows();
-        return base.SaveChanges(acceptAllChangesOnSuccess);
-    }
-
-    public override Task<int> SaveChangesAsync(bool acceptAllChangesOnSuccess, CancellationToken cancellationToken = default)
-    {
-        RefuseChangesToWrittenOnceRows();
-        return base.SaveChangesAsync(acceptAllChangesOnSuccess, cancellationToken);
-    }
-
-    private void RefuseChangesToWrittenOnceRows()
-    {
-        foreach (EntityEntry entry in ChangeTracker.Entries())
-        {
-            if (entry.State is not (EntityState.Modified or EntityState.Deleted))
-            {
-                continue;
-            }
-            switch (entry.Entity)
-            {
-                case ProposalVersion when entry.OriginalValues.GetValue<bool>(nameof(ProposalVersion.IsFrozen)):
-                    throw new RuleViolationException("A submitted version is frozen: it cannot be changed or deleted. Make a new version instead.");
-                case AuditEvent:
-                    throw new RuleViolationException("The audit trail is append-only.");
-                case MarrPolicyVersion:
-                    throw new RuleViolationException("A MARR policy version cannot be changed or deleted; add a new version.");
-                case Decision or SignOff or ProposalComment:
-                    throw new RuleViolationException("Decisions and sign-offs are written once: record a new decision instead.");
-                case ApprovalPacket:
-                    throw new RuleViolationException("An approval packet is stored once and never changed.");
-            }
-        }
+        ArgumentNullException.ThrowIfNull(optionsBuilder);
+        // Here rather than at each registration, so that every context refuses alike: both providers, the design-time
+        // factories and any context a test builds from bare options.
+        optionsBuilder.AddInterceptors(WriteOnceRowsInterceptor.Instance);
     }
 
     protected override void OnModelCreating(ModelBuilder modelBuilder)
