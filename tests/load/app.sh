@@ -2,7 +2,7 @@
 # loopback with the environment the caller exported; the app and the folder go when the script ends.
 work="$(mktemp -d)"
 trap 'kill "${app:-0}" 2>/dev/null || true; rm -rf "$work"' EXIT
-dotnet publish src/CapReview.Web -c Release -o "$work/app" --nologo -v quiet
+dotnet publish src/CapReview.Web -c Release -r linux-x64 --self-contained false -o "$work/app" --nologo -v quiet
 
 # start_app PORT: runs the published app there and waits until it is ready.
 start_app() {
