@@ -59,20 +59,7 @@ public sealed class PacketService(DecisionRecords records, PortfolioService port
     }
 
     private static ApprovalPacket Packet(PacketKind kind, CycleRecord record, int? proposalId, int? version, string? hash, string fileName, byte[] bytes,
-        PacketCertificate certificate, DateTimeOffset now) => new()
-        {
-            Kind = kind,
-            BudgetCycleId = record.Cycle.Id,
-            ProposalId = proposalId,
-            VersionNumber = version,
-            AssumptionsHash = hash,
-            MarrPolicyVersionId = record.Marr.Id,
-            FileName = fileName,
-            FileSha256 = PacketArchive.Sha256(bytes),
-            Content = bytes,
-            CreatedAt = now,
-            CertificateSubject = certificate.Certificate.Subject,
-            CertificateThumbprint = certificate.Certificate.Thumbprint,
-            DevelopmentCertificate = certificate.Development,
-        };
+        PacketCertificate certificate, DateTimeOffset now) =>
+        ApprovalPacket.Made(new PacketRecord(kind, record.Cycle.Id, proposalId, version, hash, record.Marr.Id), fileName, bytes, now,
+            new SigningCertificate(certificate.Certificate.Subject, certificate.Certificate.Thumbprint, certificate.Development));
 }

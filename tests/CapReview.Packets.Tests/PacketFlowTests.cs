@@ -81,7 +81,7 @@ public sealed class PacketFlowTests(PacketDatabase db) : IClassFixture<PacketDat
             await context.Database.ExecuteSqlRawAsync("DROP TRIGGER approval_packet_written_once_update");
             await context.Database.ExecuteSqlRawAsync("UPDATE approval_packet SET Content = X'255044462D' WHERE Id = {0}", proposalPacket);
             var packet = await context.ApprovalPackets.SingleAsync(p => p.Id == proposalPacket);
-            packet.FileName = "changed.pdf";
+            context.Entry(packet).Property(p => p.FileName).CurrentValue = "changed.pdf";
             Assert.Throws<RuleViolationException>(() => context.SaveChanges());
         }
         await Assert.ThrowsAsync<RuleViolationException>(() => archive.DownloadAsync(Finance, proposalPacket, None));

@@ -32,12 +32,8 @@ internal sealed record WrittenOnceRows(IReadOnlyDictionary<string, WrittenOnceRo
         var decision = await db.Decisions.DecideAsync(Reviewer, draft.Id, DecisionOutcome.Approve, Conditions, submitted.Revision, none);
         var signed = await db.Decisions.SignOffAsync(Reviewer, cycle.Id, none);
         await using var context = db.NewContext();
-        var packet = new ApprovalPacket
-        {
-            Kind = PacketKind.Cycle, BudgetCycleId = cycle.Id, MarrPolicyVersionId = cycle.MarrPolicyVersionId, FileName = "cycle.pdf",
-            FileSha256 = new string('a', 64), Content = [0x25, 0x50, 0x44, 0x46], CreatedAt = DateTimeOffset.UnixEpoch,
-            CertificateSubject = "CN=Test", CertificateThumbprint = new string('b', 40),
-        };
+        var packet = ApprovalPacket.Made(new PacketRecord(PacketKind.Cycle, cycle.Id, null, null, null, cycle.MarrPolicyVersionId), "cycle.pdf",
+            [0x25, 0x50, 0x44, 0x46], DateTimeOffset.UnixEpoch, new SigningCertificate("CN=Test", new string('b', 40), Development: true));
         context.ApprovalPackets.Add(packet);
         await context.SaveChangesAsync();
         int versionId = await context.ProposalVersions.Where(v => v.ProposalId == draft.Id).Select(v => v.Id).SingleAsync();

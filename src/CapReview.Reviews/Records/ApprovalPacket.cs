@@ -13,36 +13,78 @@ public enum PacketKind
 /// </summary>
 public sealed class ApprovalPacket
 {
-    public int Id { get; set; }
+    private ApprovalPacket()
+    {
+    }
 
-    public PacketKind Kind { get; set; }
+    public int Id { get; private set; }
 
-    public int BudgetCycleId { get; set; }
+    public PacketKind Kind { get; private set; }
+
+    public int BudgetCycleId { get; private set; }
 
     /// <summary>The proposal of a proposal packet; null for a cycle packet.</summary>
-    public int? ProposalId { get; set; }
+    public int? ProposalId { get; private set; }
 
-    public int? VersionNumber { get; set; }
+    public int? VersionNumber { get; private set; }
 
-    public string? AssumptionsHash { get; set; }
+    public string? AssumptionsHash { get; private set; }
 
-    public int MarrPolicyVersionId { get; set; }
+    public int MarrPolicyVersionId { get; private set; }
 
-    public required string FileName { get; set; }
+    public string FileName { get; private set; } = "";
 
-    /// <summary>Lower-case hex SHA-256 of <see cref="Content"/>.</summary>
-    public required string FileSha256 { get; set; }
+    /// <summary>Lower-case hex SHA-256 of <see cref="Content"/>, taken when the packet is made.</summary>
+    public string FileSha256 { get; private set; } = "";
 
-    public required byte[] Content { get; set; }
+    public byte[] Content { get; private set; } = [];
 
-    public DateTimeOffset CreatedAt { get; set; }
+    public DateTimeOffset CreatedAt { get; private set; }
 
-    public required string CertificateSubject { get; set; }
+    public string CertificateSubject { get; private set; } = "";
 
-    public required string CertificateThumbprint { get; set; }
+    public string CertificateThumbprint { get; private set; } = "";
 
-    public bool DevelopmentCertificate { get; set; }
+    public bool DevelopmentCertificate { get; private set; }
+
+    /// <summary>
+    /// A packet as made and signed: what it records, its bytes and their SHA-256 (taken here, so a stored hash always
+    /// belongs to the stored bytes), and the certificate it was signed with.
+    /// </summary>
+    public static ApprovalPacket Made(PacketRecord record, string fileName, byte[] content, DateTimeOffset createdAt, SigningCertificate signer)
+    {
+        ArgumentNullException.ThrowIfNull(record);
+        ArgumentNullException.ThrowIfNull(content);
+        ArgumentNullException.ThrowIfNull(signer);
+        ArgumentException.ThrowIfNullOrWhiteSpace(fileName);
+        if (record.Kind == PacketKind.Proposal != record.ProposalId is not null)
+        {
+            throw new ArgumentException("A proposal packet names its proposal; a cycle packet names none.", nameof(record));
+        }
+        return new ApprovalPacket
+        {
+            Kind = record.Kind,
+            BudgetCycleId = record.CycleId,
+            ProposalId = record.ProposalId,
+            VersionNumber = record.VersionNumber,
+            AssumptionsHash = record.AssumptionsHash,
+            MarrPolicyVersionId = record.MarrPolicyVersionId,
+            FileName = fileName,
+            Content = content,
+            FileSha256 = PacketArchive.Sha256(content),
+            CreatedAt = createdAt,
+            CertificateSubject = signer.Subject,
+            CertificateThumbprint = signer.Thumbprint,
+            DevelopmentCertificate = signer.Development,
+        };
+    }
 }
+
+/// <summary>What a packet records: its kind, the cycle, the proposal and version decided (none for a cycle packet), the MARR policy version.</summary>
+public sealed record PacketRecord(PacketKind Kind, int CycleId, int? ProposalId, int? VersionNumber, string? AssumptionsHash, int MarrPolicyVersionId);
+
+/// <summary>The certificate a packet was signed with, as the record keeps it.</summary>
+public sealed record SigningCertificate(string Subject, string Thumbprint, bool Development);
 
 /// <summary>A stored packet without its bytes, for listings.</summary>
 public sealed record PacketSummary(int Id, PacketKind Kind, int BudgetCycleId, int? ProposalId, int? VersionNumber, string FileName, string FileSha256,

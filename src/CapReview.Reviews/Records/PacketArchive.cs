@@ -17,11 +17,8 @@ public sealed class PacketArchive(ReviewWork work, AuditTrail audit)
     /// <summary>Stores the packet unless one of its kind already exists for the cycle and proposal; returns the stored one.</summary>
     public Task<PacketSummary> StoreOnceAsync(Actor actor, ApprovalPacket packet, CancellationToken cancellationToken)
     {
+        // The packet took its hash from its own bytes when it was made (ApprovalPacket.Made).
         ArgumentNullException.ThrowIfNull(packet);
-        if (packet.FileSha256 != Sha256(packet.Content))
-        {
-            throw new ArgumentException("The packet's hash does not match its bytes.", nameof(packet));
-        }
         return work.RunAsync(async db =>
         {
             ApprovalPacket? existing = await Find(db, packet.Kind, packet.BudgetCycleId, packet.ProposalId).FirstOrDefaultAsync(cancellationToken).ConfigureAwait(false);
