@@ -79,8 +79,9 @@ public sealed class ReviewFlowInChromium(BrowserFixture browser) : IClassFixture
         // The deciding sign-off queues the signed packets (one for the proposal, one for the cycle); the page shows them
         // once the packet worker has made them, without a reload.
         await Assertions.Expect(second.GetByTestId("cycle-message")).ToContainTextAsync("decides the cycle; its signed packets are being made");
-        await Assertions.Expect(second.GetByTestId("packets").Locator("tbody tr")).ToHaveCountAsync(2);
-        await Assertions.Expect(second.GetByTestId("packet-job")).ToHaveAttributeAsync("data-status", "done");
+        // The worker renders and signs two PDFs and solves the cycle's portfolio: given time on a busy machine.
+        await Assertions.Expect(second.GetByTestId("packets").Locator("tbody tr")).ToHaveCountAsync(2, new() { Timeout = 30_000 });
+        await Assertions.Expect(second.GetByTestId("packet-job")).ToHaveAttributeAsync("data-status", "done", new() { Timeout = 30_000 });
         string href = (await second.GetByTestId("packets").Locator("a").First.GetAttributeAsync("href"))!;
         var download = await second.APIRequest.GetAsync(browser.App.BaseAddress + href);
         Assert.Equal("application/pdf", download.Headers["content-type"]);
