@@ -22,7 +22,7 @@ public sealed class ProposalService(ReviewWork work, AuditTrail audit, TimeProvi
         CheckDraft(draft);
         return work.RunAsync(async db =>
         {
-            string json = AssumptionsDocument.Serialize(draft.Assumptions);
+            string json = AssumptionsDocument.Serialize(ElementIdentities.Stamp(draft.Assumptions));
             var proposal = new Proposal
             {
                 OwnerId = actor.UserId,
@@ -62,7 +62,7 @@ public sealed class ProposalService(ReviewWork work, AuditTrail audit, TimeProvi
             proposal.Description = draft.Description.Trim();
             proposal.Category = draft.Category;
             proposal.RiskClass = draft.RiskClass;
-            string json = AssumptionsDocument.Serialize(draft.Assumptions);
+            string json = AssumptionsDocument.Serialize(ElementIdentities.Stamp(draft.Assumptions));
             ProposalVersion latest = proposal.Versions.OrderBy(v => v.Number).Last();
             if (!latest.IsFrozen)
             {
@@ -70,7 +70,7 @@ public sealed class ProposalService(ReviewWork work, AuditTrail audit, TimeProvi
                 latest.AssumptionsHash = AssumptionsDocument.Hash(json);
                 latest.Revision++;
             }
-            else if (latest.AssumptionsJson != json)
+            else if (latest.AssumptionsJson != json && Restamped(latest) != json)
             {
                 if (string.IsNullOrWhiteSpace(draft.ChangeReason))
                 {
@@ -218,6 +218,13 @@ public sealed class ProposalService(ReviewWork work, AuditTrail audit, TimeProvi
     /// <summary>Makes the save fail with a conflict when the row is no longer at the revision the user started from.</summary>
     private static void ExpectRevision(CapReviewDbContext db, Proposal proposal, int expectedRevision) =>
         db.Entry(proposal).Property(p => p.Revision).OriginalValue = expectedRevision;
+
+    /// <summary>
+    /// A frozen version as it would be written today: a document stored before identities, stamped. Saving it
+    /// unchanged from the editor (which stamps what it loads) is then no change; the stored text itself is never rewritten.
+    /// </summary>
+    private static string Restamped(ProposalVersion version) =>
+        AssumptionsDocument.Serialize(ElementIdentities.Stamp(AssumptionsDocument.Deserialize(version.AssumptionsJson)));
 
     private ProposalVersion NewVersion(int number, Actor actor, string reason, string json) => new()
     {
