@@ -77,10 +77,10 @@ public static class EvaluationEndpoints
             : Invalid(outcome.Errors);
     }
 
-    internal static IResult Invalid(IReadOnlyList<InputError> errors) =>
+    internal static IResult Invalid(IReadOnlyList<InputError> errors, string title = "The model has invalid input.") =>
         Results.ValidationProblem(
             errors.GroupBy(e => e.Field).ToDictionary(g => g.Key, g => g.Select(e => e.Message).ToArray()),
-            title: "The model has invalid input.");
+            title: title);
 
     private static IResult Problem(string field, string message) =>
         Results.ValidationProblem(

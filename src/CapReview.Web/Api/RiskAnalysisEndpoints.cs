@@ -63,7 +63,7 @@ public static class RiskAnalysisEndpoints
         var prepared = ProposalRisk.Prepare(proposal, body.Risk);
         if (prepared.Value is not { } study)
         {
-            return EvaluationEndpoints.Invalid(prepared.Errors);
+            return EvaluationEndpoints.Invalid(prepared.Errors, "The risk settings have invalid input.");
         }
         var sensitivity = ProposalRisk.Analyse(study, body.Measure ?? RiskMeasure.PresentWorth);
         var simulation = await Task.Run(() => ProposalRisk.Simulate(study, cancellationToken: cancellationToken), cancellationToken).ConfigureAwait(false);
