@@ -47,5 +47,16 @@ public sealed class RiskPanelTests : IDisposable
         panel.WaitForAssertion(() => Assert.Contains("65,098.16", panel.Find("[data-testid=tornado-table]").TextContent));
     }
 
+    [Fact]
+    public void The_simulation_runs_the_trials_just_typed()
+    {
+        var panel = _context.Render<RiskPanel>(p => p.Add(x => x.Draft, Draft()).Add(x => x.Model, Plant));
+        panel.WaitForElement("[data-testid=tornado-table]");
+        panel.Find("#risk-trials").Change("2,000");
+        panel.Find("[data-testid=run-simulation]").Click();
+        panel.WaitForAssertion(() => Assert.Contains("2,000 trials run with seed 2027", panel.Find("[data-testid=risk-message]").TextContent, StringComparison.Ordinal));
+        Assert.NotEmpty(panel.FindAll("[data-testid=simulation-summary]"));
+    }
+
     public void Dispose() => _context.Dispose();
 }
