@@ -256,7 +256,7 @@ internal static class ProposalSections
         var sensitivity = ProposalRisk.Analyse(prepared);
         var (bars, basis) = (sensitivity.Tornado, sensitivity.Basis);
         TableWriter.Draw(flow, [new("Parameter", 2.4), new("Input", 1.8), new("Low", 1.1, true), new("Most likely", 1.1, true), new("High", 1.1, true), new("Distribution", 1.2)],
-            settings.Parameters.Select(p => new TableRow([p.Name, p.Target, Value(p.Low), Value(p.MostLikely), Value(p.High), p.Distribution.ToString()])));
+            settings.Parameters.Select(p => new TableRow([p.Name, RiskInputs.Label(p.Target, prepared.Proposal.Model, prepared.Proposal.Tax), Value(p.Low), Value(p.MostLikely), Value(p.High), p.Distribution.ToString()])));
         flow.Figure(Math.Max(90, 34 + 26 * bars.Count), (g, area) => Charts.TornadoDrawing.Draw(g, area, bars, basis, f),
             $"Tornado: present worth with each parameter at its low (red-brown) and high (green) value, the others at most likely ({f.Money(basis)} {f.CurrencyCode}).");
         var result = ProposalRisk.Simulate(prepared).Detail;

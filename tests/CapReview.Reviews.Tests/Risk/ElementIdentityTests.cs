@@ -99,4 +99,14 @@ public sealed class ElementIdentityTests
         var outcome = ProposalRisk.Prepare(new ProposalCase(stamped.Model), stamped.Risk);
         Assert.Equal("risk.parameters[0].target", Assert.Single(outcome.Errors).Field);
     }
+
+    [Fact]
+    public void An_input_is_labelled_by_its_element_wherever_it_stands()
+    {
+        Assert.Equal("2. Saving: amount", RiskInputs.Label("elements[#saving].amount", Model(Plant, Saving), null));
+        Assert.Equal("1. Saving: amount", RiskInputs.Label("elements[#saving].amount", Model(Saving, Plant), null));
+        Assert.Equal("2. Saving: amount", RiskInputs.Label("elements[1].amount", Model(Plant with { Id = null }, Saving with { Id = null }), null));
+        Assert.Equal("MARR", RiskInputs.Label("rate", Model(Plant), null));
+        Assert.Equal("elements[#gone].amount", RiskInputs.Label("elements[#gone].amount", Model(Plant), null));
+    }
 }

@@ -1,6 +1,6 @@
 using CapReview.Engine.Specifications;
 
-namespace CapReview.Web.ProposalForms;
+namespace CapReview.Reviews.Risk;
 
 /// <summary>
 /// The inputs of a model a lead may name as uncertain, with their labels. Elements are named by their identity, so a
@@ -39,5 +39,13 @@ public static class RiskInputs
         {
             yield return ("tax.incomeTaxRate", "Income-tax rate");
         }
+    }
+
+    /// <summary>The label of <paramref name="target"/> in the model (by identity or position), or the target itself when it names no input of it.</summary>
+    public static string Label(string target, ModelSpec? model, TaxSpec? tax)
+    {
+        ArgumentNullException.ThrowIfNull(target);
+        string? resolved = ElementIdentity.Resolve(target, model?.Elements);
+        return Of(model, tax).Where(i => ElementIdentity.Resolve(i.Target, model?.Elements) == resolved).Select(i => i.Label).FirstOrDefault() ?? target;
     }
 }
