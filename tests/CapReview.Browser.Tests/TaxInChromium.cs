@@ -39,8 +39,9 @@ public sealed class TaxInChromium(BrowserFixture browser) : IClassFixture<Browse
         await Assertions.Expect(page.Locator("#macrs-class")).ToHaveValueAsync("FiveYear");
 
         // The risk panel: the diesel saving is uncertain; the tornado, the simulation, and the parameter kept with the draft.
+        // Inputs are named by the element's identity: the demo's elements were stored with e1, e2, e3.
         await page.GetByTestId("add-parameter").ClickAsync();
-        await page.Locator("#risk-target-0").SelectOptionAsync("elements[2].amount");
+        await page.Locator("#risk-target-0").SelectOptionAsync("elements[#e3].amount");
         await Assertions.Expect(page.GetByTestId("tornado-table").Locator("tbody tr")).ToHaveCountAsync(1);
         await Assertions.Expect(page.GetByTestId("scenarios-table")).ToContainTextAsync("Pessimistic");
         await page.Locator("#risk-trials").FillAsync("20000");
@@ -57,6 +58,6 @@ public sealed class TaxInChromium(BrowserFixture browser) : IClassFixture<Browse
         await Assertions.Expect(page.GetByTestId("editor-message")).ToHaveTextAsync("Saved.");
         await page.ReloadAsync();
         await page.Locator("[data-testid=interactive]").WaitForAsync(new() { State = WaitForSelectorState.Attached });
-        await Assertions.Expect(page.Locator("#risk-target-0")).ToHaveValueAsync("elements[2].amount");
+        await Assertions.Expect(page.Locator("#risk-target-0")).ToHaveValueAsync("elements[#e3].amount");
     }
 }

@@ -118,11 +118,12 @@ public sealed class ProposalVersionTests(ReviewsDatabase db) : IClassFixture<Rev
     public async Task The_assumptions_hash_is_the_SHA256_of_the_canonical_json()
     {
         var draft = await db.Proposals.CreateDraftAsync(Lead, Draft(), None);
-        string json = AssumptionsDocument.Serialize(Draft().Assumptions);
+        // New versions are written with element identities (stamped e1, e2, … when the draft names none).
+        string json = AssumptionsDocument.Serialize(ElementIdentities.Stamp(Draft().Assumptions));
         // Outside reference: System.Security.Cryptography.SHA256 over the UTF-8 bytes, computed here independently.
         string expected = Convert.ToHexStringLower(System.Security.Cryptography.SHA256.HashData(System.Text.Encoding.UTF8.GetBytes(json)));
         Assert.Equal(expected, draft.Latest.AssumptionsHash);
-        Assert.StartsWith("{\"model\":{\"periodsPerYear\":1,\"horizon\":10,\"elements\":[{\"type\":\"single\"", json);
+        Assert.StartsWith("{\"model\":{\"periodsPerYear\":1,\"horizon\":10,\"elements\":[{\"id\":\"e1\",\"type\":\"single\"", json);
     }
 
     [Fact]

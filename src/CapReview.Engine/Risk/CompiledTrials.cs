@@ -44,7 +44,7 @@ internal sealed class CompiledTrials
                 targets[k] = (-1, "rate");
                 continue;
             }
-            if (ProposalCase.ElementTarget(parameters[k].Target) is not { } element)
+            if (proposal.Resolve(parameters[k].Target) is not { } resolved || ProposalCase.ElementTarget(resolved) is not { } element)
             {
                 return null;
             }

@@ -39,7 +39,7 @@ public sealed partial record ProposalCase(ModelSpec Model, TaxSpec? Tax = null)
         {
             return this with { Tax = (Tax ?? throw new ArgumentException("The proposal has no tax settings.", nameof(target))) with { IncomeTaxRate = value } };
         }
-        if (ElementTarget(target) is not var (index, field))
+        if (ElementTarget(Resolve(target) ?? throw new ArgumentException($"No element of the model has the identity in “{target}”.", nameof(target))) is not var (index, field))
         {
             throw new ArgumentException($"“{target}” is not an input that can be varied.", nameof(target));
         }
@@ -67,14 +67,18 @@ public sealed partial record ProposalCase(ModelSpec Model, TaxSpec? Tax = null)
     {
         "rate" or "horizon" or "inflation.rate" => true,
         "tax.incomeTaxRate" => Tax is not null,
-        _ => ElementTarget(target) is var (index, _) && index < (Model.Elements?.Count ?? 0) && Model.Elements![index] is not null,
+        _ => Resolve(target) is { } resolved && ElementTarget(resolved) is var (index, _) && index < (Model.Elements?.Count ?? 0) && Model.Elements![index] is not null,
     };
 
     /// <summary>The value now at <paramref name="target"/>, or null when it is not set.</summary>
     public double? ValueAt(string target)
     {
         ArgumentNullException.ThrowIfNull(target);
-        if (ElementTarget(target) is var (index, field))
+        if (Resolve(target) is not { } resolved)
+        {
+            return null;
+        }
+        if (ElementTarget(resolved) is var (index, field))
         {
             ElementSpec? e = index < (Model.Elements?.Count ?? 0) ? Model.Elements![index] : null;
             return field switch
@@ -97,6 +101,12 @@ public sealed partial record ProposalCase(ModelSpec Model, TaxSpec? Tax = null)
             _ => null,
         };
     }
+
+    /// <summary>
+    /// The positional form of a target that names an element by its identity (other targets unchanged), or null when
+    /// no element has that identity.
+    /// </summary>
+    public string? Resolve(string target) => ElementIdentity.Resolve(target, Model.Elements);
 
     /// <summary>The case's evaluation: after tax when it has tax settings.</summary>
     public Outcome<Evaluation.Evaluation> Evaluate()

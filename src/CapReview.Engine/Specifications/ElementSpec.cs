@@ -8,6 +8,13 @@ namespace CapReview.Engine.Specifications;
 /// </summary>
 public sealed record ElementSpec
 {
+    /// <summary>
+    /// The element's stable identity, which risk parameters name (<c>elements[#id].amount</c>) so that reordering,
+    /// inserting or deleting elements cannot point a parameter at another element; null in documents stored before
+    /// identities (their parameters name positions).
+    /// </summary>
+    public string? Id { get; init; }
+
     public ElementKind? Type { get; init; }
 
     public string? Label { get; init; }

@@ -74,6 +74,12 @@ public static class RiskSpecReader
                 errors.Add(new($"{path}.name", "Name the parameter."));
                 continue;
             }
+            if (p.Target is not null && ElementIdentity.Parse(p.Target) is var (id, _) && proposal.Resolve(p.Target) is null)
+            {
+                // Never retarget: the element it varied was deleted, so the parameter must be pointed again.
+                errors.Add(new($"{path}.target", $"The element this parameter varies (id “{id}”) is no longer in the model: choose its input again."));
+                continue;
+            }
             if (p.Target is null || !proposal.CanVary(p.Target))
             {
                 errors.Add(new($"{path}.target", "Choose an input of the model to vary."));

@@ -41,6 +41,7 @@ public static class SpecificationReader
                 }
             }
         }
+        ElementIdentity.Check(spec.Elements, errors);
         bool elementsRead = spec.Elements is not null && elements.Count == spec.Elements.Count;
         Outcome<CashFlowModel>? model = spec.Horizon is int horizon && elementsRead
             ? CashFlowModel.Create(horizon, periodsPerYear, elements)

@@ -2,12 +2,14 @@ using CapReview.Engine.CashFlows;
 using CapReview.Engine.Comparison;
 using CapReview.Engine.Evaluation;
 using CapReview.Engine.Measures;
+using CapReview.Engine.Validation;
 using CapReview.Packets.Charts;
 using CapReview.Packets.Layout;
 using CapReview.Reviews.Common;
 using CapReview.Reviews.Decisions;
 using CapReview.Reviews.Marr;
 using CapReview.Reviews.Proposals;
+using CapReview.Reviews.Risk;
 using PdfSharp.Pdf;
 
 namespace CapReview.Packets.Content;
@@ -69,11 +71,10 @@ internal static class ProposalSections
             AfterTax(flow, AfterTaxEvaluator.Evaluate(ProposalTerms.Model(version.Assumptions, data.Marr, data.Proposal.RiskClass), tax), f);
         }
 
-        if (version.Assumptions.Risk is { } risk)
+        if (ProposalRisk.Prepare(version.Assumptions, data.Marr, data.Proposal.RiskClass, afterTax: true) is { } study)
         {
             flow.Bookmark("Risk", parent);
-            var proposal = new Engine.Risk.ProposalCase(ProposalTerms.Model(version.Assumptions, data.Marr, data.Proposal.RiskClass), ProposalTerms.Tax(version.Assumptions, data.Marr));
-            Risk(flow, proposal, risk, f);
+            Risk(flow, study, f);
         }
 
         flow.Bookmark("Version history", parent);
@@ -243,22 +244,22 @@ internal static class ProposalSections
         flow.Text($"Amounts in {f.CurrencyCode}. A negative tax is a saving against the organisation's other income.", PacketStyle.Small, PacketStyle.SoftBrush);
     }
 
-    private static void Risk(PageFlow flow, Engine.Risk.ProposalCase proposal, Engine.Specifications.RiskSpec spec, PacketFormat f)
+    private static void Risk(PageFlow flow, Outcome<RiskStudy> study, PacketFormat f)
     {
         flow.Heading("Sensitivity and risk", PacketStyle.Heading1);
-        var read = Engine.Specifications.RiskSpecReader.Read(spec, proposal);
-        if (read.Value is not { Parameters.Count: > 0 } settings)
+        if (study.Value is not { } prepared)
         {
-            flow.Text("The risk settings of this version are not complete: " + string.Join("; ", read.Errors.Select(e => $"{e.Field}: {e.Message}")), PacketStyle.Body);
+            flow.Text("The risk settings of this version are not complete: " + string.Join("; ", study.Errors.Select(e => $"{e.Field}: {e.Message}")), PacketStyle.Body);
             return;
         }
-        var bars = Engine.Risk.Sensitivity.Tornado(proposal, settings.Parameters, Engine.Risk.RiskMeasure.PresentWorth);
-        double basis = Engine.Risk.Sensitivity.MostLikely(proposal, settings.Parameters).Measure(Engine.Risk.RiskMeasure.PresentWorth);
+        var settings = prepared.Settings;
+        var sensitivity = ProposalRisk.Analyse(prepared);
+        var (bars, basis) = (sensitivity.Tornado, sensitivity.Basis);
         TableWriter.Draw(flow, [new("Parameter", 2.4), new("Input", 1.8), new("Low", 1.1, true), new("Most likely", 1.1, true), new("High", 1.1, true), new("Distribution", 1.2)],
-            settings.Parameters.Select(p => new TableRow([p.Name, p.Target, Value(p.Low), Value(p.MostLikely), Value(p.High), p.Distribution.ToString()])));
+            settings.Parameters.Select(p => new TableRow([p.Name, RiskInputs.Label(p.Target, prepared.Proposal.Model, prepared.Proposal.Tax), Value(p.Low), Value(p.MostLikely), Value(p.High), p.Distribution.ToString()])));
         flow.Figure(Math.Max(90, 34 + 26 * bars.Count), (g, area) => Charts.TornadoDrawing.Draw(g, area, bars, basis, f),
             $"Tornado: present worth with each parameter at its low (red-brown) and high (green) value, the others at most likely ({f.Money(basis)} {f.CurrencyCode}).");
-        var result = Engine.Risk.MonteCarlo.Run(proposal, settings.Parameters, settings.Trials, settings.Seed, settings.Correlations);
+        var result = ProposalRisk.Simulate(prepared).Detail;
         // Amounts to whole units; rates and other small values to four decimals.
         string Value(double v) => Math.Abs(v) >= 100 ? f.Number(v, 0) : f.Number(v, 4);
         flow.Figure(190, (g, area) => Charts.DistributionDrawing.Draw(g, area, result, f),

@@ -1,7 +1,5 @@
 using CapReview.Engine.Comparison;
-using CapReview.Engine.Risk;
-using CapReview.Engine.Specifications;
-using CapReview.Reviews.Proposals;
+using CapReview.Reviews.Risk;
 
 namespace CapReview.Reviews.Portfolio;
 
@@ -33,16 +31,9 @@ public static class PortfolioRisk
         var samples = new Dictionary<string, (double[] Pw, double[] Aw)>();
         foreach (RankingRow row in rows)
         {
-            if (row.Version.Assumptions.Risk is not { } risk)
+            if (ProposalRisk.Prepare(row.Version.Assumptions, ranking.Marr, row.Proposal.RiskClass, afterTax: false) is { Value: { } study })
             {
-                continue;
-            }
-            var proposal = new ProposalCase(ProposalTerms.Model(row.Version.Assumptions, ranking.Marr, row.Proposal.RiskClass));
-            var read = RiskSpecReader.Read(risk, proposal);
-            if (read.Value is { Parameters.Count: > 0 } settings)
-            {
-                var (pw, aw, _) = MonteCarlo.Simulate(proposal, settings.Parameters, trials, settings.Seed, settings.Correlations, cancellationToken: cancellationToken);
-                samples[row.Proposal.Reference] = (pw, aw);
+                samples[row.Proposal.Reference] = ProposalRisk.Draw(study, trials, cancellationToken);
             }
         }
         string baseTop = rows.OrderByDescending(r => r.Ranked.AnnualWorth).Select(r => r.Proposal.Reference).FirstOrDefault() ?? "";

@@ -59,7 +59,7 @@ public sealed class Proposal
         }
         var proposal = new Proposal { OwnerId = lead.UserId };
         proposal.TakeDetails(draft);
-        proposal._versions.Add(ProposalVersion.Draft(1, lead.UserId, at, "First draft", AssumptionsDocument.Serialize(draft.Assumptions)));
+        proposal._versions.Add(ProposalVersion.Draft(1, lead.UserId, at, "First draft", Stamped(draft.Assumptions)));
         return proposal;
     }
 
@@ -102,13 +102,13 @@ public sealed class Proposal
         ArgumentNullException.ThrowIfNull(lead);
         ArgumentNullException.ThrowIfNull(draft);
         RequireEditableBy(lead);
-        string json = AssumptionsDocument.Serialize(draft.Assumptions);
+        string json = Stamped(draft.Assumptions);
         ProposalVersion latest = Latest;
         if (!latest.IsFrozen)
         {
             latest.EditAssumptions(json);
         }
-        else if (latest.AssumptionsJson != json)
+        else if (latest.AssumptionsJson != json && Stamped(AssumptionsDocument.Deserialize(latest.AssumptionsJson)) != json)
         {
             AddRevision(lead, draft.ChangeReason, json, at);
         }
@@ -124,9 +124,16 @@ public sealed class Proposal
         ArgumentNullException.ThrowIfNull(lead);
         ArgumentNullException.ThrowIfNull(assumptions);
         RequireEditableBy(lead);
-        AddRevision(lead, reason, AssumptionsDocument.Serialize(assumptions), at);
+        AddRevision(lead, reason, Stamped(assumptions), at);
         Revision++;
     }
+
+    /// <summary>
+    /// Assumptions as written today: every element with its identity, risk targets by identity (<see cref="ElementIdentities"/>).
+    /// A frozen version stored before identities is compared in this form too, so saving it unchanged from the editor
+    /// (which stamps what it loads) is no change; its stored text itself is never rewritten.
+    /// </summary>
+    private static string Stamped(ProposalAssumptions assumptions) => AssumptionsDocument.Serialize(ElementIdentities.Stamp(assumptions));
 
     private void AddRevision(Actor lead, string? reason, string assumptionsJson, DateTimeOffset at)
     {

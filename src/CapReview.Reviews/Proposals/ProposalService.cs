@@ -88,7 +88,7 @@ public sealed class ProposalService(ReviewWork work, AuditTrail audit, TimeProvi
         {
             throw new RuleViolationException("reason: the reason is longer than 1,000 characters.");
         }
-        if (AssumptionsDocument.Serialize(assumptions) == AssumptionsDocument.Serialize(current.Latest.Assumptions))
+        if (AssumptionsDocument.Serialize(ElementIdentities.Stamp(draft.Assumptions)) == AssumptionsDocument.Serialize(ElementIdentities.Stamp(current.Latest.Assumptions)))
         {
             throw new RuleViolationException($"assumptions: these are the assumptions of version {current.Latest.Number} already; change something to make a new version.");
         }

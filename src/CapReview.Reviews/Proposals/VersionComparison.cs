@@ -74,7 +74,8 @@ public static class VersionComparison
     private static Dictionary<string, string> Leaves(ProposalAssumptions assumptions)
     {
         var leaves = new Dictionary<string, string>(StringComparer.Ordinal);
-        Walk(JsonNode.Parse(AssumptionsDocument.Serialize(assumptions)), "", leaves);
+        // Both sides as written today, so a version stored before element identities does not show every id as a change.
+        Walk(JsonNode.Parse(AssumptionsDocument.Serialize(ElementIdentities.Stamp(assumptions))), "", leaves);
         return leaves;
     }
 

@@ -16,7 +16,7 @@ public static class EvaluationEndpoints
         routes.MapPost("/api/v1/evaluations", EvaluateAsync)
             .WithName("CreateEvaluation")
             .WithSummary("Evaluate a cash-flow model at a MARR")
-            .WithDescription("Returns every measure of worth. Stores nothing. Invalid input returns RFC 9457 problem details naming each bad field.")
+            .WithDescription("Returns every measure of worth; with a tax block, the after-tax flows, depreciation and measures beside them. Stores nothing. Invalid input returns RFC 9457 problem details naming each bad field.")
             .Accepts<ModelSpec>("application/json")
             .Produces<EvaluationResponse>()
             .ProducesValidationProblem()
@@ -36,10 +36,18 @@ public static class EvaluationEndpoints
         {
             return Problem("body", "Send the model as application/json.");
         }
+        byte[]? body = await JsonBody.ReadAsync(request, MaxRequestBytes, cancellationToken).ConfigureAwait(false);
+        if (body is null)
+        {
+            return Problem("body", $"The request is larger than {MaxRequestBytes:N0} bytes.");
+        }
         ModelSpec? spec;
+        TaxSpec? tax;
         try
         {
-            spec = await JsonSerializer.DeserializeAsync<ModelSpec>(request.Body, ApiJson.Options, cancellationToken).ConfigureAwait(false);
+            // The model's fields and the optional tax block sit side by side in one object.
+            spec = JsonSerializer.Deserialize<ModelSpec>(body, ApiJson.Options);
+            tax = spec is null ? null : JsonSerializer.Deserialize<TaxBlock>(body, ApiJson.Options)?.Tax;
         }
         catch (JsonException ex)
         {
@@ -50,16 +58,29 @@ public static class EvaluationEndpoints
             return Problem("body", "Send a model object.");
         }
         long started = System.Diagnostics.Stopwatch.GetTimestamp();
-        Outcome<Evaluation> outcome = Evaluator.Evaluate(spec);
+        IResult result = tax is null ? BeforeTax(spec) : AfterTax(spec, tax);
         metrics.Evaluated(System.Diagnostics.Stopwatch.GetElapsedTime(started));
-        if (!outcome.IsValid)
-        {
-            return Results.ValidationProblem(
-                outcome.Errors.GroupBy(e => e.Field).ToDictionary(g => g.Key, g => g.Select(e => e.Message).ToArray()),
-                title: "The model has invalid input.");
-        }
-        return Results.Ok(EvaluationResponse.From(outcome.Value!));
+        return result;
     }
+
+    private static IResult BeforeTax(ModelSpec spec)
+    {
+        Outcome<Evaluation> outcome = Evaluator.Evaluate(spec);
+        return outcome.IsValid ? Results.Ok(EvaluationResponse.From(outcome.Value!)) : Invalid(outcome.Errors);
+    }
+
+    private static IResult AfterTax(ModelSpec spec, TaxSpec tax)
+    {
+        Outcome<AfterTaxEvaluation> outcome = AfterTaxEvaluator.Evaluate(spec, tax);
+        return outcome.IsValid
+            ? Results.Ok(EvaluationResponse.From(outcome.Value!.BeforeTax) with { AfterTax = AfterTaxResponse.From(outcome.Value) })
+            : Invalid(outcome.Errors);
+    }
+
+    internal static IResult Invalid(IReadOnlyList<InputError> errors, string title = "The model has invalid input.") =>
+        Results.ValidationProblem(
+            errors.GroupBy(e => e.Field).ToDictionary(g => g.Key, g => g.Select(e => e.Message).ToArray()),
+            title: title);
 
     private static IResult Problem(string field, string message) =>
         Results.ValidationProblem(

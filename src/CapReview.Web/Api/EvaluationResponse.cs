@@ -17,6 +17,10 @@ public sealed record EvaluationResponse(
     BenefitCostResponse BenefitCostRatio,
     IReadOnlyList<double> NetFlows)
 {
+    /// <summary>The after-tax figures when the request carried a <c>tax</c> block; absent otherwise.</summary>
+    [System.Text.Json.Serialization.JsonIgnore(Condition = System.Text.Json.Serialization.JsonIgnoreCondition.WhenWritingNull)]
+    public AfterTaxResponse? AfterTax { get; init; }
+
     public static EvaluationResponse From(Evaluation evaluation)
     {
         ArgumentNullException.ThrowIfNull(evaluation);

@@ -162,6 +162,7 @@ public static partial class CapReviewHosting
         app.MapStaticAssets();
         app.MapOpenApi("/openapi/{documentName}.json").RequireAuthorization(IdentityRegistration.Api);
         app.MapEvaluationEndpoints();
+        app.MapRiskAnalysisEndpoints();
         app.MapHealthEndpoints();
         app.MapCycleEndpoints();
         app.MapProposalEndpoints();

@@ -11,6 +11,9 @@ public sealed class ElementDraft
 {
     public Guid Key { get; } = Guid.NewGuid();
 
+    /// <summary>The element's stable identity, which risk parameters name; kept from the stored element, new for a new row.</summary>
+    public string Id { get; init; } = Reviews.Proposals.ElementIdentities.NewId();
+
     public ElementKind Type { get; set; } = ElementKind.Uniform;
 
     public string Label { get; set; } = "";
@@ -45,6 +48,7 @@ public sealed class ElementDraft
         string Whole(int? value) => value?.ToString(culture) ?? "";
         return new ElementDraft
         {
+            Id = e.Id ?? Reviews.Proposals.ElementIdentities.NewId(),
             Type = e.Type ?? ElementKind.Single,
             Label = e.Label ?? "",
             Category = e.Category ?? CashFlowCategory.Operating,

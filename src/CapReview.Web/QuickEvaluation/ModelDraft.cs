@@ -78,6 +78,7 @@ public sealed class ModelDraft
             string path = $"elements[{e}]";
             elements.Add(new ElementSpec
             {
+                Id = row.Id,
                 Type = row.Type,
                 Label = row.Label,
                 Category = row.Category,

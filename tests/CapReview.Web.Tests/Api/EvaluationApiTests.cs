@@ -188,7 +188,7 @@ public sealed class EvaluationApiTests(ApiFactory factory) : IClassFixture<ApiFa
             .Select(o => o.Value.TryGetProperty("operationId", out var op) ? op.GetString() : o.Name + "?").Order(StringComparer.Ordinal).ToList();
         Assert.Equal(
         [
-            "AddComment", "AddContingency", "AddMarrPolicy", "CreateCycle", "CreateEvaluation", "CreateProposal", "DownloadPacket",
+            "AddComment", "AddContingency", "AddMarrPolicy", "CreateCycle", "CreateEvaluation", "CreateProposal", "CreateRiskAnalysis", "DownloadPacket",
             "EditDraftVersion", "ExportCycle", "GetCycle", "GetCycleRanking", "GetPacketJob", "GetPortfolioRules", "GetProposal",
             "GetProposalVersion", "ImportCycle", "ListComments", "ListCyclePackets", "ListCycles", "ListDecisions", "ListMarrPolicies",
             "ListProposals", "ListSignOffs", "MoveCycle", "RecordDecision", "RemoveContingency", "RemoveExclusiveGroup", "RequestPackets",
