@@ -6,6 +6,7 @@ using CapReview.Reviews.Common;
 using CapReview.Reviews.Cycles;
 using CapReview.Reviews.Organisation;
 using CapReview.Reviews.Portfolio;
+using CapReview.Reviews.Proposals;
 using CapReview.Reviews.Records;
 
 namespace CapReview.Packets;
@@ -35,13 +36,16 @@ public sealed class PacketService(DecisionRecords records, PortfolioService port
         PacketCertificate certificate = certificates.Get(profile.Name);
         DateTimeOffset now = clock.GetUtcNow();
 
+        // The domain computes every figure once; each packet lays out the ones it needs.
+        var figures = record.Decided.ToDictionary(d => d.Proposal.Id, d => VersionFigures.Of(d.Proposal, d.Proposal.Version(d.Decision.VersionNumber), record.Marr,
+            record.Cycle.StudyPeriodYears, simulate: true, cancellationToken));
         foreach (var (proposal, decision) in record.Decided)
         {
             if (await archive.ExistsAsync(PacketKind.Proposal, cycleId, proposal.Id, cancellationToken).ConfigureAwait(false))
             {
                 continue;
             }
-            var data = new ProposalPacketData(who, record.Cycle, record.Marr, proposal, decision, record.SignOffs, now, certificate.Notice, options.Paper);
+            var data = new ProposalPacketData(who, record.Cycle, record.Marr, proposal, decision, figures[proposal.Id], record.SignOffs, now, certificate.Notice, options.Paper);
             byte[] bytes = PacketRenderer.Proposal(data, certificate);
             await archive.StoreOnceAsync(actor, Packet(PacketKind.Proposal, record, proposal.Id, decision.VersionNumber, decision.AssumptionsHash,
                 $"{proposal.Reference}-approval-packet.pdf", bytes, certificate, now), cancellationToken).ConfigureAwait(false);
@@ -50,7 +54,7 @@ public sealed class PacketService(DecisionRecords records, PortfolioService port
         {
             PortfolioResult? selection = record.Decided.Count == 0 ? null
                 : await portfolio.SelectAsync(actor, cycleId, new PortfolioQuery(), cancellationToken).ConfigureAwait(false);
-            var data = new CyclePacketData(who, record.Cycle, record.Marr, record.SignOffs, record.Decided, selection, now, certificate.Notice, options.Paper);
+            var data = new CyclePacketData(who, record.Cycle, record.Marr, record.SignOffs, record.Decided, figures, selection, now, certificate.Notice, options.Paper);
             byte[] bytes = PacketRenderer.Cycle(data, certificate);
             string name = string.Concat(record.Cycle.Name.Select(c => char.IsLetterOrDigit(c) ? char.ToLowerInvariant(c) : '-')) + "-cycle-packet.pdf";
             await archive.StoreOnceAsync(actor, Packet(PacketKind.Cycle, record, null, null, null, name, bytes, certificate, now), cancellationToken).ConfigureAwait(false);

@@ -66,15 +66,19 @@ internal static class BenchmarkPackets
     public static ProposalPacketData Proposal(int id, Random random)
     {
         var (proposal, decision) = Decided(id, random);
-        return new ProposalPacketData(Organisation, BenchCycle, Policy, proposal, decision, Signed, Made, new SigningNotice("", "", true));
+        return new ProposalPacketData(Organisation, BenchCycle, Policy, proposal, decision, Figures(proposal, decision), Signed, Made, new SigningNotice("", "", true));
     }
 
     public static CyclePacketData Cycle(int proposals)
     {
         var random = new Random(2027);
-        return new CyclePacketData(Organisation, BenchCycle, Policy, Signed, [.. Enumerable.Range(1, proposals).Select(k => Decided(k, random))], null, Made,
+        var decided = Enumerable.Range(1, proposals).Select(k => Decided(k, random)).ToList();
+        return new CyclePacketData(Organisation, BenchCycle, Policy, Signed, decided, decided.ToDictionary(d => d.Item1.Id, d => Figures(d.Item1, d.Item2)), null, Made,
             new SigningNotice("", "", true));
     }
+
+    private static VersionFigures Figures(ProposalView proposal, Decision decision) =>
+        VersionFigures.Of(proposal, proposal.Version(decision.VersionNumber), Policy, BenchCycle.StudyPeriodYears, simulate: true);
 
     private static (ProposalView, Decision) Decided(int id, Random random)
     {

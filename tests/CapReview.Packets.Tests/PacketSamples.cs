@@ -69,13 +69,19 @@ internal static class PacketSamples
     public static ProposalPacketData ProposalData(PaperSize paper = PaperSize.A4, TaxSpec? tax = null, RiskSpec? risk = null)
     {
         var (proposal, decision) = Decided(2, tax: tax, risk: risk);
-        return new ProposalPacketData(Organisation, Cycle, Marr, proposal, decision, SignOffs, Now, new SigningNotice("", "", true), paper);
+        return new ProposalPacketData(Organisation, Cycle, Marr, proposal, decision, Figures(proposal, decision), SignOffs, Now, new SigningNotice("", "", true), paper);
     }
 
-    public static CyclePacketData CycleData(int proposals) =>
-        new(Organisation, Cycle, Marr, SignOffs,
-            [.. Enumerable.Range(1, proposals).Select(k => Decided(k, k % 4 == 0 ? DecisionOutcome.Reject : DecisionOutcome.Approve, 100_000 + 1_500 * k))],
+    public static CyclePacketData CycleData(int proposals)
+    {
+        var decided = Enumerable.Range(1, proposals).Select(k => Decided(k, k % 4 == 0 ? DecisionOutcome.Reject : DecisionOutcome.Approve, 100_000 + 1_500 * k)).ToList();
+        return new(Organisation, Cycle, Marr, SignOffs, decided, decided.ToDictionary(d => d.Proposal.Id, d => Figures(d.Proposal, d.Decision)),
             null, Now, new SigningNotice("", "", true));
+    }
+
+    /// <summary>The figures the packet service gathers from the domain for a decided version.</summary>
+    public static VersionFigures Figures(ProposalView proposal, Decision decision) =>
+        VersionFigures.Of(proposal, proposal.Version(decision.VersionNumber), Marr, Cycle.StudyPeriodYears, simulate: true);
 
     /// <summary>A development certificate of the test run's own, in a temporary folder.</summary>
     public static PacketCertificate Certificate { get; } = PacketCertificate.Load(

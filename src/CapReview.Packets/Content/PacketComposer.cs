@@ -86,7 +86,7 @@ internal static class PacketComposer
             flow.Text(proposal.Reference + " · " + ProposalSections.OutcomeText(decision.Outcome), PacketStyle.Heading2, PacketStyle.SoftBrush);
             flow.Text(proposal.Title, PacketStyle.Heading1, PacketStyle.BrandBrush);
             flow.Rule();
-            var one = new ProposalPacketData(data.Organisation, data.Cycle, data.Marr, proposal, decision, data.SignOffs, data.GeneratedAt, data.Signing, data.Paper);
+            var one = new ProposalPacketData(data.Organisation, data.Cycle, data.Marr, proposal, decision, data.Figures[proposal.Id], data.SignOffs, data.GeneratedAt, data.Signing, data.Paper);
             ProposalSections.Write(flow, one, f, node);
         }
         flow.Finish($"{data.Organisation.Name} · {data.Cycle.Name} cycle packet · made {f.Time(data.GeneratedAt)}");

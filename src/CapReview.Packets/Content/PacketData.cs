@@ -17,13 +17,17 @@ public sealed record PacketOrganisation(string Name, string CurrencyCode, Cultur
 /// <param name="Development">A development certificate made by this installation, not the organisation's.</param>
 public sealed record SigningNotice(string Subject, string Thumbprint, bool Development);
 
-/// <summary>Everything one proposal's packet shows: the decision, the version it rests on, the cycle and its MARR.</summary>
+/// <summary>
+/// Everything one proposal's packet shows: the decision, the version it rests on, the cycle and its MARR, and the
+/// version's figures as the domain computed them (<see cref="VersionFigures"/>): the packet lays them out.
+/// </summary>
 public sealed record ProposalPacketData(
     PacketOrganisation Organisation,
     BudgetCycle Cycle,
     MarrPolicyVersion Marr,
     ProposalView Proposal,
     Decision Decision,
+    VersionFigures Figures,
     IReadOnlyList<SignOff> SignOffs,
     DateTimeOffset GeneratedAt,
     SigningNotice Signing,
@@ -33,13 +37,14 @@ public sealed record ProposalPacketData(
     public VersionView Version => Proposal.Versions.Single(v => v.Number == Decision.VersionNumber);
 }
 
-/// <summary>A decided cycle's packet: its ranking and portfolio, then each decided proposal.</summary>
+/// <summary>A decided cycle's packet: its ranking and portfolio, then each decided proposal with its figures (by proposal id).</summary>
 public sealed record CyclePacketData(
     PacketOrganisation Organisation,
     BudgetCycle Cycle,
     MarrPolicyVersion Marr,
     IReadOnlyList<SignOff> SignOffs,
     IReadOnlyList<(ProposalView Proposal, Decision Decision)> Decided,
+    IReadOnlyDictionary<int, VersionFigures> Figures,
     PortfolioResult? Portfolio,
     DateTimeOffset GeneratedAt,
     SigningNotice Signing,

@@ -23,7 +23,8 @@ internal static class ProposalSections
     public static void Write(PageFlow flow, ProposalPacketData data, PacketFormat f, PdfOutline parent)
     {
         VersionView version = data.Version;
-        Evaluation? evaluation = VersionComparison.Evaluate(version.Assumptions, data.Marr, data.Proposal.RiskClass);
+        VersionFigures figures = data.Figures;
+        Evaluation? evaluation = figures.Evaluation;
 
         flow.Bookmark("Decision and sign-off", parent);
         flow.Heading("Decision and sign-off", PacketStyle.Heading1);
@@ -49,36 +50,35 @@ internal static class ProposalSections
             flow.Text("The model of this version is not complete, so no measure can be stated.", PacketStyle.Body);
             return;
         }
-        Summary(flow, data, evaluation, version.Assumptions.MarrOverride?.Reason, f);
+        Summary(flow, data, evaluation, figures.StudyPeriod, version.Assumptions.MarrOverride?.Reason, f);
 
         flow.Bookmark("Charts", parent);
         flow.Heading("Cash flows and the present worth profile", PacketStyle.Heading1, keepWith: 240);
         flow.Figure(210, (g, area) => CashFlowDiagramDrawing.Draw(g, area, evaluation.NetFlows, evaluation.Model.PeriodsPerYear, f),
             $"Net cash flow of each period, {f.CurrencyCode}: receipts up, payments down.");
-        var profile = EvaluationProfile.Of(evaluation);
-        flow.Figure(210, (g, area) => WorthProfileDrawing.Draw(g, area, profile, evaluation.RatesOfReturn, evaluation.Marr.EffectiveAnnual(), f),
+        flow.Figure(210, (g, area) => WorthProfileDrawing.Draw(g, area, figures.Profile, evaluation.RatesOfReturn, evaluation.Marr.EffectiveAnnual(), f),
             "Present worth at each annual rate; the dashed line is the MARR, each diamond a rate of return (where the worth is zero).");
 
         flow.Bookmark("Cash-flow tables", parent);
         flow.Heading("Cash flows per period", PacketStyle.Heading1);
-        PerPeriod(flow, evaluation, f);
+        PerPeriod(flow, evaluation, figures.Periods, f);
         flow.Heading("Cash flows per element", PacketStyle.Heading1);
-        PerElement(flow, evaluation, version.Assumptions.Model, f);
+        PerElement(flow, evaluation, figures.ElementWorths, version.Assumptions.Model, f);
 
-        if (ProposalTerms.Tax(version.Assumptions, data.Marr) is { } tax)
+        if (figures.AfterTax is { } afterTax)
         {
             flow.Bookmark("After tax", parent);
-            AfterTax(flow, AfterTaxEvaluator.Evaluate(ProposalTerms.Model(version.Assumptions, data.Marr, data.Proposal.RiskClass), tax), f);
+            AfterTax(flow, afterTax, figures.Depreciation, f);
         }
 
-        if (ProposalRisk.Prepare(version.Assumptions, data.Marr, data.Proposal.RiskClass, afterTax: true) is { } study)
+        if (figures.Risk is { } study)
         {
             flow.Bookmark("Risk", parent);
-            Risk(flow, study, f);
+            Risk(flow, study, figures.Sensitivity, figures.Simulation, f);
         }
 
         flow.Bookmark("Version history", parent);
-        History(flow, data, f);
+        History(flow, data, figures.Changes, f);
         flow.Note("Cautions", Cautions.Estimates, PacketStyle.Amber);
     }
 
@@ -89,15 +89,12 @@ internal static class ProposalSections
         _ => "Returned for changes",
     };
 
-    private static void Summary(PageFlow flow, ProposalPacketData data, Evaluation e, string? overrideReason, PacketFormat f)
+    private static void Summary(PageFlow flow, ProposalPacketData data, Evaluation e, RankedProposal? basis, string? overrideReason, PacketFormat f)
     {
         double marr = e.Marr.EffectiveAnnual();
         string marrText = overrideReason is null
             ? $"{f.Percent(marr)} a year effective: policy version {data.Marr.Number} for risk class {data.Proposal.RiskClass}"
             : $"{f.Percent(marr)} a year effective: the proposal's own MARR ({overrideReason})";
-        var basis = data.Cycle.StudyPeriodYears is int years
-            ? ProposalRanking.Rank([new RankingEntry(data.Proposal.Reference, e.Model, e.Marr, data.Version.Assumptions.ValueAtStudyEnd)], years)[0]
-            : null;
         string rate = e.RatesOfReturn.Count switch
         {
             0 => "none: the flows have no rate at which their worth is zero",
@@ -142,30 +139,13 @@ internal static class ProposalSections
         return worth + rate + payback + $" The board's decision: {OutcomeText(data.Decision.Outcome).ToLowerInvariant()}.";
     }
 
-    private static void PerPeriod(PageFlow flow, Evaluation e, PacketFormat f)
+    private static void PerPeriod(PageFlow flow, Evaluation e, IReadOnlyList<PeriodRow> periods, PacketFormat f)
     {
-        var model = e.Model;
-        var categories = new[] { CashFlowCategory.Capital, CashFlowCategory.Operating, CashFlowCategory.Revenue, CashFlowCategory.Salvage };
-        var byCategory = categories.ToDictionary(c => c, c => new double[model.Horizon + 1]);
-        for (int k = 0; k < model.Elements.Count; k++)
-        {
-            double[] flows = model.FlowsOf(k);
-            var target = byCategory[model.Elements[k].Category];
-            for (int t = 0; t < flows.Length; t++)
-            {
-                target[t] += flows[t];
-            }
-        }
-        double i = e.MarrPerPeriod, cumulative = 0, discount = 1;
-        var rows = new List<TableRow>();
-        for (int t = 0; t <= model.Horizon; t++)
-        {
-            double discounted = model.NetFlows[t] * discount;
-            cumulative += discounted;
-            rows.Add(new TableRow([t.ToString(f.Culture), .. categories.Select(c => f.Money(byCategory[c][t])), f.Money(model.NetFlows[t]), f.Money(discounted), f.Money(cumulative)]));
-            discount /= 1 + i;
-        }
-        rows.Add(new TableRow(["Total", .. categories.Select(c => f.Money(byCategory[c].Sum())), f.Money(model.NetFlows.Sum()), f.Money(cumulative), ""], Bold: true));
+        var categories = PeriodTable.Categories;
+        var rows = periods.Select(r => new TableRow([r.Period.ToString(f.Culture), .. categories.Select(c => f.Money(r.ByCategory[c])), f.Money(r.Net), f.Money(r.PresentWorth),
+            f.Money(r.CumulativePresentWorth)])).ToList();
+        rows.Add(new TableRow(["Total", .. categories.Select(c => f.Money(periods.Sum(r => r.ByCategory[c]))), f.Money(periods.Sum(r => r.Net)),
+            f.Money(periods.Count == 0 ? 0 : periods[^1].CumulativePresentWorth), ""], Bold: true));
         TableWriter.Draw(flow,
         [
             new("Period", 0.8), new("Capital", 1.2, true), new("Operating", 1.2, true), new("Revenue", 1.2, true), new("Salvage", 1.2, true),
@@ -174,13 +154,13 @@ internal static class ProposalSections
         flow.Text($"Amounts in {f.CurrencyCode}; discounted at {f.Percent(e.MarrPerPeriod)} a period to period 0. The cumulative column crosses zero at the discounted payback.", PacketStyle.Small, PacketStyle.SoftBrush);
     }
 
-    private static void PerElement(PageFlow flow, Evaluation e, Engine.Specifications.ModelSpec spec, PacketFormat f)
+    private static void PerElement(PageFlow flow, Evaluation e, IReadOnlyList<double> worths, Engine.Specifications.ModelSpec spec, PacketFormat f)
     {
         var rows = new List<TableRow>();
         for (int k = 0; k < e.Model.Elements.Count; k++)
         {
             var entered = spec.Elements![k]!;
-            double pw = FlowWorth.PresentWorth(e.Model.FlowsOf(k), e.MarrPerPeriod);
+            double pw = worths[k];
             string periods = entered.Period is int p ? p.ToString(f.Culture) : $"{entered.First}–{entered.Last}" + (entered.Every is int every ? $" every {every}" : "");
             string shape = entered.Type switch
             {
@@ -194,12 +174,12 @@ internal static class ProposalSections
         TableWriter.Draw(flow, [new("Element", 2.6), new("Shape", 1.1), new("Category", 1.1), new("Periods", 1.1), new("Amount", 2.2, true), new("PW at MARR", 1.4, true)], rows);
     }
 
-    private static void AfterTax(PageFlow flow, Engine.Validation.Outcome<AfterTaxEvaluation> outcome, PacketFormat f)
+    private static void AfterTax(PageFlow flow, Outcome<AfterTaxEvaluation> outcome, Engine.Depreciation.DepreciationSchedule? schedule, PacketFormat f)
     {
         flow.Heading("After tax", PacketStyle.Heading1);
         flow.Note("Taxes", "Tax and depreciation rules vary by jurisdiction and by year. The after-tax figures are estimates from the rates and methods "
             + "entered with this version, not tax advice; the organisation's tax advisers decide how the investment is treated.", PacketStyle.Amber);
-        if (outcome.Value is not { } r)
+        if (outcome.Value is not { } r || schedule is null)
         {
             flow.Text("The tax settings of this version are not complete: " + string.Join("; ", outcome.Errors.Select(e => $"{e.Field}: {e.Message}")), PacketStyle.Body);
             return;
@@ -222,7 +202,6 @@ internal static class ProposalSections
         }
         flow.Pairs(pairs);
         flow.Heading("Depreciation schedule", PacketStyle.Heading2);
-        var schedule = r.Settings.Depreciation.DisposedIn(r.Table.Rows.Count - 1, r.Settings.DisposalYearShare);
         TableWriter.Draw(flow, [new("Tax year", 1, true), new("Depreciation", 2, true), new("Share of basis", 1.5, true), new("Book value at year end", 2, true)],
             schedule.Amounts.Select((a, k) => new TableRow([(k + 1).ToString(f.Culture), f.Money(a), f.Percent(schedule.Basis == 0 ? 0 : a / schedule.Basis), f.Money(schedule.BookValueAfter(k + 1))])));
         flow.Heading("After-tax cash flows", PacketStyle.Heading2);
@@ -244,22 +223,21 @@ internal static class ProposalSections
         flow.Text($"Amounts in {f.CurrencyCode}. A negative tax is a saving against the organisation's other income.", PacketStyle.Small, PacketStyle.SoftBrush);
     }
 
-    private static void Risk(PageFlow flow, Outcome<RiskStudy> study, PacketFormat f)
+    private static void Risk(PageFlow flow, Outcome<RiskStudy> study, SensitivityResult? sensitivity, SimulationSummary? simulation, PacketFormat f)
     {
         flow.Heading("Sensitivity and risk", PacketStyle.Heading1);
-        if (study.Value is not { } prepared)
+        if (study.Value is not { } prepared || sensitivity is null || simulation is null)
         {
             flow.Text("The risk settings of this version are not complete: " + string.Join("; ", study.Errors.Select(e => $"{e.Field}: {e.Message}")), PacketStyle.Body);
             return;
         }
         var settings = prepared.Settings;
-        var sensitivity = ProposalRisk.Analyse(prepared);
         var (bars, basis) = (sensitivity.Tornado, sensitivity.Basis);
         TableWriter.Draw(flow, [new("Parameter", 2.4), new("Input", 1.8), new("Low", 1.1, true), new("Most likely", 1.1, true), new("High", 1.1, true), new("Distribution", 1.2)],
             settings.Parameters.Select(p => new TableRow([p.Name, RiskInputs.Label(p.Target, prepared.Proposal.Model, prepared.Proposal.Tax), Value(p.Low), Value(p.MostLikely), Value(p.High), p.Distribution.ToString()])));
         flow.Figure(Math.Max(90, 34 + 26 * bars.Count), (g, area) => Charts.TornadoDrawing.Draw(g, area, bars, basis, f),
             $"Tornado: present worth with each parameter at its low (red-brown) and high (green) value, the others at most likely ({f.Money(basis)} {f.CurrencyCode}).");
-        var result = ProposalRisk.Simulate(prepared).Detail;
+        var result = simulation.Detail;
         // Amounts to whole units; rates and other small values to four decimals.
         string Value(double v) => Math.Abs(v) >= 100 ? f.Number(v, 0) : f.Number(v, 4);
         flow.Figure(190, (g, area) => Charts.DistributionDrawing.Draw(g, area, result, f),
@@ -273,16 +251,14 @@ internal static class ProposalSections
         ]);
     }
 
-    private static void History(PageFlow flow, ProposalPacketData data, PacketFormat f)
+    private static void History(PageFlow flow, ProposalPacketData data, IReadOnlyList<VersionDifference> changes, PacketFormat f)
     {
         flow.Heading("Version history", PacketStyle.Heading1);
         var versions = data.Proposal.Versions.Where(v => v.Number <= data.Version.Number).ToList();
         TableWriter.Draw(flow, [new("Version", 0.9, true), new("Made", 1.6), new("Reason", 2.6), new("State", 1.6), new("Assumptions SHA-256", 3.2)],
             versions.Select(v => new TableRow([v.Number.ToString(f.Culture), f.Time(v.CreatedAt), v.Reason, v.IsFrozen ? "submitted" : "draft", v.AssumptionsHash])));
-        var policy = data.Marr.RateFor(data.Proposal.RiskClass);
-        for (int k = 1; k < versions.Count; k++)
+        foreach (VersionDifference difference in changes)
         {
-            var difference = VersionComparison.Compare(versions[k - 1], versions[k], policy);
             flow.Heading($"Changes from version {difference.From} to version {difference.To}", PacketStyle.Heading2);
             TableWriter.Draw(flow, [new("Field", 3), new("Before", 2, true), new("After", 2, true)],
                 difference.Fields.Count == 0 ? [new TableRow(["no field changed", "", ""])] : difference.Fields.Select(c => new TableRow([c.Path, c.Before ?? "–", c.After ?? "–"])));

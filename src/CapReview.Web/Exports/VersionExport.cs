@@ -27,7 +27,9 @@ public static class VersionExport
             $"MARR policy version {policy.Number} (SHA-256 {MarrPolicyDocument.Hash(policy)}); money in {currency}; rates as fractions a year, effective.",
             Cautions.Estimates,
         };
-        Evaluation? evaluation = VersionComparison.Evaluate(version.Assumptions, policy, proposal.RiskClass);
+        // The same figures the version's packet states (VersionFigures); the export only lays them out.
+        VersionFigures figures = VersionFigures.Of(proposal, version, policy, studyPeriodYears: null, simulate: false);
+        Evaluation? evaluation = figures.Evaluation;
         var tables = new List<(string, ExportTable)>
         {
             ("summary", Summary(proposal, version, evaluation, notes)),
@@ -36,12 +38,11 @@ public static class VersionExport
         if (evaluation is not null)
         {
             tables.Add(("cash-flows", CashFlows(evaluation, version.Assumptions.Model, notes)));
-            tables.Add(("discounting", Discounting(evaluation, notes)));
+            tables.Add(("discounting", Discounting(figures.Periods, notes)));
         }
-        if (ProposalTerms.Tax(version.Assumptions, policy) is { } tax
-            && AfterTaxEvaluator.Evaluate(ProposalTerms.Model(version.Assumptions, policy, proposal.RiskClass), tax).Value is { } afterTax)
+        if (figures.AfterTax?.Value is { } afterTax && figures.Depreciation is { } schedule)
         {
-            tables.Add(("depreciation", Depreciation(afterTax, notes)));
+            tables.Add(("depreciation", Depreciation(afterTax, schedule, notes)));
             tables.Add(("after-tax", AfterTax(afterTax, notes)));
         }
         return tables;
@@ -100,25 +101,12 @@ public static class VersionExport
             [.. Enumerable.Range(0, e.Model.Horizon + 1).Select(t => (IReadOnlyList<object?>)[t, .. flows.Select(f => (object?)f[t])])]);
     }
 
-    private static ExportTable Discounting(Evaluation e, IReadOnlyList<string> notes)
-    {
-        double cumulative = 0;
-        var rows = new List<IReadOnlyList<object?>>();
-        for (int t = 0; t <= e.Model.Horizon; t++)
-        {
-            double factor = Math.Pow(1 + e.MarrPerPeriod, -t);
-            double worth = e.NetFlows[t] * factor;
-            cumulative += worth;
-            rows.Add([t, e.NetFlows[t], factor, worth, cumulative]);
-        }
-        return new ExportTable("Discounting", notes,
-            [new("Period", ExportKind.Whole), new("Net flow", ExportKind.Money), new("(P/F, i, t)", ExportKind.Number), new("Present worth of the flow", ExportKind.Money), new("Cumulative present worth", ExportKind.Money)],
-            rows);
-    }
+    private static ExportTable Discounting(IReadOnlyList<PeriodRow> periods, IReadOnlyList<string> notes) => new("Discounting", notes,
+        [new("Period", ExportKind.Whole), new("Net flow", ExportKind.Money), new("(P/F, i, t)", ExportKind.Number), new("Present worth of the flow", ExportKind.Money), new("Cumulative present worth", ExportKind.Money)],
+        [.. periods.Select(r => (IReadOnlyList<object?>)[r.Period, r.Net, r.Factor, r.PresentWorth, r.CumulativePresentWorth])]);
 
-    private static ExportTable Depreciation(AfterTaxEvaluation r, IReadOnlyList<string> notes)
+    private static ExportTable Depreciation(AfterTaxEvaluation r, Engine.Depreciation.DepreciationSchedule schedule, IReadOnlyList<string> notes)
     {
-        var schedule = r.Settings.Depreciation.DisposedIn(r.Table.Rows.Count - 1, r.Settings.DisposalYearShare);
         return new ExportTable("Depreciation", [$"{r.Settings.Depreciation.Method}.", .. notes],
             [new("Tax year", ExportKind.Whole), new("Depreciation", ExportKind.Money), new("Share of basis", ExportKind.Percent), new("Book value at year end", ExportKind.Money)],
             [.. schedule.Amounts.Select((a, k) => (IReadOnlyList<object?>)[k + 1, a, schedule.Basis == 0 ? 0.0 : a / schedule.Basis, schedule.BookValueAfter(k + 1)])]);
