@@ -26,8 +26,8 @@ public sealed partial class DocumentedExamples(ApiFactory factory) : IClassFixtu
         string document = ApiDocument();
         Match marker = ExampleMarker().Matches(document).Single(m => m.Groups[1].Value == name);
         int start = marker.Index;
-        Match request = HttpBlock().Match(document, start);
-        Match response = JsonBlock().Match(document, request.Index + request.Length);
+        Match request = DocumentedJson.HttpBlock().Match(document, start);
+        Match response = DocumentedJson.JsonBlock().Match(document, request.Index + request.Length);
         Assert.True(request.Success && response.Success, $"example {name} needs an http block and a json block");
 
         string[] lines = request.Groups[1].Value.Split('\n');
@@ -46,35 +46,7 @@ public sealed partial class DocumentedExamples(ApiFactory factory) : IClassFixtu
             : expected.TryGetProperty("status", out JsonElement s) ? s.GetInt32() : 200;
         Assert.Equal(status, (int)actual.StatusCode);
         JsonElement got = JsonDocument.Parse(await actual.Content.ReadAsStringAsync()).RootElement;
-        AssertMatches(expected, got, "$");
-    }
-
-    private static void AssertMatches(JsonElement expected, JsonElement actual, string path)
-    {
-        switch (expected.ValueKind)
-        {
-            case JsonValueKind.Object:
-                foreach (JsonProperty property in expected.EnumerateObject())
-                {
-                    Assert.True(actual.TryGetProperty(property.Name, out JsonElement value), $"{path}.{property.Name} is missing");
-                    AssertMatches(property.Value, value, $"{path}.{property.Name}");
-                }
-                break;
-            case JsonValueKind.Array:
-                Assert.Equal(expected.GetArrayLength(), actual.GetArrayLength());
-                for (int k = 0; k < expected.GetArrayLength(); k++)
-                {
-                    AssertMatches(expected[k], actual[k], $"{path}[{k}]");
-                }
-                break;
-            case JsonValueKind.Number:
-                double e = expected.GetDouble(), a = actual.GetDouble();
-                Assert.True(Math.Abs(e - a) <= 1e-9 * Math.Max(1.0, Math.Abs(e)), string.Create(CultureInfo.InvariantCulture, $"{path}: documented {e:R}, got {a:R}"));
-                break;
-            default:
-                Assert.Equal(expected.ToString(), actual.ToString());
-                break;
-        }
+        Assert.Null(DocumentedJson.Mismatch(expected, got, "$"));
     }
 
     private static string ApiDocument() =>
@@ -82,10 +54,4 @@ public sealed partial class DocumentedExamples(ApiFactory factory) : IClassFixtu
 
     [GeneratedRegex(@"<!-- example: ([\w-]+)(?: \(answers (\d{3})\))? -->")]
     private static partial Regex ExampleMarker();
-
-    [GeneratedRegex(@"```http\n(.*?)\n```", RegexOptions.Singleline)]
-    private static partial Regex HttpBlock();
-
-    [GeneratedRegex(@"```json\n(.*?)\n```", RegexOptions.Singleline)]
-    private static partial Regex JsonBlock();
 }

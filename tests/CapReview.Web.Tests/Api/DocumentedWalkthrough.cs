@@ -38,8 +38,8 @@ public sealed partial class DocumentedWalkthrough(ApiFactory factory) : IClassFi
         foreach (Match step in steps)
         {
             string name = step.Groups["name"].Value;
-            Match request = HttpBlock().Match(document, step.Index);
-            Match response = JsonBlock().Match(document, request.Index + request.Length);
+            Match request = DocumentedJson.HttpBlock().Match(document, step.Index);
+            Match response = DocumentedJson.JsonBlock().Match(document, request.Index + request.Length);
             Assert.True(request.Success && response.Success, $"step {name} needs an http block and a json block");
             int status = step.Groups["status"].Success ? int.Parse(step.Groups["status"].Value, CultureInfo.InvariantCulture) : 200;
             string expectedText = Fill(response.Groups[1].Value, kept);
@@ -49,7 +49,7 @@ public sealed partial class DocumentedWalkthrough(ApiFactory factory) : IClassFi
             while (true)
             {
                 var (actualStatus, actual) = await SendAsync(client, Fill(request.Groups[1].Value, kept));
-                string? mismatch = actualStatus != status ? $"status {actualStatus}, documented {status}: {actual}" : Mismatch(expected, actual, "$");
+                string? mismatch = actualStatus != status ? $"status {actualStatus}, documented {status}: {actual}" : DocumentedJson.Mismatch(expected, actual, "$");
                 if (mismatch is null)
                 {
                     last = actual;
@@ -109,57 +109,8 @@ public sealed partial class DocumentedWalkthrough(ApiFactory factory) : IClassFi
     private static string Fill(string text, Dictionary<string, string> kept) =>
         Placeholder().Replace(text, m => kept.TryGetValue(m.Groups[1].Value, out string? value) ? value : m.Value);
 
-    /// <summary>Null when <paramref name="actual"/> holds every field the document promises, else where it differs.</summary>
-    private static string? Mismatch(JsonElement expected, JsonElement actual, string path)
-    {
-        if (expected.ValueKind != actual.ValueKind && !(expected.ValueKind == JsonValueKind.Null && actual.ValueKind == JsonValueKind.Undefined))
-        {
-            return $"{path}: documented {expected.ValueKind}, got {actual.ValueKind} ({actual})";
-        }
-        switch (expected.ValueKind)
-        {
-            case JsonValueKind.Object:
-                foreach (JsonProperty property in expected.EnumerateObject())
-                {
-                    if (!actual.TryGetProperty(property.Name, out JsonElement value))
-                    {
-                        return $"{path}.{property.Name} is missing";
-                    }
-                    if (Mismatch(property.Value, value, $"{path}.{property.Name}") is { } inner)
-                    {
-                        return inner;
-                    }
-                }
-                return null;
-            case JsonValueKind.Array:
-                if (expected.GetArrayLength() != actual.GetArrayLength())
-                {
-                    return $"{path}: documented {expected.GetArrayLength()} items, got {actual.GetArrayLength()}";
-                }
-                for (int k = 0; k < expected.GetArrayLength(); k++)
-                {
-                    if (Mismatch(expected[k], actual[k], $"{path}[{k}]") is { } inner)
-                    {
-                        return inner;
-                    }
-                }
-                return null;
-            case JsonValueKind.Number:
-                double e = expected.GetDouble(), a = actual.GetDouble();
-                return Math.Abs(e - a) <= 1e-9 * Math.Max(1.0, Math.Abs(e)) ? null : string.Create(CultureInfo.InvariantCulture, $"{path}: documented {e:R}, got {a:R}");
-            default:
-                return expected.ToString() == actual.ToString() ? null : $"{path}: documented {expected}, got {actual}";
-        }
-    }
-
     [GeneratedRegex(@"<!-- step: (?<name>[\w-]+) as (?<who>[\w-]+)(?: \(answers (?<status>\d{3})\))?(?<waits> waits)?(?: keeps (?<keeps>[\w=, ]+))? -->")]
     private static partial Regex StepMarker();
-
-    [GeneratedRegex(@"```http\n(.*?)\n```", RegexOptions.Singleline)]
-    private static partial Regex HttpBlock();
-
-    [GeneratedRegex(@"```json\n(.*?)\n```", RegexOptions.Singleline)]
-    private static partial Regex JsonBlock();
 
     [GeneratedRegex(@"\{(\w+)\}")]
     private static partial Regex Placeholder();
