@@ -246,6 +246,38 @@ public sealed class WorkflowApiTests(ApiFactory factory) : IClassFixture<ApiFact
         Assert.Equal("draft", (await JsonAsync(await lead.GetAsync($"/api/v1/proposals/{draft.Id}"))).GetProperty("status").GetString());
     }
 
+    [Fact]
+    public async Task The_packet_job_of_a_cycle_that_does_not_exist_is_not_found_as_a_cycle_not_as_an_undecided_one()
+    {
+        var (_, cycleId, _) = await SubmittedAsync("Undecided packets 2027");
+        using HttpClient board = await ClientAsync("workflow.board@tarnby.example", RoleNames.Reviewer);
+        using var missing = await board.GetAsync("/api/v1/cycles/987654/packet-job");
+        Assert.Equal(HttpStatusCode.NotFound, missing.StatusCode);
+        Assert.Equal("There is no such budget cycle.", (await JsonAsync(missing)).GetProperty("detail").GetString());
+        using var undecided = await board.GetAsync($"/api/v1/cycles/{cycleId}/packet-job");
+        Assert.Equal(HttpStatusCode.NotFound, undecided.StatusCode);
+        Assert.Contains("not decided", (await JsonAsync(undecided)).GetProperty("detail").GetString(), StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public async Task A_body_over_the_limit_sent_without_its_length_is_refused_as_too_large_and_changes_nothing()
+    {
+        var (lead, _, proposal) = await SubmittedAsync("Chunked 2027");
+        int id = proposal.GetProperty("id").GetInt32();
+        var before = await StoredAsync(id);
+        // A valid comment padded with spaces past 1,000,000 bytes, streamed so that no Content-Length is sent.
+        byte[] json = System.Text.Encoding.UTF8.GetBytes("{\"text\": \"Hello\"" + new string(' ', 1_100_000) + "}");
+        using var content = new StreamContent(new MemoryStream(json));
+        content.Headers.ContentType = new System.Net.Http.Headers.MediaTypeHeaderValue("application/json");
+        content.Headers.ContentLength = null;
+        using var request = new HttpRequestMessage(HttpMethod.Post, $"/api/v1/proposals/{id}/comments") { Content = content };
+        request.Headers.TransferEncodingChunked = true;
+        using var response = await lead.SendAsync(request);
+        Assert.Equal(HttpStatusCode.BadRequest, response.StatusCode);
+        Assert.Contains("larger than", (await JsonAsync(response)).GetProperty("errors").GetProperty("body")[0].GetString(), StringComparison.Ordinal);
+        Assert.Equal(before, await StoredAsync(id));
+    }
+
     /// <summary>A board member returns the proposal for changes through the API.</summary>
     private async Task<HttpClient> BoardReturnsAsync(int proposalId)
     {
