@@ -76,4 +76,16 @@ public sealed class MarrAndCycleTests(ReviewsDatabase db) : IClassFixture<Review
             db.Cycles.CreateAsync(Admin, new NewBudgetCycle(name, limit, marr, opens, opens.AddDays(closesAfterDays)), None));
         Assert.Contains(message, error.Message);
     }
+    [Theory]
+    [InlineData(-0.99, -0.5, 0.0, "lowRiskPremium")]
+    [InlineData(-0.6, 0.0, -0.45, "standardRiskPremium")]
+    public async Task A_premium_that_takes_a_risk_class_to_minus_100_percent_or_below_is_refused_and_nothing_is_stored(double rate, double low, double standard, string field)
+    {
+        int before = (await db.Marr.ListAsync(None)).Count;
+        var error = await Assert.ThrowsAsync<RuleViolationException>(() => db.Marr.AddVersionAsync(Admin,
+            new NewMarrPolicy(rate, RateBasis.Effective, 1, new DateOnly(2029, 1, 1), "Deflation scenario", LowRiskPremium: low, StandardRiskPremium: standard), None));
+        Assert.StartsWith(field + ":", error.Message, StringComparison.Ordinal);
+        Assert.Equal(before, (await db.Marr.ListAsync(None)).Count);
+    }
 }
+

@@ -17,11 +17,11 @@ public sealed class CommentService(ReviewWork work, AuditTrail audit, TimeProvid
         ArgumentNullException.ThrowIfNull(actor);
         if (string.IsNullOrWhiteSpace(text))
         {
-            throw new RuleViolationException("Write the comment first.");
+            throw new RuleViolationException("text: write the comment first.");
         }
         if (text.Length > MaxLength)
         {
-            throw new RuleViolationException("A comment holds at most 2,000 characters.");
+            throw new RuleViolationException("text: a comment holds at most 2,000 characters.");
         }
         return work.RunAsync(async db =>
         {

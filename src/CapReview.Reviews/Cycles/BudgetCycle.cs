@@ -51,19 +51,19 @@ public sealed class BudgetCycle
         ArgumentNullException.ThrowIfNull(terms);
         if (string.IsNullOrWhiteSpace(terms.Name) || terms.Name.Trim().Length > 200)
         {
-            throw new RuleViolationException("Give the cycle a name of at most 200 characters.");
+            throw new RuleViolationException("name: give the cycle a name of at most 200 characters.");
         }
         if (terms.CapitalLimit <= 0m)
         {
-            throw new RuleViolationException("The capital limit must be above zero.");
+            throw new RuleViolationException("capitalLimit: the capital limit must be above zero.");
         }
         if (terms.ClosesOn < terms.OpensOn)
         {
-            throw new RuleViolationException("The cycle closes before it opens.");
+            throw new RuleViolationException("closesOn: the cycle closes before it opens.");
         }
         if (terms.RequiredSignOffs is < 1 or > 20)
         {
-            throw new RuleViolationException("A cycle's decision needs between 1 and 20 sign-offs.");
+            throw new RuleViolationException("requiredSignOffs: a cycle's decision needs between 1 and 20 sign-offs.");
         }
     }
 

@@ -26,6 +26,17 @@ public sealed class MarrPolicyService(ReviewWork work, AuditTrail audit, TimePro
         {
             throw new RuleViolationException("A risk premium must lie between -50 and +100 percentage points.");
         }
+        // Each risk class's MARR is the base rate's effective annual equivalent plus its premium: it must be a rate
+        // too, or every proposal of that class would fail to evaluate once a cycle is pinned to this version.
+        double effective = AnnualRate.Create(policy.Rate, policy.Basis, policy.CompoundingsPerYear).EffectiveAnnual();
+        foreach (var (field, words, premium) in new[] { ("lowRiskPremium", "low", policy.LowRiskPremium), ("standardRiskPremium", "standard", policy.StandardRiskPremium), ("highRiskPremium", "high", policy.HighRiskPremium) })
+        {
+            if (premium != 0.0 && AnnualRate.Check(effective + premium, RateBasis.Effective, 1, field).Count > 0)
+            {
+                throw new RuleViolationException(string.Create(System.Globalization.CultureInfo.InvariantCulture,
+                    $"{field}: with this premium the MARR of {words}-risk proposals would be {(effective + premium) * 100:0.##} %; it must stay above -100 %."));
+            }
+        }
         if (!double.IsFinite(policy.InflationRate) || policy.InflationRate is <= -0.5 or > 1.0)
         {
             throw new RuleViolationException("inflationRate: general inflation must lie between −50 % and 100 % a year.");

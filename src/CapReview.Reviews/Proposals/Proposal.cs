@@ -162,7 +162,7 @@ public sealed class Proposal
         bool resubmission = BudgetCycleId == cycle.Id;
         if (!(cycle.Status == CycleStatus.Open || (resubmission && cycle.Status == CycleStatus.InReview)))
         {
-            throw new RuleViolationException($"The cycle {cycle.Name} no longer takes proposals.");
+            throw new RuleViolationException($"cycleId: the cycle {cycle.Name} no longer takes proposals.");
         }
         ProposalVersion latest = Latest;
         var evaluation = Evaluator.Evaluate(AssumptionsDocument.Deserialize(latest.AssumptionsJson).Model);

@@ -80,6 +80,10 @@ public sealed class PacketJobs(ReviewWork work, AuditTrail audit, TimeProvider c
         MayMakePackets(actor);
         return work.ReadAsync(async db =>
         {
+            if (!await db.BudgetCycles.AnyAsync(c => c.Id == cycleId, cancellationToken).ConfigureAwait(false))
+            {
+                throw new NotFoundException("There is no such budget cycle.");
+            }
             PacketJob? job = await db.PacketJobs.SingleOrDefaultAsync(j => j.BudgetCycleId == cycleId, cancellationToken).ConfigureAwait(false);
             return job is null ? null : PacketJobView.Of(job);
         }, cancellationToken);

@@ -21,9 +21,15 @@ public static class ApiBody
         {
             return (null, ApiProblems.Invalid("body", $"Send {what} as application/json."));
         }
+        // A body sent without its length (chunked) is cut off at the limit too, not read whole.
+        byte[]? bytes = await JsonBody.ReadAsync(request, EvaluationEndpoints.MaxRequestBytes, cancellationToken).ConfigureAwait(false);
+        if (bytes is null)
+        {
+            return (null, ApiProblems.Invalid("body", $"The request is larger than {EvaluationEndpoints.MaxRequestBytes:N0} bytes."));
+        }
         try
         {
-            T? body = await JsonSerializer.DeserializeAsync<T>(request.Body, ApiJson.Options, cancellationToken).ConfigureAwait(false);
+            T? body = JsonSerializer.Deserialize<T>(bytes, ApiJson.Options);
             return body is null ? (null, ApiProblems.Invalid("body", $"Send {what} as a JSON object.")) : (body, null);
         }
         catch (JsonException ex)

@@ -14,7 +14,7 @@ namespace CapReview.Web.Api;
 public sealed record RiskAnalysisResponse(
     bool AfterTax,
     string Measure,
-    double Basis,
+    double? Basis,
     IReadOnlyList<TornadoBarResponse> Tornado,
     IReadOnlyList<SpiderLineResponse> Spider,
     IReadOnlyList<BreakEvenResponse> BreakEven,
@@ -29,11 +29,14 @@ public sealed record RiskAnalysisResponse(
         return new RiskAnalysisResponse(
             study.AfterTax,
             sensitivity.Measure == Engine.Risk.RiskMeasure.AnnualWorth ? "annualWorth" : "presentWorth",
-            sensitivity.Basis,
-            [.. sensitivity.Tornado.Select(b => new TornadoBarResponse(b.Parameter.Name, b.Parameter.Target, b.AtLow, b.AtHigh, b.Swing))],
-            [.. sensitivity.Spider.Select(l => new SpiderLineResponse(l.Parameter.Name, [.. l.Points.Select(p => p.Change)], [.. l.Points.Select(p => p.Measure)]))],
-            [.. sensitivity.BreakEvens.Select(b => new BreakEvenResponse(b.Parameter.Name, b.Parameter.Target, b.Value))],
-            [.. sensitivity.Scenarios.Select(s => new ScenarioResponse(s.Name, s.PresentWorth, s.AnnualWorth))],
+            Finite(sensitivity.Basis),
+            [.. sensitivity.Tornado.Select(b => new TornadoBarResponse(b.Parameter.Name, b.Parameter.Target, Finite(b.AtLow), Finite(b.AtHigh), Finite(b.Swing)))],
+            [.. sensitivity.Spider.Select(l => new SpiderLineResponse(l.Parameter.Name, [.. l.Points.Select(p => p.Change)], [.. l.Points.Select(p => Finite(p.Measure))]))],
+            [.. sensitivity.BreakEvens.Select(b => new BreakEvenResponse(b.Parameter.Name, b.Parameter.Target, b.Value is double v ? Finite(v) : null))],
+            [.. sensitivity.Scenarios.Select(s => new ScenarioResponse(s.Name, Finite(s.PresentWorth), Finite(s.AnnualWorth)))],
             SimulationResponse.From(simulation));
     }
+
+    /// <summary>A figure as JSON can carry it: null where a move of the inputs made no valid model (NaN or infinite).</summary>
+    internal static double? Finite(double value) => double.IsFinite(value) ? value : null;
 }

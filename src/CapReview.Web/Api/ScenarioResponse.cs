@@ -1,4 +1,4 @@
 namespace CapReview.Web.Api;
 
 /// <summary>One scenario's present and annual worth.</summary>
-public sealed record ScenarioResponse(string Name, double PresentWorth, double AnnualWorth);
+public sealed record ScenarioResponse(string Name, double? PresentWorth, double? AnnualWorth);

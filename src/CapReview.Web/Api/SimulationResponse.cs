@@ -14,17 +14,24 @@ namespace CapReview.Web.Api;
 public sealed record SimulationResponse(
     int Trials,
     int Seed,
-    double Mean,
-    double StandardDeviation,
-    double ProbabilityOfLoss,
-    PresentWorthPercentiles Percentiles,
+    double? Mean,
+    double? StandardDeviation,
+    double? ProbabilityOfLoss,
+    PercentilesResponse Percentiles,
     IReadOnlyList<HistogramBinResponse> Histogram,
     int Invalid)
 {
     public static SimulationResponse From(SimulationSummary s)
     {
         ArgumentNullException.ThrowIfNull(s);
-        return new SimulationResponse(s.Trials, s.Seed, s.Mean, s.StandardDeviation, s.ProbabilityOfLoss, s.Percentiles,
+        PresentWorthPercentiles p = s.Percentiles;
+        var percentiles = new PercentilesResponse(F(p.P5), F(p.P10), F(p.P25), F(p.P50), F(p.P75), F(p.P90), F(p.P95));
+        return new SimulationResponse(s.Trials, s.Seed, F(s.Mean), F(s.StandardDeviation), F(s.ProbabilityOfLoss), percentiles,
             [.. s.Histogram.Select(b => new HistogramBinResponse(b.From, b.To, b.Count))], s.Invalid);
     }
+
+    private static double? F(double value) => RiskAnalysisResponse.Finite(value);
 }
+
+/// <summary>Present worth at the 5th … 95th percentiles; null when no trial made a valid model.</summary>
+public sealed record PercentilesResponse(double? P5, double? P10, double? P25, double? P50, double? P75, double? P90, double? P95);

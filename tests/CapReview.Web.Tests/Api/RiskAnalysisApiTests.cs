@@ -161,4 +161,22 @@ public sealed class RiskAnalysisApiTests(ApiFactory factory) : IClassFixture<Api
         Assert.Equal(HttpStatusCode.BadRequest, status);
         Assert.True(body.GetProperty("errors").TryGetProperty("tax.incomeTaxRate", out _), body.GetRawText());
     }
+    [Fact]
+    public async Task A_horizon_whose_moves_make_no_valid_model_answers_nulls_not_a_server_error()
+    {
+        // The horizon at −50 % (5) cuts the saving that runs to year 10: that point of the spider has no valid model,
+        // and at 1 … 2 years no trial of the simulation has one either. Neither may become a 5xx.
+        string spider = $$$"""{"model": {{{Model}}}, "risk": {"trials": 50, "parameters": [{"name": "Life", "target": "horizon", "low": 10, "mostLikely": 10, "high": 14}]}}""";
+        var (status, body) = await PostAsync("/api/v1/risk-analyses", spider);
+        Assert.Equal(HttpStatusCode.OK, status);
+        Assert.Contains(body.GetProperty("spider")[0].GetProperty("values").EnumerateArray(), v => v.ValueKind == JsonValueKind.Null);
+
+        string none = $$$"""{"model": {{{Model}}}, "risk": {"trials": 50, "parameters": [{"name": "Life", "target": "horizon", "low": 1, "mostLikely": 2, "high": 3}]}}""";
+        var (noneStatus, noneBody) = await PostAsync("/api/v1/risk-analyses", none);
+        Assert.Equal(HttpStatusCode.OK, noneStatus);
+        Assert.Equal(JsonValueKind.Null, noneBody.GetProperty("basis").ValueKind);
+        Assert.Equal(JsonValueKind.Null, noneBody.GetProperty("simulation").GetProperty("mean").ValueKind);
+        Assert.Equal(50, noneBody.GetProperty("simulation").GetProperty("invalid").GetInt32());
+    }
 }
+

@@ -200,6 +200,84 @@ public sealed class WorkflowApiTests(ApiFactory factory) : IClassFixture<ApiFact
         Assert.Equal(0, (await JsonAsync(removed)).GetProperty("groups").GetArrayLength());
     }
 
+    [Fact]
+    public async Task Refusals_of_a_cycle_a_submission_and_a_comment_name_the_field_sent_and_change_nothing()
+    {
+        var (lead, cycleId, proposal) = await SubmittedAsync("Fields 2027");
+        using HttpClient admin = await ClientAsync("workflow.admin@tarnby.example", RoleNames.Administrator);
+        JsonElement cycle = await JsonAsync(await admin.GetAsync($"/api/v1/cycles/{cycleId}"));
+        int marr = cycle.GetProperty("marrPolicyVersionId").GetInt32();
+        await using (var db = await factory.Services.GetRequiredService<IDbContextFactory<CapReviewDbContext>>().CreateDbContextAsync())
+        {
+            int cycles = await db.BudgetCycles.CountAsync();
+            foreach (var (field, body) in new (string, object)[]
+            {
+                ("name", new { name = " ", capitalLimit = 1000, marrPolicyVersionId = marr, opensOn = "2028-01-01", closesOn = "2028-03-01" }),
+                ("capitalLimit", new { name = "Fields bad limit", capitalLimit = 0, marrPolicyVersionId = marr, opensOn = "2028-01-01", closesOn = "2028-03-01" }),
+                ("closesOn", new { name = "Fields bad dates", capitalLimit = 1000, marrPolicyVersionId = marr, opensOn = "2028-03-01", closesOn = "2028-01-01" }),
+                ("requiredSignOffs", new { name = "Fields no sign-offs", capitalLimit = 1000, marrPolicyVersionId = marr, opensOn = "2028-01-01", closesOn = "2028-03-01", requiredSignOffs = 0 }),
+            })
+            {
+                using var refused = await admin.PostAsJsonAsync("/api/v1/cycles", body);
+                Assert.Equal(HttpStatusCode.BadRequest, refused.StatusCode);
+                Assert.True((await JsonAsync(refused)).GetProperty("errors").TryGetProperty(field, out _), field);
+            }
+            Assert.Equal(cycles, await db.BudgetCycles.CountAsync());
+        }
+
+        int id = proposal.GetProperty("id").GetInt32();
+        var before = await StoredAsync(id);
+        using var tooLong = await lead.PostAsJsonAsync($"/api/v1/proposals/{id}/comments", new { text = new string('a', 2001) });
+        Assert.Equal(HttpStatusCode.BadRequest, tooLong.StatusCode);
+        Assert.True((await JsonAsync(tooLong)).GetProperty("errors").TryGetProperty("text", out _));
+        using var blank = await lead.PostAsJsonAsync($"/api/v1/proposals/{id}/comments", new { text = "  " });
+        Assert.True((await JsonAsync(blank)).GetProperty("errors").TryGetProperty("text", out _));
+        Assert.Equal(before, await StoredAsync(id));
+
+        // A cycle in review takes no new submissions: the refusal names the cycle sent.
+        using var moved = await admin.PutAsJsonAsync($"/api/v1/cycles/{cycleId}/status", new { status = "inReview", revision = cycle.GetProperty("revision").GetInt32() });
+        Assert.Equal(HttpStatusCode.OK, moved.StatusCode);
+        var (_, leadId) = await factory.TokenClientAsync(LeadEmail, RoleNames.ProjectLead);
+        var draft = await factory.Services.GetRequiredService<ProposalService>().CreateDraftAsync(
+            CapReview.Reviews.Access.Actor.Of(leadId, "Lead", CapReview.Reviews.Access.Role.ProjectLead), ApiFactory.Draft("Fields 2027 late", 4, 20_000, 7_000), CancellationToken.None);
+        using var late = await lead.PostAsJsonAsync($"/api/v1/proposals/{draft.Id}/submissions", new { cycleId, revision = draft.Revision });
+        Assert.Equal(HttpStatusCode.BadRequest, late.StatusCode);
+        Assert.True((await JsonAsync(late)).GetProperty("errors").TryGetProperty("cycleId", out _));
+        Assert.Equal("draft", (await JsonAsync(await lead.GetAsync($"/api/v1/proposals/{draft.Id}"))).GetProperty("status").GetString());
+    }
+
+    [Fact]
+    public async Task The_packet_job_of_a_cycle_that_does_not_exist_is_not_found_as_a_cycle_not_as_an_undecided_one()
+    {
+        var (_, cycleId, _) = await SubmittedAsync("Undecided packets 2027");
+        using HttpClient board = await ClientAsync("workflow.board@tarnby.example", RoleNames.Reviewer);
+        using var missing = await board.GetAsync("/api/v1/cycles/987654/packet-job");
+        Assert.Equal(HttpStatusCode.NotFound, missing.StatusCode);
+        Assert.Equal("There is no such budget cycle.", (await JsonAsync(missing)).GetProperty("detail").GetString());
+        using var undecided = await board.GetAsync($"/api/v1/cycles/{cycleId}/packet-job");
+        Assert.Equal(HttpStatusCode.NotFound, undecided.StatusCode);
+        Assert.Contains("not decided", (await JsonAsync(undecided)).GetProperty("detail").GetString(), StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public async Task A_body_over_the_limit_sent_without_its_length_is_refused_as_too_large_and_changes_nothing()
+    {
+        var (lead, _, proposal) = await SubmittedAsync("Chunked 2027");
+        int id = proposal.GetProperty("id").GetInt32();
+        var before = await StoredAsync(id);
+        // A valid comment padded with spaces past 1,000,000 bytes, streamed so that no Content-Length is sent.
+        byte[] json = System.Text.Encoding.UTF8.GetBytes("{\"text\": \"Hello\"" + new string(' ', 1_100_000) + "}");
+        using var content = new StreamContent(new MemoryStream(json));
+        content.Headers.ContentType = new System.Net.Http.Headers.MediaTypeHeaderValue("application/json");
+        content.Headers.ContentLength = null;
+        using var request = new HttpRequestMessage(HttpMethod.Post, $"/api/v1/proposals/{id}/comments") { Content = content };
+        request.Headers.TransferEncodingChunked = true;
+        using var response = await lead.SendAsync(request);
+        Assert.Equal(HttpStatusCode.BadRequest, response.StatusCode);
+        Assert.Contains("larger than", (await JsonAsync(response)).GetProperty("errors").GetProperty("body")[0].GetString(), StringComparison.Ordinal);
+        Assert.Equal(before, await StoredAsync(id));
+    }
+
     /// <summary>A board member returns the proposal for changes through the API.</summary>
     private async Task<HttpClient> BoardReturnsAsync(int proposalId)
     {
