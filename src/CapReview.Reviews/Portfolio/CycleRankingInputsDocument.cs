@@ -1,0 +1,24 @@
+using System.Text.Json;
+using System.Text.Json.Serialization;
+
+namespace CapReview.Reviews.Portfolio;
+
+/// <summary>
+/// <see cref="CycleRankingInputs"/> as JSON, so that a page can carry what it read from its first rendering to its
+/// live one instead of reading it again. Written in the same style as the stored assumptions (camelCase, enums as
+/// strings), which the inputs contain.
+/// </summary>
+public static class CycleRankingInputsDocument
+{
+    private static readonly JsonSerializerOptions Options = new(JsonSerializerDefaults.Web)
+    {
+        DefaultIgnoreCondition = JsonIgnoreCondition.WhenWritingNull,
+        Converters = { new JsonStringEnumConverter(JsonNamingPolicy.CamelCase, allowIntegerValues: false) },
+    };
+
+    public static string Serialize(CycleRankingInputs inputs) => JsonSerializer.Serialize(inputs, Options);
+
+    public static CycleRankingInputs Deserialize(string json) =>
+        JsonSerializer.Deserialize<CycleRankingInputs>(json, Options)
+        ?? throw new JsonException("The document holds no ranking inputs.");
+}
