@@ -40,6 +40,7 @@ public static class ReviewsServiceCollectionExtensions
         services.AddSingleton<ProposalService>();
         services.AddSingleton<MarrPolicyService>();
         services.AddSingleton<CycleService>();
+        services.AddSingleton<CycleOverviewService>();
         services.AddSingleton<DecisionService>();
         services.AddSingleton<CommentService>();
         services.AddSingleton<PortfolioRulesService>();
