@@ -46,6 +46,7 @@ public static class ReviewsServiceCollectionExtensions
         services.AddSingleton<PortfolioRulesService>();
         services.AddSingleton<CycleRankingService>();
         services.AddSingleton<PortfolioService>();
+        services.AddSingleton<IncrementalAnalysisService>();
         services.AddSingleton<ReplacementService>();
         services.AddSingleton<Records.PacketArchive>();
         services.AddSingleton<Records.DecisionRecords>();

@@ -169,6 +169,8 @@ public static partial class CapReviewHosting
         app.MapEvaluationEndpoints();
         app.MapHealthEndpoints();
         app.MapCycleEndpoints();
+        app.MapPortfolioEndpoints();
+        app.MapVersionAnalysisEndpoints();
         app.MapProposalEndpoints();
         app.MapCycleDocumentEndpoints();
         app.MapAccountEndpoints();
