@@ -186,7 +186,7 @@ public sealed class EvaluationApiTests(ApiFactory factory) : IClassFixture<ApiFa
         // Every operation of the API, by the id docs/api.md and clients refer to.
         var operations = document.GetProperty("paths").EnumerateObject().SelectMany(p => p.Value.EnumerateObject()).Where(o => o.Name is "get" or "post" or "put" or "delete")
             .Select(o => o.Value.TryGetProperty("operationId", out var op) ? op.GetString() : o.Name + "?").Order(StringComparer.Ordinal).ToList();
-        Assert.Equal(["CreateEvaluation", "CreateProposal", "DownloadPacket", "ExportCycle", "GetCycleRanking", "GetProposal", "GetProposalVersion", "ImportCycle", "ListCyclePackets", "ListCycles", "ListProposals"], operations);
+        Assert.Equal(["CreateEvaluation", "CreateProposal", "DownloadPacket", "ExportCycle", "GetCyclePortfolio", "GetCycleRanking", "GetProposal", "GetProposalVersion", "GetVersionIncrementalAnalysis", "GetVersionReplacementAnalysis", "ImportCycle", "ListCyclePackets", "ListCycles", "ListProposals"], operations);
     }
 
     [Theory]
