@@ -40,11 +40,13 @@ public static class ReviewsServiceCollectionExtensions
         services.AddSingleton<ProposalService>();
         services.AddSingleton<MarrPolicyService>();
         services.AddSingleton<CycleService>();
+        services.AddSingleton<CycleOverviewService>();
         services.AddSingleton<DecisionService>();
         services.AddSingleton<CommentService>();
         services.AddSingleton<PortfolioRulesService>();
         services.AddSingleton<CycleRankingService>();
         services.AddSingleton<PortfolioService>();
+        services.AddSingleton<IncrementalAnalysisService>();
         services.AddSingleton<ReplacementService>();
         services.AddSingleton<Records.PacketArchive>();
         services.AddSingleton<Records.DecisionRecords>();

@@ -14,6 +14,9 @@ public sealed class AppHost : WebApplicationFactory<Program>
 
     public string BaseAddress { get; private set; } = "";
 
+    /// <summary>The commands the domain's database receives while the app runs.</summary>
+    public DatabaseCommandLog Database { get; } = new();
+
     public void Start()
     {
         UseKestrel(options => options.Listen(IPAddress.Loopback, 0));
@@ -27,6 +30,7 @@ public sealed class AppHost : WebApplicationFactory<Program>
         builder.UseEnvironment("Development");
         builder.UseSetting("ConnectionStrings:CapReview", $"Data Source={Path.Combine(_folder, "capreview.db")};Pooling=False");
         builder.UseSetting("Demo:Enabled", "false");
+        builder.ConfigureServices(services => services.ConfigureDbContext<CapReview.Reviews.Storage.CapReviewDbContext>(options => options.AddInterceptors(Database)));
         // The tests sign in far more often than a person would; the limit itself is tested in CapReview.Web.Tests.
         builder.UseSetting("RateLimits:SignInPerMinute", "100000");
         // Open pages check their sessions every second here, so that a session ended elsewhere shows at once.

@@ -43,6 +43,8 @@ public sealed class ReviewsDatabase : IAsyncLifetime
 
     public Portfolio.PortfolioService Portfolio => _services.GetRequiredService<Portfolio.PortfolioService>();
 
+    public CycleOverviewService Overviews => _services.GetRequiredService<CycleOverviewService>();
+
     public CapReviewDbContext NewContext() => _services.GetRequiredService<IDbContextFactory<CapReviewDbContext>>().CreateDbContext();
 
     public async Task InitializeAsync()

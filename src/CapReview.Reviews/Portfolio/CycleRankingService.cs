@@ -23,16 +23,20 @@ public sealed class CycleRankingService(ReviewWork work)
     /// The ranking, with every MARR shifted by <paramref name="marrShift"/> effective annual points for a what-if (0 for
     /// the cycle's own); with <paramref name="afterTax"/>, on the after-tax flows at the after-tax MARR.
     /// </summary>
-    public Task<CycleRanking> RankAsync(Actor actor, int cycleId, double marrShift, CancellationToken cancellationToken, bool afterTax = false)
+    public async Task<CycleRanking> RankAsync(Actor actor, int cycleId, double marrShift, CancellationToken cancellationToken, bool afterTax = false)
+    {
+        CheckShift(marrShift);
+        CycleRankingInputs inputs = await LoadAsync(actor, cycleId, cancellationToken).ConfigureAwait(false);
+        return Rank(inputs, marrShift, afterTax);
+    }
+
+    /// <summary>What the cycle's ranking is computed from, in one read; for the board, finance and administrators.</summary>
+    public Task<CycleRankingInputs> LoadAsync(Actor actor, int cycleId, CancellationToken cancellationToken)
     {
         ArgumentNullException.ThrowIfNull(actor);
         if (!(actor.Has(Role.Reviewer) || actor.Has(Role.Finance) || actor.Has(Role.Administrator)))
         {
             throw new AccessDeniedException("Only the review board, finance and administrators see a cycle's ranking.");
-        }
-        if (!double.IsFinite(marrShift) || Math.Abs(marrShift) > 0.5)
-        {
-            throw new RuleViolationException("marrShift: shift the MARR by at most 50 points either way.");
         }
         return work.ReadAsync(async db =>
         {
@@ -43,8 +47,24 @@ public sealed class CycleRankingService(ReviewWork work)
                 .Where(p => p.BudgetCycleId == cycleId && Ranked.Contains(p.Status))
                 .OrderBy(p => p.Id).ToListAsync(cancellationToken).ConfigureAwait(false);
             PortfolioRules rules = await PortfolioRulesService.LoadAsync(db, cycleId, cancellationToken).ConfigureAwait(false);
-            return Rank(cycle, marr, [.. proposals.Select(ProposalView.Of)], rules, marrShift, afterTax);
+            return new CycleRankingInputs(cycle, marr, [.. proposals.Select(ProposalView.Of)], rules);
         }, cancellationToken);
+    }
+
+    /// <summary>The ranking computed from inputs already read (see <see cref="RankAsync"/>); reads nothing.</summary>
+    public static CycleRanking Rank(CycleRankingInputs inputs, double marrShift, bool afterTax)
+    {
+        ArgumentNullException.ThrowIfNull(inputs);
+        CheckShift(marrShift);
+        return Rank(inputs.Cycle, inputs.Marr, inputs.Proposals, inputs.Rules, marrShift, afterTax);
+    }
+
+    private static void CheckShift(double marrShift)
+    {
+        if (!double.IsFinite(marrShift) || Math.Abs(marrShift) > 0.5)
+        {
+            throw new RuleViolationException("marrShift: shift the MARR by at most 50 points either way.");
+        }
     }
 
     internal static CycleRanking Rank(BudgetCycle cycle, Marr.MarrPolicyVersion marr, IReadOnlyList<ProposalView> proposals, PortfolioRules rules, double marrShift, bool afterTax)

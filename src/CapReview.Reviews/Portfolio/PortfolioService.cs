@@ -3,27 +3,6 @@ using CapReview.Reviews.Access;
 
 namespace CapReview.Reviews.Portfolio;
 
-/// <summary>A what-if on the portfolio: another MARR, another capital limit now, or the other objective.</summary>
-public sealed record PortfolioQuery(double MarrShift = 0.0, decimal? CapitalLimit = null, SelectionObjective? Objective = null, bool AfterTax = false);
-
-/// <summary>A point of the efficient frontier: the best total worth at a capital limit.</summary>
-public sealed record FrontierPoint(double Limit, Selection Selection);
-
-/// <summary>The funded portfolio: the optimal set, the greedy fill by ranking beside it, and the frontier.</summary>
-/// <param name="Ranking">The ranking the selection was made from.</param>
-/// <param name="Problem">The selection problem as the solver saw it.</param>
-/// <param name="Objective">What was maximised.</param>
-/// <param name="Optimal">The set of greatest total worth within the rules.</param>
-/// <param name="Greedy">The fill by ranking, for comparison.</param>
-/// <param name="Frontier">The best total worth at capital limits from zero to all worthwhile proposals.</param>
-/// <param name="Excluded">Proposals left out before selecting, with the reason.</param>
-public sealed record PortfolioResult(CycleRanking Ranking, SelectionProblem Problem, SelectionObjective Objective, Selection Optimal, Selection Greedy,
-    IReadOnlyList<FrontierPoint> Frontier, IReadOnlyList<(string Reference, string Reason)> Excluded)
-{
-    /// <summary>How much more the optimal set is worth than the greedy fill.</summary>
-    public double Advantage => Optimal.TotalWorth - Greedy.TotalWorth;
-}
-
 /// <summary>
 /// Selects the cycle's funded portfolio: every ranked proposal a candidate with its first cost, later capital and
 /// worth on the cycle's basis; at most one per exclusive group (exactly one for a mandatory group); dependents only
@@ -37,15 +16,23 @@ public sealed class PortfolioService(CycleRankingService rankings)
 
     public async Task<PortfolioResult> SelectAsync(Actor actor, int cycleId, PortfolioQuery query, CancellationToken cancellationToken)
     {
-        ArgumentNullException.ThrowIfNull(query);
-        if (query.CapitalLimit is < 0m)
-        {
-            throw new Common.RuleViolationException("capitalLimit: the capital limit cannot be negative.");
-        }
-        CycleRanking ranking = await rankings.RankAsync(actor, cycleId, query.MarrShift, cancellationToken, query.AfterTax).ConfigureAwait(false);
+        CheckQuery(query);
+        CycleRankingInputs inputs = await rankings.LoadAsync(actor, cycleId, cancellationToken).ConfigureAwait(false);
+        return Select(inputs, query, cancellationToken);
+    }
+
+    /// <summary>
+    /// The portfolio computed from inputs already read; reads nothing, but runs the solver (up to
+    /// <see cref="SolverTimeLimit"/>, then the frontier), so callers on a UI thread run it elsewhere.
+    /// </summary>
+    public static PortfolioResult Select(CycleRankingInputs inputs, PortfolioQuery query, CancellationToken cancellationToken)
+    {
+        CheckQuery(query);
+        CycleRanking ranking = CycleRankingService.Rank(inputs, query.MarrShift, query.AfterTax);
         SelectionObjective objective = query.Objective ?? ranking.Cycle.Objective;
         var (problem, excluded) = ProblemOf(ranking, (double)(query.CapitalLimit ?? ranking.Cycle.CapitalLimit), objective);
         Selection optimal = CapitalSelection.Optimal(problem, SolverTimeLimit);
+        cancellationToken.ThrowIfCancellationRequested();
         Selection greedy = CapitalSelection.Greedy(problem);
         // Up to what every worthwhile proposal and the dearest way of meeting each mandatory group would need together.
         double mandatory = (problem.MandatoryGroups ?? []).Sum(g => problem.Candidates.Where(c => g.Contains(c.Id)).Max(c => c.FirstCost));
@@ -53,7 +40,17 @@ public sealed class PortfolioService(CycleRankingService rankings)
         var limits = Enumerable.Range(0, FrontierSteps + 1).Select(k => Math.Round(top * k / FrontierSteps, 2))
             .Append(problem.CapitalLimit).Distinct().Order();
         var frontier = CapitalSelection.Frontier(problem, limits, FrontierTimeLimit).Select(f => new FrontierPoint(f.Limit, f.Selection)).ToList();
+        cancellationToken.ThrowIfCancellationRequested();
         return new PortfolioResult(ranking, problem, objective, optimal, greedy, frontier, excluded);
+    }
+
+    private static void CheckQuery(PortfolioQuery query)
+    {
+        ArgumentNullException.ThrowIfNull(query);
+        if (query.CapitalLimit is < 0m)
+        {
+            throw new Common.RuleViolationException("capitalLimit: the capital limit cannot be negative.");
+        }
     }
 
     /// <summary>The cycle's rules as a selection problem over the ranked proposals.</summary>

@@ -14,6 +14,7 @@ public sealed record ProposalView(
     int Revision,
     IReadOnlyList<VersionView> Versions)
 {
+    [System.Text.Json.Serialization.JsonIgnore]
     public VersionView Latest => Versions[^1];
 
     /// <summary>The version with this number; a missing one is not found, like a proposal the caller may not see.</summary>

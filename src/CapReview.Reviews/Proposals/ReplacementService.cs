@@ -23,10 +23,15 @@ public sealed record ReplacementReview(ProposalView Proposal, VersionView Versio
 /// </summary>
 public sealed class ReplacementService(ProposalService proposals, CycleService cycles, MarrPolicyService policies)
 {
-    public async Task<ReplacementReview> AdviseAsync(Actor actor, int proposalId, CancellationToken cancellationToken)
+    /// <summary>The advice on the latest submitted version, else the draft.</summary>
+    public Task<ReplacementReview> AdviseAsync(Actor actor, int proposalId, CancellationToken cancellationToken) =>
+        AdviseAsync(actor, proposalId, null, cancellationToken);
+
+    /// <summary>The advice on version <paramref name="versionNumber"/> (null: the latest submitted, else the draft).</summary>
+    public async Task<ReplacementReview> AdviseAsync(Actor actor, int proposalId, int? versionNumber, CancellationToken cancellationToken)
     {
         ProposalView proposal = await proposals.GetAsync(actor, proposalId, cancellationToken).ConfigureAwait(false);
-        VersionView version = proposal.Versions.LastOrDefault(v => v.IsFrozen) ?? proposal.Latest;
+        VersionView version = versionNumber is int number ? proposal.Version(number) : proposal.Versions.LastOrDefault(v => v.IsFrozen) ?? proposal.Latest;
         ReplacementEstimates estimates = version.Assumptions.Replacement
             ?? throw new RuleViolationException($"Version {version.Number} of {proposal.Reference} has no estimates of the asset it replaces.");
 

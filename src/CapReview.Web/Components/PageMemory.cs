@@ -41,9 +41,3 @@ public sealed class PageMemory(PreferenceService preferences)
         return int.TryParse(value, NumberStyles.None, CultureInfo.InvariantCulture, out int id) ? id : null;
     }
 }
-
-/// <summary>The ranking page's filters, sort and what-if as remembered.</summary>
-public sealed record RankingView(string Category, string Risk, string SortKey, bool Descending, double Shift, bool AfterTax, bool ShowRisk);
-
-/// <summary>The portfolio page's what-if as remembered.</summary>
-public sealed record PortfolioView(string Limit, double Shift, string Objective, bool AfterTax);

@@ -1,4 +1,5 @@
 using CapReview.Reviews.Access;
+using CapReview.Web.Components.Layout;
 using CapReview.Web.Identity;
 using Microsoft.AspNetCore.Components;
 using Microsoft.AspNetCore.Components.Authorization;
@@ -10,8 +11,11 @@ namespace CapReview.Web.Components;
 /// open page's session ends elsewhere (<see cref="CircuitSessionCheck"/>), the page goes to the sign-in rather than
 /// render for nobody.
 /// </summary>
-public abstract class SignedInComponent : ComponentBase
+public abstract class SignedInComponent : ComponentBase, IHandleEvent
 {
+    /// <summary>The page's boundary (<c>@ref</c>), which shows a failure of the page's own actions.</summary>
+    protected PageBoundary? Boundary { get; set; }
+
     [CascadingParameter]
     private Task<AuthenticationState>? AuthenticationState { get; set; }
 
@@ -29,6 +33,33 @@ public abstract class SignedInComponent : ComponentBase
             return;
         }
         await base.SetParametersAsync(parameters);
+    }
+
+    /// <summary>
+    /// Runs the page's own event handlers as <see cref="ComponentBase"/> does, but a failure is shown by the page's
+    /// boundary instead of ending the browser's session: an error boundary only catches what its children throw, and
+    /// the page is not its own child.
+    /// </summary>
+    async Task IHandleEvent.HandleEventAsync(EventCallbackWorkItem callback, object? arg)
+    {
+        Task task = callback.InvokeAsync(arg);
+        if (!task.IsCompleted)
+        {
+            StateHasChanged();
+        }
+        try
+        {
+            await task;
+        }
+        catch (OperationCanceledException) when (task.IsCanceled)
+        {
+            return;
+        }
+        catch (Exception failure) when (Boundary is not null)
+        {
+            Boundary.Report(failure);
+        }
+        StateHasChanged();
     }
 
     protected async Task<Actor> ActorAsync()

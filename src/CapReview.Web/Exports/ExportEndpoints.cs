@@ -6,22 +6,20 @@ using CapReview.Reviews.Portfolio;
 using CapReview.Web.Api;
 using CapReview.Web.Formatting;
 using CapReview.Web.Identity;
-using Microsoft.AspNetCore.Authorization;
 
 namespace CapReview.Web.Exports;
 
 /// <summary>
 /// Downloads of a proposal version (one workbook, or one CSV per table), and of a cycle's ranking and funded
-/// portfolio as CSV or XLSX, for the board, finance and administrators, with the same what-if settings as the pages: <c>shift</c> (MARR points), <c>limit</c> (capital now),
+/// portfolio as CSV or XLSX, for the board, finance and administrators (a browser's cookie or an API token), with the same what-if settings as the pages: <c>shift</c> (MARR points), <c>limit</c> (capital now),
 /// <c>objective</c> (presentWorth or annualWorth) and <c>basis</c> (beforeTax or afterTax).
 /// </summary>
 public static class ExportEndpoints
 {
-    private const string Roles = "Reviewer,Finance,Administrator";
-
     public static IEndpointRouteBuilder MapExportEndpoints(this IEndpointRouteBuilder routes)
     {
-        var group = routes.MapGroup("/cycles/{id:int}").RequireAuthorization(new AuthorizeAttribute { Roles = Roles }).ExcludeFromDescription();
+        // The board, finance and administrators, in a browser or with an API token.
+        var group = routes.MapGroup("/cycles/{id:int}").RequireAuthorization(IdentityRegistration.BoardDownloads).ExcludeFromDescription();
         group.MapGet("/ranking/{format:regex(^(csv|xlsx)$)}", RankingAsync);
         group.MapGet("/portfolio/{format:regex(^(csv|xlsx)$)}", PortfolioAsync);
         // A version is for whoever may read the proposal (its lead, the board, finance once decided, administrators), in a browser or with an API token.

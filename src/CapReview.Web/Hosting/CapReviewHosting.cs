@@ -165,6 +165,8 @@ public static partial class CapReviewHosting
         app.MapRiskAnalysisEndpoints();
         app.MapHealthEndpoints();
         app.MapCycleEndpoints();
+        app.MapPortfolioEndpoints();
+        app.MapVersionAnalysisEndpoints();
         app.MapProposalEndpoints();
         app.MapProposalWorkflowEndpoints();
         app.MapBoardEndpoints();

@@ -42,11 +42,18 @@ public sealed class ApiTokenAuthenticationHandler(
     }
 
     /// <summary>Challenges only a request that presented a token; otherwise the sign-in cookie's rules answer.</summary>
-    protected override Task HandleChallengeAsync(AuthenticationProperties properties)
+    protected override Task HandleChallengeAsync(AuthenticationProperties properties) =>
+        PresentsToken(Request) ? base.HandleChallengeAsync(properties) : Task.CompletedTask;
+
+    /// <summary>Refuses only a request that presented a token (403); a browser's is sent to the not-for-your-role page by the cookie's rules.</summary>
+    protected override Task HandleForbiddenAsync(AuthenticationProperties properties) =>
+        PresentsToken(Request) ? base.HandleForbiddenAsync(properties) : Task.CompletedTask;
+
+    /// <summary>Whether the request carries an API token in its Authorization header.</summary>
+    public static bool PresentsToken(HttpRequest request)
     {
-        string? header = Request.Headers.Authorization;
-        return header is not null && header.StartsWith("Bearer ", StringComparison.OrdinalIgnoreCase)
-            ? base.HandleChallengeAsync(properties)
-            : Task.CompletedTask;
+        ArgumentNullException.ThrowIfNull(request);
+        string? header = request.Headers.Authorization;
+        return header is not null && header.StartsWith("Bearer ", StringComparison.OrdinalIgnoreCase);
     }
 }

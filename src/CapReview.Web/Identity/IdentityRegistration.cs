@@ -21,6 +21,9 @@ public static class IdentityRegistration
     /// <summary>JSON endpoints: a cookie or an API token.</summary>
     public const string Api = "api";
 
+    /// <summary>A cycle's ranking and portfolio downloads: a cookie or an API token, of the board, finance or an administrator.</summary>
+    public const string BoardDownloads = "board-downloads";
+
     /// <param name="services">The app's services.</param>
     /// <param name="database">Where the accounts, tokens and data-protection keys are kept.</param>
     /// <param name="secureCookiesOnly">
@@ -132,7 +135,10 @@ public static class IdentityRegistration
             .AddPolicy(SignedIn, policy => policy.RequireAuthenticatedUser())
             .AddPolicy(Api, policy => policy
                 .AddAuthenticationSchemes(IdentityConstants.ApplicationScheme, ApiTokenAuthenticationHandler.SchemeName)
-                .RequireAuthenticatedUser());
+                .RequireAuthenticatedUser())
+            .AddPolicy(BoardDownloads, policy => policy
+                .AddAuthenticationSchemes(IdentityConstants.ApplicationScheme, ApiTokenAuthenticationHandler.SchemeName)
+                .RequireRole(RoleNames.Reviewer, RoleNames.Finance, RoleNames.Administrator));
         services.AddCascadingAuthenticationState();
         services.AddSingleton(sessions);
         services.AddScoped<Microsoft.AspNetCore.Components.Authorization.AuthenticationStateProvider, CircuitSessionCheck>();
@@ -145,11 +151,15 @@ public static class IdentityRegistration
         return services;
     }
 
-    /// <summary>The JSON API and its OpenAPI document: answered with status codes, never with the sign-in page.</summary>
+    /// <summary>
+    /// The JSON API and its OpenAPI document, and any request sent with an API token (a download fetched by a
+    /// script): answered with status codes, never with the sign-in page.
+    /// </summary>
     public static bool IsMachineReadable(HttpContext context)
     {
         ArgumentNullException.ThrowIfNull(context);
         return context.Request.Path.StartsWithSegments("/api", StringComparison.OrdinalIgnoreCase)
+            || ApiTokenAuthenticationHandler.PresentsToken(context.Request)
             || context.Request.Path.StartsWithSegments("/openapi", StringComparison.OrdinalIgnoreCase);
     }
 

@@ -32,14 +32,23 @@ public sealed partial class DocumentedExamples(ApiFactory factory) : IClassFixtu
 
         string[] lines = request.Groups[1].Value.Split('\n');
         string[] requestLine = lines[0].Split(' ');
-        string body = request.Groups[1].Value[(request.Groups[1].Value.IndexOf("\n\n", StringComparison.Ordinal) + 2)..];
+        int blank = request.Groups[1].Value.IndexOf("\n\n", StringComparison.Ordinal);
+        string body = blank < 0 ? "" : request.Groups[1].Value[(blank + 2)..];
 
-        // The documented "Authorization: Bearer <your token>" is this test's own token.
-        using HttpClient client = await factory.CreateAuthenticatedClientAsync();
+        // The cycles the examples read come first, so their numbers are the document's whatever the examples' order.
+        await ExampleCycles.EnsureAsync(factory);
+        // The documented "Authorization: Bearer <your token>" is this test's own token: a lead's, or a board member's.
+        using HttpClient client = marker.Groups[3].Success
+            ? (await factory.TokenClientAsync("examples.board@tarnby.example", CapReview.Web.Identity.RoleNames.Reviewer)).Client
+            : await factory.CreateAuthenticatedClientAsync();
         using var content = new StringContent(body, Encoding.UTF8);
         content.Headers.ContentType = new MediaTypeHeaderValue("application/json");
-        using var message = new HttpRequestMessage(new HttpMethod(requestLine[0]), requestLine[1]) { Content = content };
+        using var message = new HttpRequestMessage(new HttpMethod(requestLine[0]), requestLine[1]) { Content = body.Length == 0 ? null : content };
         using HttpResponseMessage actual = await client.SendAsync(message);
+        if (Environment.GetEnvironmentVariable("CAPREVIEW_SHOW_EXAMPLES") is { Length: > 0 } folder)
+        {
+            await File.WriteAllTextAsync(Path.Combine(folder, name + ".json"), await actual.Content.ReadAsStringAsync());
+        }
 
         JsonElement expected = JsonDocument.Parse(response.Groups[1].Value).RootElement;
         int status = marker.Groups[2].Success ? int.Parse(marker.Groups[2].Value, CultureInfo.InvariantCulture)
@@ -52,6 +61,6 @@ public sealed partial class DocumentedExamples(ApiFactory factory) : IClassFixtu
     private static string ApiDocument() =>
         File.ReadAllText(RepositoryFolder.Path("docs", "api.md")).Replace("\r\n", "\n", StringComparison.Ordinal);
 
-    [GeneratedRegex(@"<!-- example: ([\w-]+)(?: \(answers (\d{3})\))? -->")]
+    [GeneratedRegex(@"<!-- example: ([\w-]+)(?: \(answers (\d{3})\))?( \(as a board member\))? -->")]
     private static partial Regex ExampleMarker();
 }

@@ -188,11 +188,13 @@ public sealed class EvaluationApiTests(ApiFactory factory) : IClassFixture<ApiFa
             .Select(o => o.Value.TryGetProperty("operationId", out var op) ? op.GetString() : o.Name + "?").Order(StringComparer.Ordinal).ToList();
         Assert.Equal(
         [
-            "AddComment", "AddContingency", "AddMarrPolicy", "CreateCycle", "CreateEvaluation", "CreateProposal", "CreateRiskAnalysis", "DownloadPacket",
-            "EditDraftVersion", "ExportCycle", "GetCycle", "GetCycleRanking", "GetPacketJob", "GetPortfolioRules", "GetProposal",
-            "GetProposalVersion", "ImportCycle", "ListComments", "ListCyclePackets", "ListCycles", "ListDecisions", "ListMarrPolicies",
-            "ListProposals", "ListSignOffs", "MoveCycle", "RecordDecision", "RemoveContingency", "RemoveExclusiveGroup", "RequestPackets",
-            "ReviseProposal", "SaveExclusiveGroup", "SetCyclePlan", "SignOffCycle", "SubmitProposal", "WithdrawProposal",
+            "AddComment", "AddContingency", "AddMarrPolicy", "CreateCycle", "CreateEvaluation", "CreateProposal",
+            "CreateRiskAnalysis", "DownloadPacket", "EditDraftVersion", "ExportCycle", "GetCycle", "GetCyclePortfolio",
+            "GetCycleRanking", "GetPacketJob", "GetPortfolioRules", "GetProposal", "GetProposalVersion",
+            "GetVersionIncrementalAnalysis", "GetVersionReplacementAnalysis", "ImportCycle", "ListComments", "ListCyclePackets",
+            "ListCycles", "ListDecisions", "ListMarrPolicies", "ListProposals", "ListSignOffs", "MoveCycle", "RecordDecision",
+            "RemoveContingency", "RemoveExclusiveGroup", "RequestPackets", "ReviseProposal", "SaveExclusiveGroup",
+            "SetCyclePlan", "SignOffCycle", "SubmitProposal", "WithdrawProposal",
         ], operations);
     }
 
