@@ -4,6 +4,7 @@ using Microsoft.AspNetCore.Hosting.Server;
 using Microsoft.AspNetCore.Hosting.Server.Features;
 using Microsoft.AspNetCore.Mvc.Testing;
 using Microsoft.Extensions.DependencyInjection;
+using Microsoft.Extensions.Logging;
 
 namespace CapReview.Browser.Tests;
 
@@ -17,6 +18,9 @@ public sealed class AppHost : WebApplicationFactory<Program>
     /// <summary>The commands the domain's database receives while the app runs.</summary>
     public DatabaseCommandLog Database { get; } = new();
 
+    /// <summary>What the app logs at warning and above while it runs.</summary>
+    public ServerLog Log { get; } = new();
+
     public void Start()
     {
         UseKestrel(options => options.Listen(IPAddress.Loopback, 0));
@@ -28,6 +32,7 @@ public sealed class AppHost : WebApplicationFactory<Program>
     protected override void ConfigureWebHost(IWebHostBuilder builder)
     {
         builder.UseEnvironment("Development");
+        builder.ConfigureLogging(logging => logging.AddProvider(Log));
         builder.UseSetting("ConnectionStrings:CapReview", $"Data Source={Path.Combine(_folder, "capreview.db")};Pooling=False");
         builder.UseSetting("Demo:Enabled", "false");
         builder.ConfigureServices(services => services.ConfigureDbContext<CapReview.Reviews.Storage.CapReviewDbContext>(options => options.AddInterceptors(Database)));

@@ -24,8 +24,17 @@ public sealed class PrerenderInChromium(BrowserFixture browser) : IClassFixture<
     private async Task VisitAsync(IPage page, string path, string rowTestId)
     {
         browser.App.Database.Clear();
+        var console = new System.Collections.Concurrent.ConcurrentQueue<string>();
+        page.Console += (_, m) => console.Enqueue(m.Type + ": " + m.Text);
         await page.GotoAsync(browser.App.BaseAddress + path);
-        await page.Locator("[data-testid=interactive]").WaitForAsync(new() { State = WaitForSelectorState.Attached });
+        try
+        {
+            await page.Locator("[data-testid=interactive]").WaitForAsync(new() { State = WaitForSelectorState.Attached });
+        }
+        catch (TimeoutException ex)
+        {
+            throw new TimeoutException("The page never went live. The server logged:" + Environment.NewLine + browser.App.Log.Errors(Microsoft.Extensions.Logging.LogLevel.Warning) + Environment.NewLine + string.Join(Environment.NewLine, console), ex);
+        }
         await Assertions.Expect(page.GetByTestId(rowTestId).First).ToBeVisibleAsync();
         await page.WaitForLoadStateAsync(LoadState.NetworkIdle);
         await Task.Delay(500);

@@ -91,6 +91,15 @@ public static class TaxSpecReader
             errors.Add(new($"{path}.salvage", "The salvage must be from zero to the basis."));
             return (null, 1);
         }
+        // A quarter or month that the chosen depreciation does not read would be stored and silently ignored.
+        bool periodsRead = method == DepreciationMethod.Macrs && spec.Convention is MacrsConvention.MidQuarter or MacrsConvention.MidMonth
+            || method == DepreciationMethod.Macrs && spec.Convention is null && spec.PropertyClass is MacrsClass.ResidentialRental or MacrsClass.Nonresidential;
+        if (!periodsRead && (spec.PlacedInPeriod is not null || spec.DisposalPeriod is not null))
+        {
+            string field = spec.PlacedInPeriod is not null ? "placedInPeriod" : "disposalPeriod";
+            errors.Add(new($"{path}.{field}", "Only MACRS with the mid-quarter or mid-month convention takes a quarter or month placed in service or of disposal; leave it out."));
+            return (null, 1);
+        }
         if (method == DepreciationMethod.Macrs)
         {
             if (spec.PropertyClass is not MacrsClass propertyClass || !Enum.IsDefined(propertyClass))

@@ -42,7 +42,8 @@ public static partial class CapReviewHosting
         services.AddScoped<DemoScenario>();
         services.AddScoped<DemoDecidedCycle>();
 
-        services.AddRazorComponents().AddInteractiveServerComponents();
+        services.AddRazorComponents().AddInteractiveServerComponents()
+            .AddHubOptions(options => options.MaximumReceiveMessageSize = CapReview.Web.Components.PersistedText.MaxMessageBytes);
         services.AddProblemDetails();
         services.ConfigureHttpJsonOptions(options => ApiJson.Configure(options.SerializerOptions));
         services.AddOpenApi("v1", options => options.AddDocumentTransformer((document, _, _) =>

@@ -1,5 +1,6 @@
 using System.Globalization;
 using CapReview.Engine.Depreciation;
+using CapReview.Engine.Evaluation;
 using CapReview.Engine.Specifications;
 using CapReview.Engine.Taxes;
 using CapReview.Engine.Validation;
@@ -164,5 +165,24 @@ public sealed class TaxDraft
             AfterTaxMarr = AfterTaxMarrPercent.Trim().Length == 0 ? null : new RateSpec { Value = Percent(AfterTaxMarrPercent, "tax.afterTaxMarr.value") },
         };
         return (spec, errors);
+    }
+
+    /// <summary>
+    /// The model after tax with these settings: null with no errors when tax is off or there is no valid model yet,
+    /// else the engine's evaluation or the fields that stop it.
+    /// </summary>
+    public (AfterTaxEvaluation? Result, IReadOnlyList<InputError> Errors) Evaluate(ModelSpec? model, CultureInfo culture)
+    {
+        var (spec, reading) = Read(culture);
+        if (!Enabled || model is null)
+        {
+            return (null, []);
+        }
+        if (reading.Count > 0)
+        {
+            return (null, reading);
+        }
+        var outcome = AfterTaxEvaluator.Evaluate(model, spec!);
+        return (outcome.Value, outcome.Errors);
     }
 }

@@ -87,6 +87,23 @@ public class AfterTaxEvaluatorTests
         {
             Depreciation = new DepreciationSpec { Method = DepreciationMethod.Macrs, PropertyClass = MacrsClass.FiveYear, Convention = MacrsConvention.MidQuarter },
         }));
+        // The half-year convention and the other methods read no quarter or month (IRS Publication 946, "Which Convention Applies?").
+        Assert.Contains("tax.depreciation.placedInPeriod", Fields(Press(), StraightLine with
+        {
+            Depreciation = new DepreciationSpec { Method = DepreciationMethod.Macrs, PropertyClass = MacrsClass.FiveYear, PlacedInPeriod = 3 },
+        }));
+        Assert.Contains("tax.depreciation.disposalPeriod", Fields(Press(), StraightLine with
+        {
+            Depreciation = new DepreciationSpec { Method = DepreciationMethod.Macrs, PropertyClass = MacrsClass.FiveYear, Convention = MacrsConvention.HalfYear, DisposalPeriod = 2 },
+        }));
+        Assert.Contains("tax.depreciation.placedInPeriod", Fields(Press(), StraightLine with
+        {
+            Depreciation = new DepreciationSpec { Method = DepreciationMethod.StraightLine, Life = 5, PlacedInPeriod = 1 },
+        }));
+        Assert.Empty(Fields(Press(), StraightLine with
+        {
+            Depreciation = new DepreciationSpec { Method = DepreciationMethod.Macrs, PropertyClass = MacrsClass.Nonresidential, PlacedInPeriod = 7, DisposalPeriod = 3 },
+        }));
         Assert.Contains("tax.loan.term", Fields(Press(), StraightLine with { Loan = new LoanSpec { Share = 0.5, Rate = 0.05 } }));
         Assert.Contains("tax.credits[0].year", Fields(Press(), StraightLine with { Credits = [new TaxCreditSpec { Year = 9, Amount = 1 }] }));
         Assert.Contains("tax.afterTaxMarr.value", Fields(Press(), StraightLine with { AfterTaxMarr = new RateSpec() }));
