@@ -124,7 +124,7 @@ public sealed class BudgetCycleTransitionTests
         var empty = Assert.Throws<RuleViolationException>(() => cycle.SignOff(Reviewer, [], false, 0, "[]", At));
         Assert.Equal("The cycle has no proposals to sign off.", empty.Message);
         var twice = Assert.Throws<RuleViolationException>(() => cycle.SignOff(Reviewer, [decided], true, 1, "[]", At));
-        Assert.Equal("You have already signed off this cycle.", twice.Message);
+        Assert.Equal("You have already signed off this cycle's decisions as they stand.", twice.Message);
         Assert.Throws<AccessDeniedException>(() => cycle.SignOff(Finance, [decided], false, 0, "[]", At));
         Assert.Equal(CycleStatus.Open, cycle.Status);
     }

@@ -33,7 +33,7 @@ public sealed class CycleViewTests(ReviewsDatabase db) : IClassFixture<ReviewsDa
         Assert.Equal(-120_000 - Financial.PV(0.08, 10, 24_000), row.Evaluation!.PresentWorth, 6);
         Assert.True(row.Decidable);
         Assert.True(overview.CanSignOff);
-        Assert.Empty(overview.SignOffs);
+        Assert.Empty(overview.SignOffs.Current);
         Assert.False(overview.PacketsMissing);
 
         var asFinance = await db.Overviews.GetAsync(Finance, cycle.Id, None);

@@ -48,8 +48,38 @@ public sealed class DecisionTests(ReviewsDatabase db) : IClassFixture<ReviewsDat
         await db.Decisions.SignOffAsync(SecondReviewer, cycle.Id, None);
         Assert.Equal(CycleStatus.Decided, (await db.Cycles.ListAsync(None)).Single(c => c.Id == cycle.Id).Status);
         var signOffs = await db.Decisions.SignOffsAsync(Reviewer, cycle.Id, None);
-        Assert.Equal([Reviewer.UserId, SecondReviewer.UserId], signOffs.Select(s => s.UserId));
+        Assert.Equal([Reviewer.UserId, SecondReviewer.UserId], signOffs.Current.Select(s => s.UserId));
+        Assert.Empty(signOffs.Superseded);
         await Assert.ThrowsAsync<RuleViolationException>(() => db.Decisions.DecideAsync(Reviewer, one.Id, DecisionOutcome.Reject, "", 0, None));
+    }
+
+    [Fact]
+    public async Task A_sign_off_counts_only_for_the_decisions_it_signed_and_a_later_decision_supersedes_it()
+    {
+        var cycle = await db.OpenCycleAsync("Superseded 2027");
+        var one = await db.Proposals.CreateDraftAsync(Lead, Draft(title: "Boiler feed pump"), None);
+        var s1 = await db.Proposals.SubmitAsync(Lead, one.Id, cycle.Id, one.Revision, None);
+        await db.Decisions.DecideAsync(Reviewer, one.Id, DecisionOutcome.Approve, "", s1.Revision, None);
+        await db.Decisions.SignOffAsync(Reviewer, cycle.Id, None);
+
+        // A submission after the first sign-off, then its decision: the first sign-off never saw it.
+        var two = await db.Proposals.CreateDraftAsync(OtherLead, Draft(title: "Dock levellers"), None);
+        var s2 = await db.Proposals.SubmitAsync(OtherLead, two.Id, cycle.Id, two.Revision, None);
+        await db.Decisions.DecideAsync(SecondReviewer, two.Id, DecisionOutcome.Reject, "Not this year", s2.Revision, None);
+        await db.Decisions.SignOffAsync(SecondReviewer, cycle.Id, None);
+        Assert.Equal(CycleStatus.Open, (await db.Cycles.ListAsync(None)).Single(c => c.Id == cycle.Id).Status);
+
+        var between = await db.Decisions.SignOffsAsync(Finance, cycle.Id, None);
+        Assert.Equal([SecondReviewer.UserId], between.Current.Select(s => s.UserId));
+        Assert.Equal([Reviewer.UserId], between.Superseded.Select(s => s.UserId));
+        Assert.Equal([one.Reference, two.Reference], between.Decisions.Select(d => d.Proposal).Order(StringComparer.Ordinal));
+
+        // The first member signs again, the set as it now stands: that decides the cycle.
+        await db.Decisions.SignOffAsync(Reviewer, cycle.Id, None);
+        Assert.Equal(CycleStatus.Decided, (await db.Cycles.ListAsync(None)).Single(c => c.Id == cycle.Id).Status);
+        var record = await db.Records.ForCycleAsync(cycle.Id, None);
+        Assert.Equal([SecondReviewer.UserId, Reviewer.UserId], record.SignOffs.Select(s => s.UserId));
+        Assert.All(record.SignOffs, s => Assert.Contains(two.Reference, s.DecisionsSigned, StringComparison.Ordinal));
     }
 
     [Fact]

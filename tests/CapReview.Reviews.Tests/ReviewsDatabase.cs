@@ -45,6 +45,8 @@ public sealed class ReviewsDatabase : IAsyncLifetime
 
     public CycleOverviewService Overviews => _services.GetRequiredService<CycleOverviewService>();
 
+    public Records.DecisionRecords Records => _services.GetRequiredService<Records.DecisionRecords>();
+
     public CapReviewDbContext NewContext() => _services.GetRequiredService<IDbContextFactory<CapReviewDbContext>>().CreateDbContext();
 
     public async Task InitializeAsync()

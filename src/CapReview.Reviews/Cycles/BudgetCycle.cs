@@ -124,8 +124,10 @@ public sealed class BudgetCycle
     }
 
     /// <summary>
-    /// A board member signs off every decision of the cycle (<paramref name="decisionsSigned"/>, as JSON): refused while
-    /// a proposal is still open, or when they have signed already. The last required sign-off makes the cycle decided.
+    /// A board member signs off every decision of the cycle as it stands (<paramref name="decisionsSigned"/>, as JSON):
+    /// refused while a proposal is still open, or when they have signed this same set already
+    /// (<paramref name="alreadySigned"/>). <paramref name="signOffsBefore"/> counts the earlier sign-offs of this same
+    /// set only; the last required one makes the cycle decided.
     /// </summary>
     public SignOff SignOff(Actor board, IReadOnlyCollection<Proposal> proposals, bool alreadySigned, int signOffsBefore, string decisionsSigned, DateTimeOffset at)
     {
@@ -148,7 +150,7 @@ public sealed class BudgetCycle
         }
         if (alreadySigned)
         {
-            throw new RuleViolationException("You have already signed off this cycle.");
+            throw new RuleViolationException("You have already signed off this cycle's decisions as they stand.");
         }
         var signOff = new SignOff(Id, board.UserId, board.DisplayName, at, decisionsSigned);
         if (signOffsBefore + 1 >= RequiredSignOffs)

@@ -8,10 +8,10 @@ namespace CapReview.Reviews.Cycles;
 /// <param name="Cycle">The cycle.</param>
 /// <param name="Marr">The MARR version it is pinned to.</param>
 /// <param name="Rows">Its proposals, each with its measures at the cycle's MARR.</param>
-/// <param name="SignOffs">The board's sign-offs so far.</param>
+/// <param name="SignOffs">The board's sign-offs so far: those that count, those superseded and those imported.</param>
 /// <param name="Packets">The stored packets of a decided cycle; empty before.</param>
 /// <param name="PacketsMissing">A decided cycle lacks its cycle packet or a decided proposal's packet.</param>
 /// <param name="PacketJob">The job that makes a decided cycle's packets; null before it is decided or when none was queued.</param>
 /// <param name="CanSignOff">Whether the actor may sign off the cycle now.</param>
-public sealed record CycleOverview(BudgetCycle Cycle, MarrPolicyVersion Marr, IReadOnlyList<CycleProposalRow> Rows, IReadOnlyList<SignOff> SignOffs,
+public sealed record CycleOverview(BudgetCycle Cycle, MarrPolicyVersion Marr, IReadOnlyList<CycleProposalRow> Rows, CycleSignOffs SignOffs,
     IReadOnlyList<PacketSummary> Packets, bool PacketsMissing, PacketJobView? PacketJob, bool CanSignOff);

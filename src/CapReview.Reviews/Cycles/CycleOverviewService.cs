@@ -34,7 +34,7 @@ public sealed class CycleOverviewService(CycleService cycles, ProposalService pr
             int decided = rows.Count(r => r.Proposal.Status is ProposalStatus.Approved or ProposalStatus.Rejected or ProposalStatus.ReturnedForChanges);
             packetsMissing = !packets.Any(p => p.Kind == PacketKind.Cycle) || packets.Count(p => p.Kind == PacketKind.Proposal) < decided;
         }
-        bool canSignOff = actor.Has(Role.Reviewer) && cycle.Status is CycleStatus.Open or CycleStatus.InReview;
+        bool canSignOff = actor.Has(Role.Reviewer) && cycle.Status is CycleStatus.Open or CycleStatus.InReview && !signOffs.HasSigned(actor.UserId);
         return new CycleOverview(cycle, marr, rows, signOffs, packets, packetsMissing, packetJob, canSignOff);
     }
 }

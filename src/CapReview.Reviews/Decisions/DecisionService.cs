@@ -1,5 +1,4 @@
 using System.Globalization;
-using System.Text.Json;
 using CapReview.Reviews.Access;
 using CapReview.Reviews.Audit;
 using CapReview.Reviews.Common;
@@ -66,8 +65,9 @@ public sealed class DecisionService(ReviewWork work, AuditTrail audit, TimeProvi
     }
 
     /// <summary>
-    /// Signs off every decision of the cycle; the last required sign-off makes the cycle decided and queues the making of
-    /// its packets in the same transaction (<see cref="Records.PacketJobs"/>), whoever signs and through whichever face.
+    /// Signs off every decision of the cycle as they stand (<see cref="CycleSignOffs"/>): the last required sign-off of
+    /// that same set makes the cycle decided and queues the making of its packets in the same transaction
+    /// (<see cref="Records.PacketJobs"/>), whoever signs and through whichever face.
     /// </summary>
     public async Task<SignOff> SignOffAsync(Actor actor, int cycleId, CancellationToken cancellationToken)
     {
@@ -79,22 +79,12 @@ public sealed class DecisionService(ReviewWork work, AuditTrail audit, TimeProvi
             BudgetCycle cycle = await db.BudgetCycles.SingleOrDefaultAsync(c => c.Id == cycleId, cancellationToken).ConfigureAwait(false)
                 ?? throw new NotFoundException("There is no such budget cycle.");
             var proposals = await db.Proposals.Where(p => p.BudgetCycleId == cycleId).ToListAsync(cancellationToken).ConfigureAwait(false);
-            bool alreadySigned = await db.SignOffs.AnyAsync(s => s.BudgetCycleId == cycleId && s.UserId == actor.UserId, cancellationToken).ConfigureAwait(false);
-            int signOffsBefore = await db.SignOffs.CountAsync(s => s.BudgetCycleId == cycleId, cancellationToken).ConfigureAwait(false);
-            var ids = proposals.Select(p => p.Id).ToList();
-            var latest = (await db.Decisions.Where(d => ids.Contains(d.ProposalId)).ToListAsync(cancellationToken).ConfigureAwait(false))
-                .GroupBy(d => d.ProposalId).Select(g => g.OrderBy(d => d.Id).Last()).ToList();
-            var signed = latest.Join(proposals, d => d.ProposalId, p => p.Id, (d, p) => new
-            {
-                Proposal = p.Reference,
-                Version = d.VersionNumber,
-                d.AssumptionsHash,
-                Outcome = d.Outcome.ToString(),
-            }).OrderBy(x => x.Proposal, StringComparer.Ordinal).ToArray();
+            CycleSignOffs before = await ReadSignOffsAsync(db, cycleId, proposals, cancellationToken).ConfigureAwait(false);
+            var signed = before.Decisions;
             string cycleBefore = cycle.Status.ToString();
-            SignOff signOff = cycle.SignOff(actor, proposals, alreadySigned, signOffsBefore, JsonSerializer.Serialize(signed), clock.GetUtcNow());
+            SignOff signOff = cycle.SignOff(actor, proposals, before.HasSigned(actor.UserId), before.Current.Count, SignedDecision.Serialize(signed), clock.GetUtcNow());
             db.SignOffs.Add(signOff);
-            int count = signOffsBefore + 1;
+            int count = before.Current.Count + 1;
             if (cycle.Status == CycleStatus.Decided)
             {
                 await Records.PacketJobs.QueueAsync(db, cycleId, actor, signOff.SignedAt, cancellationToken).ConfigureAwait(false);
@@ -129,22 +119,32 @@ public sealed class DecisionService(ReviewWork work, AuditTrail audit, TimeProvi
         }, cancellationToken);
     }
 
-    /// <summary>The sign-offs of a cycle, for the board, finance and administrators.</summary>
-    public Task<IReadOnlyList<SignOff>> SignOffsAsync(Actor actor, int cycleId, CancellationToken cancellationToken)
+    /// <summary>The sign-offs of a cycle by what they count for (<see cref="CycleSignOffs"/>), for the board, finance and administrators.</summary>
+    public Task<CycleSignOffs> SignOffsAsync(Actor actor, int cycleId, CancellationToken cancellationToken)
     {
         ArgumentNullException.ThrowIfNull(actor);
         if (!(actor.Has(Role.Reviewer) || actor.Has(Role.Finance) || actor.Has(Role.Administrator)))
         {
             throw new AccessDeniedException("Only the board, finance and administrators see a cycle's sign-offs.");
         }
-        return work.ReadAsync<IReadOnlyList<SignOff>>(async db =>
+        return work.ReadAsync(async db =>
         {
             if (!await db.BudgetCycles.AnyAsync(c => c.Id == cycleId, cancellationToken).ConfigureAwait(false))
             {
                 throw new NotFoundException("There is no such budget cycle.");
             }
-            return await db.SignOffs.Where(s => s.BudgetCycleId == cycleId).OrderBy(s => s.Id).ToListAsync(cancellationToken).ConfigureAwait(false);
+            var proposals = await db.Proposals.Where(p => p.BudgetCycleId == cycleId).ToListAsync(cancellationToken).ConfigureAwait(false);
+            return await ReadSignOffsAsync(db, cycleId, proposals, cancellationToken).ConfigureAwait(false);
         }, cancellationToken);
+    }
+
+    /// <summary>The cycle's sign-offs against the set of decisions its proposals have now.</summary>
+    internal static async Task<CycleSignOffs> ReadSignOffsAsync(CapReviewDbContext db, int cycleId, IReadOnlyCollection<Proposal> proposals, CancellationToken cancellationToken)
+    {
+        var ids = proposals.Select(p => p.Id).ToList();
+        var decisions = await db.Decisions.Where(d => ids.Contains(d.ProposalId)).ToListAsync(cancellationToken).ConfigureAwait(false);
+        var signOffs = await db.SignOffs.Where(s => s.BudgetCycleId == cycleId).OrderBy(s => s.Id).ToListAsync(cancellationToken).ConfigureAwait(false);
+        return CycleSignOffs.Of(signOffs, SignedDecision.SetOf(proposals, decisions));
     }
 
     private static void RequireBoard(Actor actor)

@@ -7,7 +7,7 @@ using Microsoft.EntityFrameworkCore;
 
 namespace CapReview.Reviews.Records;
 
-/// <summary>What a decided cycle's record holds: the cycle, its MARR, the sign-offs and each proposal's latest decision.</summary>
+/// <summary>What a decided cycle's record holds: the cycle, its MARR, the sign-offs of the decisions as they stand and each proposal's latest decision.</summary>
 public sealed record CycleRecord(BudgetCycle Cycle, MarrPolicyVersion Marr, IReadOnlyList<SignOff> SignOffs, IReadOnlyList<(ProposalView Proposal, Decision Decision)> Decided);
 
 /// <summary>Reads the record of a cycle for its packets.</summary>
@@ -19,12 +19,13 @@ public sealed class DecisionRecords(ReviewWork work)
             BudgetCycle cycle = await db.BudgetCycles.SingleOrDefaultAsync(c => c.Id == cycleId, cancellationToken).ConfigureAwait(false)
                 ?? throw new NotFoundException("There is no such budget cycle.");
             var marr = await db.MarrPolicyVersions.SingleAsync(m => m.Id == cycle.MarrPolicyVersionId, cancellationToken).ConfigureAwait(false);
-            var signOffs = await db.SignOffs.Where(s => s.BudgetCycleId == cycleId).OrderBy(s => s.Id).ToListAsync(cancellationToken).ConfigureAwait(false);
             var proposals = await db.Proposals.Include(p => p.Versions).Where(p => p.BudgetCycleId == cycleId).OrderBy(p => p.Id)
                 .ToListAsync(cancellationToken).ConfigureAwait(false);
             var ids = proposals.Select(p => p.Id).ToList();
             var latest = (await db.Decisions.Where(d => ids.Contains(d.ProposalId)).ToListAsync(cancellationToken).ConfigureAwait(false))
                 .GroupBy(d => d.ProposalId).ToDictionary(g => g.Key, g => g.OrderBy(d => d.Id).Last());
+            // Those who signed the set that decided the cycle, not an earlier set nor an imported record.
+            var signOffs = (await DecisionService.ReadSignOffsAsync(db, cycleId, proposals, cancellationToken).ConfigureAwait(false)).Current;
             var decided = proposals.Where(p => latest.ContainsKey(p.Id)).Select(p => (ProposalView.Of(p), latest[p.Id])).ToList();
             return new CycleRecord(cycle, marr, signOffs, decided);
         }, cancellationToken);

@@ -141,7 +141,8 @@ public class CapReviewDbContext : DbContext
         modelBuilder.Entity<SignOff>(s =>
         {
             s.ToTable("sign_off");
-            s.HasIndex(x => new { x.BudgetCycleId, x.UserId }).IsUnique();
+            // One member may sign again once a later submission or decision supersedes their sign-off (CycleSignOffs).
+            s.HasIndex(x => new { x.BudgetCycleId, x.UserId });
             s.Property(x => x.UserId).HasMaxLength(100);
             s.Property(x => x.DisplayName).HasMaxLength(200);
             s.HasOne<BudgetCycle>().WithMany().HasForeignKey(x => x.BudgetCycleId).OnDelete(DeleteBehavior.Restrict);

@@ -101,12 +101,11 @@ public static class BoardEndpoints
     }
 
     private static Task<IResult> SignOffsAsync(int id, HttpContext context, DecisionService decisions, CancellationToken cancellationToken) =>
-        ApiProblems.RunAsync(async () => Results.Ok((await decisions.SignOffsAsync(Caller(context), id, cancellationToken).ConfigureAwait(false))
-            .Select(SignOffResponse.From).ToList()));
+        ApiProblems.RunAsync(async () => Results.Ok(SignOffResponse.All(await decisions.SignOffsAsync(Caller(context), id, cancellationToken).ConfigureAwait(false))));
 
     private static Task<IResult> SignOffAsync(int id, HttpContext context, DecisionService decisions, CancellationToken cancellationToken) =>
         ApiProblems.RunAsync(async () => Results.Created($"/api/v1/cycles/{id}/sign-offs",
-            SignOffResponse.From(await decisions.SignOffAsync(Caller(context), id, cancellationToken).ConfigureAwait(false))));
+            SignOffResponse.From(await decisions.SignOffAsync(Caller(context), id, cancellationToken).ConfigureAwait(false), "current")));
 
     private static Task<IResult> PacketJobAsync(int id, HttpContext context, PacketJobs jobs, CancellationToken cancellationToken) =>
         ApiProblems.RunAsync(async () =>

@@ -31,16 +31,30 @@ public sealed record DecisionResponse(int Id, int ProposalId, string Reference, 
     }
 }
 
-/// <summary>A sign-off and the decisions it covered.</summary>
-public sealed record SignOffResponse(int Id, int CycleId, string UserId, string Name, DateTimeOffset SignedAt, IReadOnlyList<SignedDecisionResponse> DecisionsSigned)
+/// <summary>
+/// A sign-off and the decisions it covered; <c>status</c> says what it counts for: <c>current</c> (it signed the
+/// decisions as they stand), <c>superseded</c> (a later submission or decision changed them) or <c>imported</c>
+/// (copied from another installation's document; never counts here).
+/// </summary>
+public sealed record SignOffResponse(int Id, int CycleId, string UserId, string Name, DateTimeOffset SignedAt, string Status, IReadOnlyList<SignedDecisionResponse> DecisionsSigned)
 {
-    public static SignOffResponse From(SignOff s)
+    public static SignOffResponse From(SignOff s, string status)
     {
         ArgumentNullException.ThrowIfNull(s);
-        // Stored as the sign-off wrote it (PascalCase names, the outcome's enum name); answered in the API's conventions.
-        var signed = System.Text.Json.JsonSerializer.Deserialize<List<SignedDecisionResponse>>(s.DecisionsSigned) ?? [];
-        return new(s.Id, s.BudgetCycleId, s.UserId, s.DisplayName, s.SignedAt,
-            [.. signed.Select(d => d with { Outcome = System.Text.Json.JsonNamingPolicy.CamelCase.ConvertName(d.Outcome) })]);
+        // Stored as the sign-off wrote it (the outcome's enum name); answered in the API's conventions.
+        return new(s.Id, s.BudgetCycleId, s.UserId, s.DisplayName, s.SignedAt, status,
+            [.. SignedDecision.Parse(s.DecisionsSigned).Select(d => new SignedDecisionResponse(d.Proposal, d.Version, d.AssumptionsHash,
+                System.Text.Json.JsonNamingPolicy.CamelCase.ConvertName(d.Outcome)))]);
+    }
+
+    /// <summary>Every sign-off of the cycle in the order given, each with its status.</summary>
+    public static IReadOnlyList<SignOffResponse> All(CycleSignOffs signOffs)
+    {
+        ArgumentNullException.ThrowIfNull(signOffs);
+        return [.. signOffs.Current.Select(s => From(s, "current"))
+            .Concat(signOffs.Superseded.Select(s => From(s, "superseded")))
+            .Concat(signOffs.Imported.Select(s => From(s, "imported")))
+            .OrderBy(s => s.Id)];
     }
 }
 

@@ -243,8 +243,7 @@ namespace CapReview.Reviews.Storage.Migrations
 
                     b.HasKey("Id");
 
-                    b.HasIndex("BudgetCycleId", "UserId")
-                        .IsUnique();
+                    b.HasIndex("BudgetCycleId", "UserId");
 
                     b.ToTable("sign_off", (string)null);
                 });

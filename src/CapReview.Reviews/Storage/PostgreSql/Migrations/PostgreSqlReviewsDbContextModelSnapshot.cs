@@ -259,8 +259,7 @@ namespace CapReview.Reviews.Storage.PostgreSql.Migrations
 
                     b.HasKey("Id");
 
-                    b.HasIndex("BudgetCycleId", "UserId")
-                        .IsUnique();
+                    b.HasIndex("BudgetCycleId", "UserId");
 
                     b.ToTable("sign_off", (string)null);
                 });
