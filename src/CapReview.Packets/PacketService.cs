@@ -7,6 +7,7 @@ using CapReview.Reviews.Cycles;
 using CapReview.Reviews.Organisation;
 using CapReview.Reviews.Portfolio;
 using CapReview.Reviews.Proposals;
+using CapReview.Reviews.Interchange;
 using CapReview.Reviews.Records;
 
 namespace CapReview.Packets;
@@ -30,6 +31,10 @@ public sealed class PacketService(DecisionRecords records, PortfolioService port
         {
             throw new RuleViolationException($"Packets are made when {record.Cycle.Name} is decided by its sign-offs.");
         }
+        if (!record.SignedHere)
+        {
+            throw new RuleViolationException(CycleRecord.NotSignedHere(record.Cycle.Name));
+        }
         OrganisationProfile profile = await organisation.GetAsync(cancellationToken).ConfigureAwait(false)
             ?? throw new InvalidOperationException("The organisation profile is missing.");
         var who = new PacketOrganisation(profile.Name, profile.CurrencyCode, CultureInfo.GetCultureInfo(profile.CultureName));
@@ -39,7 +44,8 @@ public sealed class PacketService(DecisionRecords records, PortfolioService port
         // The domain computes every figure once; each packet lays out the ones it needs.
         var figures = record.Decided.ToDictionary(d => d.Proposal.Id, d => VersionFigures.Of(d.Proposal, d.Proposal.Version(d.Decision.VersionNumber), record.Marr,
             record.Cycle.StudyPeriodYears, simulate: true, cancellationToken));
-        foreach (var (proposal, decision) in record.Decided)
+        // A decision copied from another installation's document is no act of this board: no packet is signed for it.
+        foreach (var (proposal, decision) in record.Decided.Where(d => !CycleImporter.IsImported(d.Decision.DecidedBy)))
         {
             if (await archive.ExistsAsync(PacketKind.Proposal, cycleId, proposal.Id, cancellationToken).ConfigureAwait(false))
             {
@@ -54,7 +60,7 @@ public sealed class PacketService(DecisionRecords records, PortfolioService port
         {
             PortfolioResult? selection = record.Decided.Count == 0 ? null
                 : await portfolio.SelectAsync(actor, cycleId, new PortfolioQuery(), cancellationToken).ConfigureAwait(false);
-            var data = new CyclePacketData(who, record.Cycle, record.Marr, record.SignOffs, record.Decided, figures, selection, now, certificate.Notice, options.Paper);
+            var data = new CyclePacketData(who, record.Cycle, record.Marr, record.SignOffs, record.Decided, figures, selection, now, certificate.Notice, options.Paper, record.Import);
             byte[] bytes = PacketRenderer.Cycle(data, certificate);
             string name = string.Concat(record.Cycle.Name.Select(c => char.IsLetterOrDigit(c) ? char.ToLowerInvariant(c) : '-')) + "-cycle-packet.pdf";
             await archive.StoreOnceAsync(actor, Packet(PacketKind.Cycle, record, null, null, null, name, bytes, certificate, now), cancellationToken).ConfigureAwait(false);

@@ -1,6 +1,7 @@
 using CapReview.Packets.Layout;
 using CapReview.Reviews.Common;
 using CapReview.Reviews.Decisions;
+using CapReview.Reviews.Interchange;
 using CapReview.Reviews.Marr;
 using PdfSharp.Drawing;
 using PdfSharp.Pdf;
@@ -65,12 +66,21 @@ internal static class PacketComposer
         ]);
         flow.Gap(4);
         SigningNote(flow, data.Signing);
+        if (data.Import is { } import && data.Decided.Any(d => CycleImporter.IsImported(d.Decision.DecidedBy)))
+        {
+            flow.Note("Imported record",
+                $"The decisions marked “imported” reproduce a record from {import.Installation} (document SHA-256 {import.DocumentSha256}), " +
+                $"imported by {import.ImportedByName} on {f.Time(import.ImportedAt)}. They were not made in this installation; its board signed them off as listed.",
+                PacketStyle.Amber);
+        }
 
         flow.Heading("Decisions", PacketStyle.Heading1);
         TableWriter.Draw(flow, [new("Proposal", 3.4), new("Decision", 1.5), new("Version", 0.8, true), new("Assumptions SHA-256", 2.6)],
             data.Decided.OrderBy(d => d.Proposal.Reference, StringComparer.Ordinal).Select(d => new TableRow(
             [
-                $"{d.Proposal.Reference} {d.Proposal.Title}", ProposalSections.OutcomeText(d.Decision.Outcome), d.Decision.VersionNumber.ToString(f.Culture),
+                $"{d.Proposal.Reference} {d.Proposal.Title}",
+                ProposalSections.OutcomeText(d.Decision.Outcome) + (CycleImporter.IsImported(d.Decision.DecidedBy) ? " (imported)" : ""),
+                d.Decision.VersionNumber.ToString(f.Culture),
                 d.Decision.AssumptionsHash[..16] + "…",
             ])));
         if (data.Portfolio is { } portfolio)

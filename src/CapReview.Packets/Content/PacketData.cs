@@ -2,6 +2,7 @@ using System.Globalization;
 using CapReview.Packets.Layout;
 using CapReview.Reviews.Cycles;
 using CapReview.Reviews.Decisions;
+using CapReview.Reviews.Interchange;
 using CapReview.Reviews.Marr;
 using CapReview.Reviews.Portfolio;
 using CapReview.Reviews.Proposals;
@@ -48,4 +49,5 @@ public sealed record CyclePacketData(
     PortfolioResult? Portfolio,
     DateTimeOffset GeneratedAt,
     SigningNotice Signing,
-    PaperSize Paper = PaperSize.A4);
+    PaperSize Paper = PaperSize.A4,
+    CycleImport? Import = null);

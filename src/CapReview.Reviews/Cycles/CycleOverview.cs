@@ -13,5 +13,6 @@ namespace CapReview.Reviews.Cycles;
 /// <param name="PacketsMissing">A decided cycle lacks its cycle packet or a decided proposal's packet.</param>
 /// <param name="PacketJob">The job that makes a decided cycle's packets; null before it is decided or when none was queued.</param>
 /// <param name="CanSignOff">Whether the actor may sign off the cycle now.</param>
+/// <param name="Import">Where the cycle was imported from; null for a cycle opened here.</param>
 public sealed record CycleOverview(BudgetCycle Cycle, MarrPolicyVersion Marr, IReadOnlyList<CycleProposalRow> Rows, CycleSignOffs SignOffs,
-    IReadOnlyList<PacketSummary> Packets, bool PacketsMissing, PacketJobView? PacketJob, bool CanSignOff);
+    IReadOnlyList<PacketSummary> Packets, bool PacketsMissing, PacketJobView? PacketJob, bool CanSignOff, Interchange.CycleImport? Import = null);

@@ -9,7 +9,7 @@ namespace CapReview.Reviews.Cycles;
 /// A cycle for its review: every proposal's measures at the cycle's MARR for its risk class (on its latest submitted
 /// version), what the actor may decide, the sign-offs, the packets and the job that makes them. Access is that of the services it reads.
 /// </summary>
-public sealed class CycleOverviewService(CycleService cycles, ProposalService proposals, DecisionService decisions, PacketArchive archive, PacketJobs jobs)
+public sealed class CycleOverviewService(CycleService cycles, ProposalService proposals, DecisionService decisions, PacketArchive archive, PacketJobs jobs, DecisionRecords records)
 {
     public async Task<CycleOverview> GetAsync(Actor actor, int cycleId, CancellationToken cancellationToken)
     {
@@ -27,7 +27,8 @@ public sealed class CycleOverviewService(CycleService cycles, ProposalService pr
         IReadOnlyList<PacketSummary> packets = [];
         bool packetsMissing = false;
         PacketJobView? packetJob = null;
-        if (cycle.Status is CycleStatus.Decided or CycleStatus.Closed)
+        bool signedHere = signOffs.Current.Count >= cycle.RequiredSignOffs;
+        if (cycle.Status is CycleStatus.Decided or CycleStatus.Closed && signedHere)
         {
             packets = await archive.ListAsync(actor, cycleId, cancellationToken).ConfigureAwait(false);
             packetJob = await jobs.StatusAsync(actor, cycleId, cancellationToken).ConfigureAwait(false);
@@ -35,6 +36,7 @@ public sealed class CycleOverviewService(CycleService cycles, ProposalService pr
             packetsMissing = !packets.Any(p => p.Kind == PacketKind.Cycle) || packets.Count(p => p.Kind == PacketKind.Proposal) < decided;
         }
         bool canSignOff = actor.Has(Role.Reviewer) && cycle.Status is CycleStatus.Open or CycleStatus.InReview && !signOffs.HasSigned(actor.UserId);
-        return new CycleOverview(cycle, marr, rows, signOffs, packets, packetsMissing, packetJob, canSignOff);
+        var import = await records.ImportOfAsync(cycleId, cancellationToken).ConfigureAwait(false);
+        return new CycleOverview(cycle, marr, rows, signOffs, packets, packetsMissing, packetJob, canSignOff, import);
     }
 }

@@ -28,5 +28,5 @@ public sealed record CycleSignOffs(IReadOnlyList<SignedDecision> Decisions, IRea
     /// <summary>Whether this member's sign-off of the present set is already given.</summary>
     public bool HasSigned(string userId) => Current.Any(s => s.UserId == userId);
 
-    private static bool IsImported(SignOff s) => s.UserId.StartsWith(CycleImporter.ImportedPrefix, StringComparison.Ordinal);
+    private static bool IsImported(SignOff s) => CycleImporter.IsImported(s.UserId);
 }

@@ -23,6 +23,9 @@ public sealed record CycleDocument
 
     public DateTimeOffset? ExportedAt { get; init; }
 
+    /// <summary>The exporting installation, as it names itself (its organisation's name); optional.</summary>
+    public string? Installation { get; init; }
+
     public string? Cautions { get; init; }
 
     public PolicyEntry? MarrPolicy { get; init; }

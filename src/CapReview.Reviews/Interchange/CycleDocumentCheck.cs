@@ -25,6 +25,10 @@ public static class CycleDocumentCheck
             Add("formatVersion", $"This installation reads format version {CycleDocument.CurrentVersion}; the document is version {document.FormatVersion?.ToString(System.Globalization.CultureInfo.InvariantCulture) ?? "(none)"}.");
             return errors;
         }
+        if (document.Installation is { Length: > 200 })
+        {
+            Add("installation", "The exporting installation's name is at most 200 characters.");
+        }
         CheckPolicy(document.MarrPolicy, Add);
         CheckCycle(document.Cycle, Add);
         var versions = new Dictionary<string, Dictionary<int, string>>(StringComparer.Ordinal);

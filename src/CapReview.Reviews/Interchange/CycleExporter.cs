@@ -32,7 +32,8 @@ public sealed class CycleExporter(ReviewWork work, IPeopleDirectory people, Time
             var signOffs = await db.SignOffs.Where(s => s.BudgetCycleId == cycleId).OrderBy(s => s.Id).ToListAsync(cancellationToken).ConfigureAwait(false);
             var groups = await db.ExclusiveGroups.Where(g => g.BudgetCycleId == cycleId).OrderBy(g => g.Name).ToListAsync(cancellationToken).ConfigureAwait(false);
             var contingencies = await db.Contingencies.Where(c => c.BudgetCycleId == cycleId).OrderBy(c => c.Id).ToListAsync(cancellationToken).ConfigureAwait(false);
-            return (cycle, policy, proposals, decisions, signOffs, groups, contingencies);
+            string installation = await db.Organisations.Select(o => o.Name).FirstOrDefaultAsync(cancellationToken).ConfigureAwait(false) ?? "";
+            return (cycle, policy, proposals, decisions, signOffs, groups, contingencies, installation);
         }, cancellationToken).ConfigureAwait(false);
 
         var names = new Dictionary<string, PersonEntry>(StringComparer.Ordinal);
@@ -40,9 +41,13 @@ public sealed class CycleExporter(ReviewWork work, IPeopleDirectory people, Time
         {
             if (!names.TryGetValue(userId, out PersonEntry? person))
             {
-                KnownPerson? known = await people.FindAsync(userId, cancellationToken).ConfigureAwait(false);
-                // Someone imported without an account here is recorded as "imported:" and their e-mail (or name).
-                string recorded = userId.StartsWith(CycleImporter.ImportedPrefix, StringComparison.Ordinal) ? userId[CycleImporter.ImportedPrefix.Length..] : userId;
+                // An act imported from another installation is recorded as "imported:" and the e-mail (or name) the
+                // document gave; the name is that of the person with that e-mail here, where there is one.
+                bool imported = userId.StartsWith(CycleImporter.ImportedPrefix, StringComparison.Ordinal);
+                string recorded = imported ? userId[CycleImporter.ImportedPrefix.Length..] : userId;
+                KnownPerson? known = imported
+                    ? recorded.Contains('@', StringComparison.Ordinal) ? await people.FindByEmailAsync(recorded, cancellationToken).ConfigureAwait(false) : null
+                    : await people.FindAsync(userId, cancellationToken).ConfigureAwait(false);
                 person = known is not null ? new PersonEntry(known.Name, known.Email)
                     : new PersonEntry(fallbackName ?? recorded, recorded.Contains('@', StringComparison.Ordinal) ? recorded : null);
                 names[userId] = person;
@@ -89,6 +94,7 @@ public sealed class CycleExporter(ReviewWork work, IPeopleDirectory people, Time
             Format = CycleDocument.FormatName,
             FormatVersion = CycleDocument.CurrentVersion,
             ExportedAt = clock.GetUtcNow(),
+            Installation = data.installation,
             Cautions = Common.Cautions.Estimates,
             MarrPolicy = new PolicyEntry
             {

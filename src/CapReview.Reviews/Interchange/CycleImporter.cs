@@ -28,6 +28,10 @@ public sealed class CycleImporter(ReviewWork work, AuditTrail audit, IPeopleDire
     /// <summary>The prefix of the user id recorded for someone who has no account in this installation.</summary>
     public const string ImportedPrefix = "imported:";
 
+    /// <summary>Whether a recorded user id names someone of an imported document rather than a member here.</summary>
+    public static bool IsImported(string recordedUserId) =>
+        recordedUserId?.StartsWith(ImportedPrefix, StringComparison.Ordinal) ?? false;
+
     public async Task<CycleImportResult> ImportAsync(Actor actor, byte[] bytes, CancellationToken cancellationToken)
     {
         ArgumentNullException.ThrowIfNull(actor);
@@ -60,8 +64,9 @@ public sealed class CycleImporter(ReviewWork work, AuditTrail audit, IPeopleDire
             }
             return id.Length == 0 ? null : id;
         }
+        // The document's decisions, sign-offs and policy were acts of another installation: never recorded as acts of
+        // this installation's members, even where an e-mail matches one of them.
         string Recorded(PersonEntry? person) => ImportedPrefix + (person?.Email is { Length: > 0 } email ? email : person?.Name ?? "unknown");
-        async Task<string> RecordedUser(PersonEntry? person) => await UserOf(person).ConfigureAwait(false) ?? Recorded(person);
 
         // Resolve people before the transaction: the directory is another database.
         var owners = new Dictionary<string, string?>(StringComparer.Ordinal);
@@ -77,17 +82,9 @@ public sealed class CycleImporter(ReviewWork work, AuditTrail audit, IPeopleDire
                 authors[(p.Reference!, v.Number!.Value)] = await UserOf(v.Author).ConfigureAwait(false) ?? owners[p.Reference!] ?? actor.UserId;
             }
         }
-        var deciders = new List<string>();
-        foreach (DecisionEntry d in document.Decisions ?? [])
-        {
-            deciders.Add(await RecordedUser(d.DecidedBy).ConfigureAwait(false));
-        }
-        var signers = new List<string>();
-        foreach (SignOffEntry s in document.SignOffs ?? [])
-        {
-            signers.Add(await RecordedUser(s.By).ConfigureAwait(false));
-        }
-        string policySetter = await RecordedUser(document.MarrPolicy!.SetBy).ConfigureAwait(false);
+        var deciders = (document.Decisions ?? []).Select(d => Recorded(d.DecidedBy)).ToList();
+        var signers = (document.SignOffs ?? []).Select(s => Recorded(s.By)).ToList();
+        string policySetter = Recorded(document.MarrPolicy!.SetBy);
         string documentHash = Convert.ToHexStringLower(SHA256.HashData(bytes));
 
         return await work.RunAsync(async db =>
@@ -157,6 +154,8 @@ public sealed class CycleImporter(ReviewWork work, AuditTrail audit, IPeopleDire
             {
                 db.SignOffs.Add(new SignOff(cycle.Id, signers[k++], s.By!.Name!, Stored(s.SignedAt), s.DecisionsSigned ?? "[]"));
             }
+            db.CycleImports.Add(new CycleImport(cycle.Id, documentHash, document.Installation is { Length: > 0 } from ? from.Trim() : "not named",
+                actor.UserId, actor.DisplayName, clock.GetUtcNow()));
             await db.SaveChangesAsync(cancellationToken).ConfigureAwait(false);
             await audit.AppendAsync(db, actor, "cycle.imported", "budget_cycle", cycle.Id.ToString(CultureInfo.InvariantCulture), null,
                 new { cycle.Name, DocumentSha256 = documentHash, Proposals = byReference.Count, Renamed = renamed, HeldByImporter = held, MarrPolicy = policy.Number }, cancellationToken).ConfigureAwait(false);

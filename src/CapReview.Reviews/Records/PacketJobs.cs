@@ -49,6 +49,12 @@ public sealed class PacketJobs(ReviewWork work, AuditTrail audit, TimeProvider c
             {
                 throw new RuleViolationException($"Packets are made when {cycle.Name} is decided by its sign-offs.");
             }
+            var proposals = await db.Proposals.Where(p => p.BudgetCycleId == cycleId).ToListAsync(cancellationToken).ConfigureAwait(false);
+            var signOffs = await Decisions.DecisionService.ReadSignOffsAsync(db, cycleId, proposals, cancellationToken).ConfigureAwait(false);
+            if (signOffs.Current.Count < cycle.RequiredSignOffs)
+            {
+                throw new RuleViolationException(CycleRecord.NotSignedHere(cycle.Name));
+            }
             DateTimeOffset now = clock.GetUtcNow();
             PacketJob? job = await db.PacketJobs.SingleOrDefaultAsync(j => j.BudgetCycleId == cycleId, cancellationToken).ConfigureAwait(false);
             bool queued;

@@ -55,6 +55,8 @@ public class CapReviewDbContext : DbContext
 
     public DbSet<PacketJob> PacketJobs => Set<PacketJob>();
 
+    public DbSet<Interchange.CycleImport> CycleImports => Set<Interchange.CycleImport>();
+
     public DbSet<Preferences.UserPreference> UserPreferences => Set<Preferences.UserPreference>();
 
     protected override void OnConfiguring(DbContextOptionsBuilder optionsBuilder)
@@ -146,6 +148,17 @@ public class CapReviewDbContext : DbContext
             s.Property(x => x.UserId).HasMaxLength(100);
             s.Property(x => x.DisplayName).HasMaxLength(200);
             s.HasOne<BudgetCycle>().WithMany().HasForeignKey(x => x.BudgetCycleId).OnDelete(DeleteBehavior.Restrict);
+        });
+
+        modelBuilder.Entity<Interchange.CycleImport>(i =>
+        {
+            i.ToTable("cycle_import");
+            i.HasIndex(x => x.BudgetCycleId).IsUnique();
+            i.Property(x => x.DocumentSha256).HasMaxLength(64);
+            i.Property(x => x.Installation).HasMaxLength(200);
+            i.Property(x => x.ImportedBy).HasMaxLength(100);
+            i.Property(x => x.ImportedByName).HasMaxLength(200);
+            i.HasOne<BudgetCycle>().WithMany().HasForeignKey(x => x.BudgetCycleId).OnDelete(DeleteBehavior.Restrict);
         });
 
         modelBuilder.Entity<ProposalComment>(c =>

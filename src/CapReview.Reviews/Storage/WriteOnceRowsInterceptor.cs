@@ -67,6 +67,8 @@ public sealed class WriteOnceRowsInterceptor : SaveChangesInterceptor
                     throw new RuleViolationException("Decisions and sign-offs are written once: record a new decision instead.");
                 case ApprovalPacket:
                     throw new RuleViolationException("An approval packet is stored once and never changed.");
+                case Interchange.CycleImport:
+                    throw new RuleViolationException("The record of an import is written once.");
             }
         }
     }

@@ -22,12 +22,12 @@ public sealed record DecisionApiRequest(int? ProposalId, DecisionOutcome? Outcom
 
 /// <summary>A recorded decision.</summary>
 public sealed record DecisionResponse(int Id, int ProposalId, string Reference, int CycleId, int Version, string AssumptionsHash, int MarrPolicyVersionId,
-    DecisionOutcome Outcome, string Conditions, string DecidedBy, DateTimeOffset DecidedAt)
+    DecisionOutcome Outcome, string Conditions, string DecidedBy, DateTimeOffset DecidedAt, bool Imported)
 {
     public static DecisionResponse From(DecisionView d)
     {
         ArgumentNullException.ThrowIfNull(d);
-        return new(d.Id, d.ProposalId, d.Reference, d.CycleId, d.VersionNumber, d.AssumptionsHash, d.MarrPolicyVersionId, d.Outcome, d.Conditions, d.DecidedBy, d.DecidedAt);
+        return new(d.Id, d.ProposalId, d.Reference, d.CycleId, d.VersionNumber, d.AssumptionsHash, d.MarrPolicyVersionId, d.Outcome, d.Conditions, d.DecidedBy, d.DecidedAt, d.Imported);
     }
 }
 

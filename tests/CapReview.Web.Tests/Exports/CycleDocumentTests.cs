@@ -93,6 +93,36 @@ public sealed class CycleDocumentTests : IAsyncLifetime
     }
 
     [Fact]
+    public async Task An_imported_decided_cycle_is_another_installations_record_never_acts_of_members_here_and_gets_no_packets()
+    {
+        // Every person of the document has an account here with the same e-mail: still, nobody here decided or signed.
+        await CopyPeopleAsync();
+        byte[] exported = await ExportAsync(_source, "Capital plan 2026");
+        var result = await _target.Services.GetRequiredService<CycleImporter>().ImportAsync(Admin, exported, CancellationToken.None);
+
+        var decisions = await _target.Services.GetRequiredService<CapReview.Reviews.Decisions.DecisionService>().DecisionsAsync(Admin, result.CycleId, CancellationToken.None);
+        Assert.NotEmpty(decisions);
+        Assert.All(decisions, d => Assert.True(d.Imported, d.DecidedBy));
+        Assert.All(decisions, d => Assert.StartsWith("imported:", d.DecidedBy, StringComparison.Ordinal));
+        var signOffs = await _target.Services.GetRequiredService<CapReview.Reviews.Decisions.DecisionService>().SignOffsAsync(Admin, result.CycleId, CancellationToken.None);
+        Assert.Empty(signOffs.Current);
+        Assert.Equal(JsonNode.Parse(exported)!["signOffs"]!.AsArray().Count, signOffs.Imported.Count);
+
+        var import = await _target.Services.GetRequiredService<CapReview.Reviews.Records.DecisionRecords>().ImportOfAsync(result.CycleId, CancellationToken.None);
+        Assert.NotNull(import);
+        Assert.Equal(Convert.ToHexStringLower(System.Security.Cryptography.SHA256.HashData(exported)), import.DocumentSha256);
+        Assert.Equal(JsonNode.Parse(exported)!["installation"]!.GetValue<string>(), import.Installation);
+        Assert.Equal(Admin.UserId, import.ImportedBy);
+
+        // The installation signs no packet for decisions its board did not sign off.
+        var refused = await Assert.ThrowsAsync<CapReview.Reviews.Common.RuleViolationException>(() =>
+            _target.Services.GetRequiredService<CapReview.Reviews.Records.PacketJobs>().RequestAsync(Admin, result.CycleId, CancellationToken.None));
+        Assert.Contains("imported from another installation", refused.Message, StringComparison.Ordinal);
+        await Assert.ThrowsAsync<CapReview.Reviews.Common.RuleViolationException>(() =>
+            _target.Services.GetRequiredService<CapReview.Packets.PacketService>().PublishCycleAsync(Admin, result.CycleId, CancellationToken.None));
+    }
+
+    [Fact]
     public async Task A_second_import_of_the_same_cycle_or_a_changed_document_is_refused_and_changes_nothing()
     {
         var importer = _target.Services.GetRequiredService<CycleImporter>();

@@ -248,6 +248,46 @@ namespace CapReview.Reviews.Storage.Migrations
                     b.ToTable("sign_off", (string)null);
                 });
 
+            modelBuilder.Entity("CapReview.Reviews.Interchange.CycleImport", b =>
+                {
+                    b.Property<int>("Id")
+                        .ValueGeneratedOnAdd()
+                        .HasColumnType("INTEGER");
+
+                    b.Property<int>("BudgetCycleId")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<string>("DocumentSha256")
+                        .IsRequired()
+                        .HasMaxLength(64)
+                        .HasColumnType("TEXT");
+
+                    b.Property<DateTimeOffset>("ImportedAt")
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("ImportedBy")
+                        .IsRequired()
+                        .HasMaxLength(100)
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("ImportedByName")
+                        .IsRequired()
+                        .HasMaxLength(200)
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("Installation")
+                        .IsRequired()
+                        .HasMaxLength(200)
+                        .HasColumnType("TEXT");
+
+                    b.HasKey("Id");
+
+                    b.HasIndex("BudgetCycleId")
+                        .IsUnique();
+
+                    b.ToTable("cycle_import", (string)null);
+                });
+
             modelBuilder.Entity("CapReview.Reviews.Marr.MarrPolicyVersion", b =>
                 {
                     b.Property<int>("Id")
@@ -697,6 +737,15 @@ namespace CapReview.Reviews.Storage.Migrations
                 });
 
             modelBuilder.Entity("CapReview.Reviews.Decisions.SignOff", b =>
+                {
+                    b.HasOne("CapReview.Reviews.Cycles.BudgetCycle", null)
+                        .WithMany()
+                        .HasForeignKey("BudgetCycleId")
+                        .OnDelete(DeleteBehavior.Restrict)
+                        .IsRequired();
+                });
+
+            modelBuilder.Entity("CapReview.Reviews.Interchange.CycleImport", b =>
                 {
                     b.HasOne("CapReview.Reviews.Cycles.BudgetCycle", null)
                         .WithMany()

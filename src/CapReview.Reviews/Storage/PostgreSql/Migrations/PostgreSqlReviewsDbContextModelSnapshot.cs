@@ -264,6 +264,48 @@ namespace CapReview.Reviews.Storage.PostgreSql.Migrations
                     b.ToTable("sign_off", (string)null);
                 });
 
+            modelBuilder.Entity("CapReview.Reviews.Interchange.CycleImport", b =>
+                {
+                    b.Property<int>("Id")
+                        .ValueGeneratedOnAdd()
+                        .HasColumnType("integer");
+
+                    NpgsqlPropertyBuilderExtensions.UseIdentityByDefaultColumn(b.Property<int>("Id"));
+
+                    b.Property<int>("BudgetCycleId")
+                        .HasColumnType("integer");
+
+                    b.Property<string>("DocumentSha256")
+                        .IsRequired()
+                        .HasMaxLength(64)
+                        .HasColumnType("character varying(64)");
+
+                    b.Property<DateTimeOffset>("ImportedAt")
+                        .HasColumnType("timestamp with time zone");
+
+                    b.Property<string>("ImportedBy")
+                        .IsRequired()
+                        .HasMaxLength(100)
+                        .HasColumnType("character varying(100)");
+
+                    b.Property<string>("ImportedByName")
+                        .IsRequired()
+                        .HasMaxLength(200)
+                        .HasColumnType("character varying(200)");
+
+                    b.Property<string>("Installation")
+                        .IsRequired()
+                        .HasMaxLength(200)
+                        .HasColumnType("character varying(200)");
+
+                    b.HasKey("Id");
+
+                    b.HasIndex("BudgetCycleId")
+                        .IsUnique();
+
+                    b.ToTable("cycle_import", (string)null);
+                });
+
             modelBuilder.Entity("CapReview.Reviews.Marr.MarrPolicyVersion", b =>
                 {
                     b.Property<int>("Id")
@@ -729,6 +771,15 @@ namespace CapReview.Reviews.Storage.PostgreSql.Migrations
                 });
 
             modelBuilder.Entity("CapReview.Reviews.Decisions.SignOff", b =>
+                {
+                    b.HasOne("CapReview.Reviews.Cycles.BudgetCycle", null)
+                        .WithMany()
+                        .HasForeignKey("BudgetCycleId")
+                        .OnDelete(DeleteBehavior.Restrict)
+                        .IsRequired();
+                });
+
+            modelBuilder.Entity("CapReview.Reviews.Interchange.CycleImport", b =>
                 {
                     b.HasOne("CapReview.Reviews.Cycles.BudgetCycle", null)
                         .WithMany()
