@@ -19,9 +19,15 @@ public static class ReviewsServiceCollectionExtensions
     public static IServiceCollection AddReviews(this IServiceCollection services, string sqliteConnectionString) =>
         services.AddReviews(DatabaseSettings.Sqlite(sqliteConnectionString));
 
-    public static IServiceCollection AddReviews(this IServiceCollection services, DatabaseSettings database)
+    /// <summary>
+    /// The domain on <paramref name="database"/>. The audit chain is keyed with <paramref name="auditKeys"/>, which an
+    /// installation keeps outside the database; without them a key that dies with the process (tests only).
+    /// </summary>
+    public static IServiceCollection AddReviews(this IServiceCollection services, DatabaseSettings database, AuditKeyRing? auditKeys = null, string? auditHeadLog = null)
     {
         ArgumentNullException.ThrowIfNull(database);
+        services.AddSingleton(auditKeys ?? AuditKeyRing.Ephemeral());
+        services.AddSingleton(new AuditHeadLog(auditHeadLog));
         if (database.Provider == DatabaseProvider.PostgreSql)
         {
             services.AddDbContextFactory<Storage.PostgreSql.PostgreSqlReviewsDbContext>(options => database.Apply(options));

@@ -70,7 +70,7 @@ public sealed class FullDiskTests(PacketDatabase db) : IClassFixture<PacketDatab
             var ids = await context.ApprovalPackets.Where(p => p.BudgetCycleId == cycle.Id).Select(p => p.Id.ToString()).ToListAsync();
             var storedEvents = await context.AuditEvents.Where(e => e.Action == "packet.stored" && ids.Contains(e.EntityId)).Select(e => e.EntityId).ToListAsync();
             Assert.Equal(ids.Order(), storedEvents.Order());
-            AuditVerification chain = await AuditTrail.VerifyAsync(context, None);
+            AuditVerification chain = await db.Get<AuditTrail>().VerifyAsync(context, [], None);
             Assert.True(chain.Intact, chain.Message);
             await AssertFileIntactAsync(context);
         }

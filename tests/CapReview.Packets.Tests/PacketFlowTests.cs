@@ -34,6 +34,14 @@ public sealed class PacketFlowTests(PacketDatabase db) : IClassFixture<PacketDat
             Assert.Contains("Tove Board", text);
             Assert.Contains("Aino Board", text);
             Assert.Contains(proposals[0].Latest.AssumptionsHash, text.Replace("\n", "", StringComparison.Ordinal));
+            // The audit chain's head at signing, as the stored row records it: an anchor outside the database's reach.
+            await using var rows = db.NewContext();
+            var row = await rows.ApprovalPackets.SingleAsync(p => p.Id == first.Id);
+            static string Packed(string s) => string.Concat(s.Where(c => !char.IsWhiteSpace(c)));
+            Assert.Contains(Packed($"{row.AuditEventCount} events at signing, last hash {row.AuditHeadHash}"), Packed(text), StringComparison.Ordinal);
+            var chain = await db.Get<CapReview.Reviews.Audit.AuditQueries>().VerifyAsync(Admin, None);
+            Assert.True(chain.Intact, chain.Message);
+            Assert.Equal(4, chain.AnchorsChecked);
         }
         Assert.Contains("Signature is Valid.", Pdfsig(stored.Content));
 

@@ -53,7 +53,7 @@ public sealed class PacketJobTests : IAsyncLifetime
         await using var context = _db.NewContext();
         var stored = await context.AuditEvents.Where(e => e.Action == "packet.stored").Select(e => e.UserId).ToListAsync();
         Assert.Equal(["board-2", "board-2", "board-2", "board-2"], stored);
-        Assert.True((await AuditTrail.VerifyAsync(context, None)).Intact);
+        Assert.True((await _db.Get<AuditTrail>().VerifyAsync(context, [], None)).Intact);
         Assert.Equal(3, proposals.Count);
     }
 

@@ -16,7 +16,7 @@ public sealed class AuditTrailTests : IAsyncLifetime
     private async Task<AuditVerification> VerifyAsync()
     {
         await using var context = _db.NewContext();
-        return await AuditTrail.VerifyAsync(context, CancellationToken.None);
+        return await _db.Audit.VerifyAsync(context, [], CancellationToken.None);
     }
 
     /// <summary>Tampering as someone who owns the database would: the write-once trigger lifted first, then the SQL.</summary>
@@ -69,6 +69,102 @@ public sealed class AuditTrailTests : IAsyncLifetime
         var verification = await VerifyAsync();
         Assert.False(verification.Intact);
         Assert.Equal(3, verification.FirstBrokenEventId);
+    }
+
+    /// <summary>Rewrites the chain from the start as someone without the key would: every hash a plain SHA-256, recomputed in order.</summary>
+    private async Task RewriteWithoutKeyAsync(Func<AuditEvent, string?> after, bool dropKeys)
+    {
+        await using var context = _db.NewContext();
+        await TriggerBypass.LiftAsync(context, "audit_event");
+        var events = await context.AuditEvents.AsNoTracking().OrderBy(e => e.Id).ToListAsync();
+        string previous = AuditChain.Genesis;
+        foreach (AuditEvent e in events)
+        {
+            string? newAfter = after(e);
+            await context.Database.ExecuteSqlRawAsync("UPDATE audit_event SET \"After\" = {0} WHERE \"Id\" = {1}", newAfter!, e.Id);
+            var changed = await context.AuditEvents.AsNoTracking().SingleAsync(x => x.Id == e.Id);
+            string hash = AuditChain.HashOf(changed, previous);
+            await context.Database.ExecuteSqlRawAsync(
+                dropKeys ? "UPDATE audit_event SET \"PreviousHash\" = {0}, \"Hash\" = {1}, \"KeyId\" = NULL WHERE \"Id\" = {2}"
+                         : "UPDATE audit_event SET \"PreviousHash\" = {0}, \"Hash\" = {1} WHERE \"Id\" = {2}",
+                previous, hash, e.Id);
+            previous = hash;
+        }
+    }
+
+    [Fact]
+    public async Task A_chain_rewritten_and_rehashed_without_the_key_is_detected()
+    {
+        await MakeHistoryAsync();
+        await RewriteWithoutKeyAsync(e => e.Id == 4 ? e.After!.Replace("Submitted", "Approved", StringComparison.Ordinal) : e.After, dropKeys: false);
+        var kept = await VerifyAsync();
+        Assert.False(kept.Intact);
+        Assert.Equal(1, kept.FirstBrokenEventId);
+        Assert.Contains("changed after it was written", kept.Message, StringComparison.Ordinal);
+
+        // Passing every event off as one written before the chain was keyed does not help either.
+        await RewriteWithoutKeyAsync(e => e.After, dropKeys: true);
+        var unkeyed = await VerifyAsync();
+        Assert.False(unkeyed.Intact);
+        Assert.Contains("No event of the chain carries a key", unkeyed.Message, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public async Task Events_cut_from_the_end_are_detected_by_a_head_kept_outside_the_database()
+    {
+        await MakeHistoryAsync();
+        AuditHead head;
+        await using (var context = _db.NewContext())
+        {
+            head = await AuditTrail.HeadAsync(context, CancellationToken.None);
+        }
+        Assert.Equal(4, head.Count);
+        await TamperAsync("DELETE FROM audit_event WHERE \"Id\" = 4");
+
+        // Each remaining link holds; only the recorded head shows what is missing.
+        Assert.True((await VerifyAsync()).Intact);
+        await using var check = _db.NewContext();
+        var anchored = await _db.Audit.VerifyAsync(check, [(head, "The head log")], CancellationToken.None);
+        Assert.False(anchored.Intact);
+        Assert.Equal("The head log recorded 4 events, but the chain holds 3: events were cut from its end.", anchored.Message);
+    }
+
+    [Fact]
+    public async Task A_chain_written_before_it_was_keyed_is_sealed_by_a_keyed_event_and_then_cannot_change()
+    {
+        await MakeHistoryAsync();
+        // The chain as an older version wrote it: plain SHA-256 hashes, no key.
+        await RewriteWithoutKeyAsync(e => e.After, dropKeys: true);
+        await _db.Get<Common.ReviewWork>().RunAsync(async db =>
+        {
+            await _db.Audit.SealAsync(db, CancellationToken.None);
+            return true;
+        }, CancellationToken.None);
+        var sealedChain = await VerifyAsync();
+        Assert.True(sealedChain.Intact, sealedChain.Message);
+        Assert.Equal((5, 4), (sealedChain.EventsChecked, sealedChain.UnkeyedEvents));
+
+        // An old event changed and every plain hash after it recomputed: the keyed seal no longer follows.
+        await using (var context = _db.NewContext())
+        {
+            await TriggerBypass.LiftAsync(context, "audit_event");
+            var events = await context.AuditEvents.AsNoTracking().OrderBy(e => e.Id).Take(4).ToListAsync();
+            string previous = AuditChain.Genesis;
+            foreach (AuditEvent e in events)
+            {
+                if (e.Id == 2)
+                {
+                    await context.Database.ExecuteSqlRawAsync("UPDATE audit_event SET \"UserId\" = 'someone-else' WHERE \"Id\" = 2");
+                }
+                var current = await context.AuditEvents.AsNoTracking().SingleAsync(x => x.Id == e.Id);
+                string hash = AuditChain.HashOf(current, previous);
+                await context.Database.ExecuteSqlRawAsync("UPDATE audit_event SET \"PreviousHash\" = {0}, \"Hash\" = {1} WHERE \"Id\" = {2}", previous, hash, e.Id);
+                previous = hash;
+            }
+        }
+        var broken = await VerifyAsync();
+        Assert.False(broken.Intact);
+        Assert.Equal(5, broken.FirstBrokenEventId);
     }
 
     [Fact]

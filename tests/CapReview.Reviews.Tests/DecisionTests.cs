@@ -83,6 +83,26 @@ public sealed class DecisionTests(ReviewsDatabase db) : IClassFixture<ReviewsDat
     }
 
     [Fact]
+    public async Task A_frozen_version_changed_in_the_database_is_flagged_on_every_read_and_cannot_be_decided()
+    {
+        var cycle = await db.OpenCycleAsync("Tampered 2027");
+        var draft = await db.Proposals.CreateDraftAsync(Lead, Draft(title: "Press brake"), None);
+        var submitted = await db.Proposals.SubmitAsync(Lead, draft.Id, cycle.Id, draft.Revision, None);
+        Assert.True(submitted.Latest.Intact);
+        await using (var context = db.NewContext())
+        {
+            // As someone who owns the database would: the write-once trigger lifted, the saving doubled, the hash left as it was.
+            await TriggerBypass.LiftAsync(context, "proposal_version");
+            await context.Database.ExecuteSqlRawAsync("UPDATE proposal_version SET \"AssumptionsJson\" = replace(\"AssumptionsJson\", '24000', '48000') WHERE \"ProposalId\" = {0}", draft.Id);
+        }
+        var read = await db.Proposals.GetAsync(Reviewer, draft.Id, None);
+        Assert.False(read.Latest.Intact);
+        Assert.Equal(submitted.Latest.AssumptionsHash, read.Latest.AssumptionsHash);
+        var refused = await Assert.ThrowsAsync<RuleViolationException>(() => db.Decisions.DecideAsync(Reviewer, draft.Id, DecisionOutcome.Approve, "", read.Revision, None));
+        Assert.Contains("no longer match their SHA-256", refused.Message, StringComparison.Ordinal);
+    }
+
+    [Fact]
     public async Task Decisions_and_sign_offs_cannot_be_edited()
     {
         var cycle = await db.OpenCycleAsync("Written once 2027");

@@ -45,6 +45,10 @@ public sealed class ReviewsDatabase : IAsyncLifetime
 
     public CycleOverviewService Overviews => _services.GetRequiredService<CycleOverviewService>();
 
+    public T Get<T>() where T : notnull => _services.GetRequiredService<T>();
+
+    public Audit.AuditTrail Audit => _services.GetRequiredService<Audit.AuditTrail>();
+
     public Records.DecisionRecords Records => _services.GetRequiredService<Records.DecisionRecords>();
 
     public CapReviewDbContext NewContext() => _services.GetRequiredService<IDbContextFactory<CapReviewDbContext>>().CreateDbContext();

@@ -19,7 +19,7 @@ internal static class TriggerBypass
         }
         foreach (string operation in new[] { "update", "delete" })
         {
-            string drop = $"DROP TRIGGER \"{table}_written_once_{operation}\"";
+            string drop = $"DROP TRIGGER IF EXISTS \"{table}_written_once_{operation}\"";
             await context.Database.ExecuteSqlRawAsync(drop);
         }
     }

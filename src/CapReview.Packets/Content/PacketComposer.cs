@@ -1,4 +1,5 @@
 using CapReview.Packets.Layout;
+using CapReview.Reviews.Audit;
 using CapReview.Reviews.Common;
 using CapReview.Reviews.Decisions;
 using CapReview.Reviews.Interchange;
@@ -35,6 +36,7 @@ internal static class PacketComposer
             ("MARR policy SHA-256", MarrPolicyDocument.Hash(data.Marr)),
             ("Packet made", f.Time(data.GeneratedAt)),
             ("Signed with", $"{data.Signing.Subject}, SHA-1 thumbprint {data.Signing.Thumbprint}"),
+            .. AuditLine(data.AuditHead),
         ]);
         flow.Gap(6);
         SigningNote(flow, data.Signing);
@@ -63,6 +65,7 @@ internal static class PacketComposer
             ("Sign-offs", string.Join("; ", data.SignOffs.Select(s => $"{s.DisplayName}, {f.Time(s.SignedAt)}")) is { Length: > 0 } s ? s : "none"),
             ("Packet made", f.Time(data.GeneratedAt)),
             ("Signed with", $"{data.Signing.Subject}, SHA-1 thumbprint {data.Signing.Thumbprint}"),
+            .. AuditLine(data.AuditHead),
         ]);
         flow.Gap(4);
         SigningNote(flow, data.Signing);
@@ -102,6 +105,10 @@ internal static class PacketComposer
         flow.Finish($"{data.Organisation.Name} · {data.Cycle.Name} cycle packet · made {f.Time(data.GeneratedAt)}");
         return document;
     }
+
+    /// <summary>The audit chain's head when the packet was signed: a record outside the database's reach (docs/security.md).</summary>
+    private static (string, string)[] AuditLine(AuditHead? head) =>
+        head is null ? [] : [("Audit trail", $"{head.Count.ToString(System.Globalization.CultureInfo.InvariantCulture)} events at signing, last hash {head.Hash}")];
 
     private static PdfDocument NewDocument(string organisation, string title)
     {

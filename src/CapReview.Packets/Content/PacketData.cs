@@ -1,5 +1,6 @@
 using System.Globalization;
 using CapReview.Packets.Layout;
+using CapReview.Reviews.Audit;
 using CapReview.Reviews.Cycles;
 using CapReview.Reviews.Decisions;
 using CapReview.Reviews.Interchange;
@@ -32,7 +33,8 @@ public sealed record ProposalPacketData(
     IReadOnlyList<SignOff> SignOffs,
     DateTimeOffset GeneratedAt,
     SigningNotice Signing,
-    PaperSize Paper = PaperSize.A4)
+    PaperSize Paper = PaperSize.A4,
+    AuditHead? AuditHead = null)
 {
     /// <summary>The version the decision was taken on.</summary>
     public VersionView Version => Proposal.Versions.Single(v => v.Number == Decision.VersionNumber);
@@ -50,4 +52,5 @@ public sealed record CyclePacketData(
     DateTimeOffset GeneratedAt,
     SigningNotice Signing,
     PaperSize Paper = PaperSize.A4,
-    CycleImport? Import = null);
+    CycleImport? Import = null,
+    AuditHead? AuditHead = null);

@@ -1,8 +1,9 @@
 namespace CapReview.Reviews.Audit;
 
 /// <summary>
-/// One append-only record of a change: who, when, what, before and after, chained to the previous event by SHA-256 so
-/// that an edited or removed row breaks the chain.
+/// One append-only record of a change: who, when, what, before and after, chained to the previous event by an
+/// HMAC-SHA256 keyed outside the database (<see cref="AuditChain"/>), so that an edited or removed row breaks the chain
+/// and cannot be mended without the key.
 /// </summary>
 public sealed class AuditEvent
 {
@@ -10,10 +11,11 @@ public sealed class AuditEvent
     {
     }
 
-    /// <summary>The event that follows <paramref name="previousHash"/>, its own hash computed from its fields.</summary>
+    /// <summary>The event that follows <paramref name="previousHash"/>, its own hash keyed with <paramref name="key"/>.</summary>
     public static AuditEvent Chained(DateTimeOffset at, string userId, string action, string entityType, string entityId,
-        string? before, string? after, string previousHash)
+        string? before, string? after, string previousHash, AuditKey key)
     {
+        ArgumentNullException.ThrowIfNull(key);
         var e = new AuditEvent
         {
             At = at,
@@ -24,8 +26,9 @@ public sealed class AuditEvent
             Before = before,
             After = after,
             PreviousHash = previousHash,
+            KeyId = key.Id,
         };
-        e.Hash = AuditChain.HashOf(e, previousHash);
+        e.Hash = AuditChain.HashOf(e, previousHash, key);
         return e;
     }
 
@@ -49,4 +52,7 @@ public sealed class AuditEvent
     public string PreviousHash { get; private set; } = "";
 
     public string Hash { get; private set; } = "";
+
+    /// <summary>The key that made <see cref="Hash"/>; null for an event written before the chain was keyed.</summary>
+    public string? KeyId { get; private set; }
 }

@@ -213,6 +213,10 @@ public sealed class Proposal
         {
             throw new ConcurrencyConflictException($"version: {Reference} was decided on version {judged}, but its latest submitted version is {version.Number}. Look at version {version.Number} and decide again.");
         }
+        if (!version.Intact)
+        {
+            throw new RuleViolationException($"version: the stored assumptions of {Reference} version {version.Number} no longer match their SHA-256; they were changed outside the app and cannot be decided on.");
+        }
         ProposalStatus from = Status == ProposalStatus.Submitted ? ProposalStatus.InReview : Status;
         ProposalStatus to = outcome switch
         {

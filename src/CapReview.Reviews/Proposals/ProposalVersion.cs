@@ -39,6 +39,12 @@ public sealed class ProposalVersion
     /// <summary>SHA-256 of <see cref="AssumptionsJson"/>, hex: what packets and decisions cite.</summary>
     public string AssumptionsHash { get; private set; } = "";
 
+    /// <summary>
+    /// Whether the stored assumptions still give their stored SHA-256: false only when the row was changed outside the
+    /// app (the entities and the triggers refuse it), which every read of a version checks.
+    /// </summary>
+    public bool Intact => AssumptionsDocument.Hash(AssumptionsJson) == AssumptionsHash;
+
     /// <summary>Optimistic concurrency for edits of a draft.</summary>
     public int Revision { get; private set; }
 

@@ -28,8 +28,9 @@ public sealed record ProposalView(
 
 /// <summary>One version of a proposal's assumptions.</summary>
 public sealed record VersionView(int Number, string AuthorId, DateTimeOffset CreatedAt, string Reason, bool IsFrozen,
-    DateTimeOffset? FrozenAt, string AssumptionsHash, ProposalAssumptions Assumptions)
+    DateTimeOffset? FrozenAt, string AssumptionsHash, ProposalAssumptions Assumptions, bool Intact = true)
 {
+    /// <summary>The version as stored, with whether its assumptions still give their SHA-256 (<see cref="ProposalVersion.Intact"/>).</summary>
     internal static VersionView Of(ProposalVersion v) => new(v.Number, v.AuthorId, v.CreatedAt, v.Reason, v.IsFrozen, v.FrozenAt,
-        v.AssumptionsHash, AssumptionsDocument.Deserialize(v.AssumptionsJson));
+        v.AssumptionsHash, AssumptionsDocument.Deserialize(v.AssumptionsJson), v.Intact);
 }

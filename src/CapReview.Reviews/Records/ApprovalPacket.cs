@@ -47,11 +47,18 @@ public sealed class ApprovalPacket
 
     public bool DevelopmentCertificate { get; private set; }
 
+    /// <summary>How many events the audit chain held when the packet was signed; the packet states it too.</summary>
+    public long? AuditEventCount { get; private set; }
+
+    /// <summary>The audit chain's last hash when the packet was signed; the packet states it too.</summary>
+    public string? AuditHeadHash { get; private set; }
+
     /// <summary>
     /// A packet as made and signed: what it records, its bytes and their SHA-256 (taken here, so a stored hash always
-    /// belongs to the stored bytes), and the certificate it was signed with.
+    /// belongs to the stored bytes), the certificate it was signed with and the audit chain's head it states.
     /// </summary>
-    public static ApprovalPacket Made(PacketRecord record, string fileName, byte[] content, DateTimeOffset createdAt, SigningCertificate signer)
+    public static ApprovalPacket Made(PacketRecord record, string fileName, byte[] content, DateTimeOffset createdAt, SigningCertificate signer,
+        Audit.AuditHead? auditHead = null)
     {
         ArgumentNullException.ThrowIfNull(record);
         ArgumentNullException.ThrowIfNull(content);
@@ -76,6 +83,8 @@ public sealed class ApprovalPacket
             CertificateSubject = signer.Subject,
             CertificateThumbprint = signer.Thumbprint,
             DevelopmentCertificate = signer.Development,
+            AuditEventCount = auditHead?.Count,
+            AuditHeadHash = auditHead?.Hash,
         };
     }
 }

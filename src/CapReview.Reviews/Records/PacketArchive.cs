@@ -14,6 +14,10 @@ namespace CapReview.Reviews.Records;
 /// </summary>
 public sealed class PacketArchive(ReviewWork work, AuditTrail audit)
 {
+    /// <summary>Where the audit chain stands, for the packet about to be signed to state.</summary>
+    public Task<AuditHead> AuditHeadAsync(CancellationToken cancellationToken) =>
+        work.ReadAsync(db => AuditTrail.HeadAsync(db, cancellationToken), cancellationToken);
+
     /// <summary>Stores the packet unless one of its kind already exists for the cycle and proposal; returns the stored one.</summary>
     public Task<PacketSummary> StoreOnceAsync(Actor actor, ApprovalPacket packet, CancellationToken cancellationToken)
     {

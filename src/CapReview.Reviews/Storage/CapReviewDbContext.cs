@@ -195,6 +195,7 @@ public class CapReviewDbContext : DbContext
             p.Property(x => x.Kind).HasConversion<string>().HasMaxLength(20);
             p.Property(x => x.AssumptionsHash).HasMaxLength(64);
             p.Property(x => x.FileName).HasMaxLength(200);
+            p.Property(x => x.AuditHeadHash).HasMaxLength(64);
             p.Property(x => x.FileSha256).HasMaxLength(64);
             p.Property(x => x.CertificateSubject).HasMaxLength(400);
             p.Property(x => x.CertificateThumbprint).HasMaxLength(64);
@@ -235,6 +236,7 @@ public class CapReviewDbContext : DbContext
             a.Property(x => x.EntityId).HasMaxLength(60);
             a.Property(x => x.PreviousHash).HasMaxLength(64);
             a.Property(x => x.Hash).HasMaxLength(64);
+            a.Property(x => x.KeyId).HasMaxLength(40);
             // Two events can never share a predecessor: a forked chain fails to save.
             a.HasIndex(x => x.PreviousHash).IsUnique();
         });

@@ -3,8 +3,11 @@ using Microsoft.EntityFrameworkCore;
 
 namespace CapReview.Reviews.Storage;
 
-/// <summary>Brings the database to the latest migration and, on an empty one, writes the organisation profile.</summary>
-public sealed class DatabaseInitializer(IDbContextFactory<CapReviewDbContext> contexts)
+/// <summary>
+/// Brings the database to the latest migration, writes the organisation profile on an empty one, and keys an audit
+/// chain written before the chain was keyed.
+/// </summary>
+public sealed class DatabaseInitializer(IDbContextFactory<CapReviewDbContext> contexts, Common.ReviewWork work, Audit.AuditTrail audit)
 {
     public async Task InitializeAsync(OrganisationProfile defaults, CancellationToken cancellationToken)
     {
@@ -16,5 +19,10 @@ public sealed class DatabaseInitializer(IDbContextFactory<CapReviewDbContext> co
             db.Organisations.Add(defaults);
             await db.SaveChangesAsync(cancellationToken).ConfigureAwait(false);
         }
+        await work.RunAsync(async writer =>
+        {
+            await audit.SealAsync(writer, cancellationToken).ConfigureAwait(false);
+            return true;
+        }, cancellationToken).ConfigureAwait(false);
     }
 }

@@ -21,9 +21,10 @@ public sealed record VersionSummaryResponse(int Number, DateTimeOffset CreatedAt
 /// <summary>
 /// One version in full: its assumptions as stored (their SHA-256 is that of their canonical form), and its measures
 /// at the board's MARR under the MARR policy named, or why there are none. Measures are estimates.
+/// <c>assumptionsIntact</c> is false when the stored assumptions no longer give their SHA-256 (changed outside the app).
 /// </summary>
 public sealed record VersionResponse(int ProposalId, string Reference, int Number, DateTimeOffset CreatedAt, string Reason, bool Frozen, DateTimeOffset? FrozenAt,
-    string AssumptionsHash, ProposalAssumptions Assumptions, int MarrPolicyVersion, EvaluationResponse? Evaluation, string? NotEvaluated);
+    string AssumptionsHash, ProposalAssumptions Assumptions, int MarrPolicyVersion, EvaluationResponse? Evaluation, string? NotEvaluated, bool AssumptionsIntact);
 
 /// <summary>A new draft as a lead sends it: the fields of the editor, the assumptions in the stored form.</summary>
 public sealed record NewProposalRequest(string? Title, string? Description, ProposalCategory? Category, RiskClass? RiskClass, ProposalAssumptions? Assumptions);

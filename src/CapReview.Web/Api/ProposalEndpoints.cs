@@ -74,7 +74,7 @@ public static class ProposalEndpoints
             var evaluation = VersionComparison.Evaluate(version.Assumptions, policy, proposal.RiskClass);
             return Results.Ok(new VersionResponse(proposal.Id, proposal.Reference, version.Number, version.CreatedAt, version.Reason, version.IsFrozen, version.FrozenAt,
                 version.AssumptionsHash, version.Assumptions, policy.Number, evaluation is null ? null : EvaluationResponse.From(evaluation),
-                evaluation is null ? "The model of this version is not complete." : null));
+                evaluation is null ? "The model of this version is not complete." : null, version.Intact));
         });
 
     private static async Task<IResult> CreateAsync(HttpRequest request, ProposalService proposals, CancellationToken cancellationToken)

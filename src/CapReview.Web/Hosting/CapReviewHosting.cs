@@ -29,7 +29,9 @@ public static partial class CapReviewHosting
         var storage = builder.Configuration.GetSection("Storage").Get<StorageOptions>() ?? new StorageOptions();
         services.Configure<OrganisationOptions>(builder.Configuration.GetSection("Organisation"));
         var database = storage.Database(builder.Configuration.GetConnectionString("CapReview"), builder.Environment.ContentRootPath);
-        services.AddReviews(database);
+        var audit = AuditKeySettings.Read(builder.Configuration, database, builder.Environment.ContentRootPath);
+        services.AddSingleton(audit);
+        services.AddReviews(database, audit.Keys, audit.HeadLog);
         services.AddCapReviewIdentity(database, secureCookiesOnly: !builder.Environment.IsDevelopment(), SessionLimits.Read(builder.Configuration));
         if (builder.Configuration["DataProtection:CertificatePath"] is { Length: > 0 } keyCertificate)
         {
@@ -90,7 +92,14 @@ public static partial class CapReviewHosting
         {
             DevelopmentSigning(app.Logger, app.Services.GetRequiredService<PacketOptions>().Signing.DevelopmentCertificatePath);
         }
+        if (app.Services.GetRequiredService<AuditKeySettings>().KeyFile is { } keyFile)
+        {
+            AuditKeyInFile(app.Logger, keyFile);
+        }
     }
+
+    [LoggerMessage(Level = LogLevel.Warning, Message = "The audit chain is keyed from {Path}: keep that file out of the database's backups and out of reach of whoever can write to the database, or configure Audit:Keys.")]
+    private static partial void AuditKeyInFile(ILogger logger, string path);
 
     [LoggerMessage(Level = LogLevel.Warning, Message = "Packets are signed with a development certificate ({Path}); configure Packets:Signing:CertificatePath for the organisation's.")]
     private static partial void DevelopmentSigning(ILogger logger, string path);

@@ -5,11 +5,13 @@ namespace CapReview.Web.Hosting;
 /// <summary>
 /// Verbs of the web app for a fresh install, so that automation never needs a browser:
 /// <c>create-admin --email a@b --name "A B" --password …</c>, <c>issue-token --email a@b --token-name ci</c> and
-/// <c>revoke-tokens --email a@b</c> (every token of that person; other app servers refuse them within 30 seconds).
+/// <c>revoke-tokens --email a@b</c> (every token of that person; other app servers refuse them within 30 seconds) and
+/// <c>audit-head</c> (prints where the audit chain stands and appends it to <c>Audit:HeadLog</c> when one is set: run it
+/// on a schedule and keep the log where the database's writers cannot reach).
 /// </summary>
 public static class CommandLine
 {
-    private static readonly string[] Verbs = ["create-admin", "issue-token", "revoke-tokens"];
+    private static readonly string[] Verbs = ["create-admin", "issue-token", "revoke-tokens", "audit-head"];
 
     public static bool Handles(string[] args) => args is [var verb, ..] && Verbs.Contains(verb);
 
@@ -24,6 +26,15 @@ public static class CommandLine
         {
             switch (args[0])
             {
+                case "audit-head":
+                    var head = await scope.ServiceProvider.GetRequiredService<Reviews.Audit.AuditQueries>().HeadAsync(CancellationToken.None).ConfigureAwait(false);
+                    var log = scope.ServiceProvider.GetRequiredService<Reviews.Audit.AuditHeadLog>();
+                    if (log.Path is not null)
+                    {
+                        log.Append(head);
+                    }
+                    await Console.Out.WriteLineAsync(head.ToLine()).ConfigureAwait(false);
+                    return 0;
                 case "create-admin":
                     var user = await identity.CreateUserAsync(Required(options, "email"), Required(options, "name"), Required(options, "password"), [RoleNames.Administrator]).ConfigureAwait(false);
                     await Console.Out.WriteLineAsync($"Administrator {user.Email} created.").ConfigureAwait(false);

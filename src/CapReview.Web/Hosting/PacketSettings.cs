@@ -1,12 +1,10 @@
 using CapReview.Packets;
-using Microsoft.Data.Sqlite;
 
 namespace CapReview.Web.Hosting;
 
 /// <summary>
 /// Reads the "Packets" section. A relative certificate path is taken from the content root; the development
-/// certificate, unless placed elsewhere, lives beside the SQLite database, or in the content root's db/ folder on
-/// PostgreSQL (kept out of the repository by .gitignore).
+/// certificate, unless placed elsewhere, lives in the <see cref="DataFolder"/>.
 /// </summary>
 public static class PacketSettings
 {
@@ -21,10 +19,7 @@ public static class PacketSettings
         }
         if (!Path.IsPathRooted(options.Signing.DevelopmentCertificatePath))
         {
-            string folder = database.Provider == Reviews.Storage.DatabaseProvider.Sqlite
-                ? Path.GetDirectoryName(Path.GetFullPath(new SqliteConnectionStringBuilder(database.ConnectionString).DataSource, contentRoot)) ?? contentRoot
-                : Path.Combine(contentRoot, "db");
-            options.Signing.DevelopmentCertificatePath = Path.Combine(folder, options.Signing.DevelopmentCertificatePath);
+            options.Signing.DevelopmentCertificatePath = Path.Combine(DataFolder.Of(database, contentRoot), options.Signing.DevelopmentCertificatePath);
         }
         return options;
     }

@@ -52,6 +52,10 @@ namespace CapReview.Reviews.Storage.Migrations
                         .HasMaxLength(64)
                         .HasColumnType("TEXT");
 
+                    b.Property<string>("KeyId")
+                        .HasMaxLength(40)
+                        .HasColumnType("TEXT");
+
                     b.Property<string>("PreviousHash")
                         .IsRequired()
                         .HasMaxLength(64)
@@ -582,6 +586,13 @@ namespace CapReview.Reviews.Storage.Migrations
                         .HasColumnType("INTEGER");
 
                     b.Property<string>("AssumptionsHash")
+                        .HasMaxLength(64)
+                        .HasColumnType("TEXT");
+
+                    b.Property<long?>("AuditEventCount")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<string>("AuditHeadHash")
                         .HasMaxLength(64)
                         .HasColumnType("TEXT");
 

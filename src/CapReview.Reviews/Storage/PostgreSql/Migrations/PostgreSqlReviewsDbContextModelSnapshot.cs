@@ -60,6 +60,10 @@ namespace CapReview.Reviews.Storage.PostgreSql.Migrations
                         .HasMaxLength(64)
                         .HasColumnType("character varying(64)");
 
+                    b.Property<string>("KeyId")
+                        .HasMaxLength(40)
+                        .HasColumnType("character varying(40)");
+
                     b.Property<string>("PreviousHash")
                         .IsRequired()
                         .HasMaxLength(64)
@@ -614,6 +618,13 @@ namespace CapReview.Reviews.Storage.PostgreSql.Migrations
                     NpgsqlPropertyBuilderExtensions.UseIdentityByDefaultColumn(b.Property<int>("Id"));
 
                     b.Property<string>("AssumptionsHash")
+                        .HasMaxLength(64)
+                        .HasColumnType("character varying(64)");
+
+                    b.Property<long?>("AuditEventCount")
+                        .HasColumnType("bigint");
+
+                    b.Property<string>("AuditHeadHash")
                         .HasMaxLength(64)
                         .HasColumnType("character varying(64)");
 
