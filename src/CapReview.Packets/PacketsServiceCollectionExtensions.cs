@@ -13,6 +13,7 @@ public static class PacketsServiceCollectionExtensions
         services.AddSingleton<PacketCertificateSource>();
         services.AddSingleton<PacketService>();
         services.AddSingleton<PacketJobRunner>();
+        services.AddSingleton<Signing.CycleDocumentSigning>();
         return services;
     }
 }

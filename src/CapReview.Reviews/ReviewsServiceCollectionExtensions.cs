@@ -10,6 +10,7 @@ using CapReview.Reviews.Proposals;
 using CapReview.Reviews.Storage;
 using Microsoft.EntityFrameworkCore;
 using Microsoft.Extensions.DependencyInjection;
+using Microsoft.Extensions.DependencyInjection.Extensions;
 
 namespace CapReview.Reviews;
 
@@ -28,6 +29,7 @@ public static class ReviewsServiceCollectionExtensions
         ArgumentNullException.ThrowIfNull(database);
         services.AddSingleton(auditKeys ?? AuditKeyRing.Ephemeral());
         services.AddSingleton(new AuditHeadLog(auditHeadLog));
+        services.TryAddSingleton(Interchange.TrustedSigners.None);
         if (database.Provider == DatabaseProvider.PostgreSql)
         {
             services.AddDbContextFactory<Storage.PostgreSql.PostgreSqlReviewsDbContext>(options => database.Apply(options));

@@ -12,8 +12,10 @@ public sealed class CycleImport
     {
     }
 
-    public CycleImport(int budgetCycleId, string documentSha256, string installation, string importedBy, string importedByName, DateTimeOffset importedAt)
+    public CycleImport(int budgetCycleId, string documentSha256, string installation, string importedBy, string importedByName, DateTimeOffset importedAt,
+        string signature)
     {
+        Signature = signature;
         BudgetCycleId = budgetCycleId;
         DocumentSha256 = documentSha256;
         Installation = installation;
@@ -36,4 +38,7 @@ public sealed class CycleImport
     public string ImportedByName { get; private set; } = "";
 
     public DateTimeOffset ImportedAt { get; private set; }
+
+    /// <summary>"unsigned", or who signed the document and that the signature was verified against a trusted certificate.</summary>
+    public string Signature { get; private set; } = "unsigned";
 }

@@ -23,7 +23,7 @@ public sealed record CycleImportResult(int CycleId, string CycleName, int Propos
 /// checked before anything is written (each problem named by its path in the document, every version's assumptions
 /// against their SHA-256), and the whole import is one transaction: it lands completely or not at all.
 /// </summary>
-public sealed class CycleImporter(ReviewWork work, AuditTrail audit, IPeopleDirectory people, TimeProvider clock)
+public sealed class CycleImporter(ReviewWork work, AuditTrail audit, IPeopleDirectory people, TimeProvider clock, TrustedSigners trusted)
 {
     /// <summary>The prefix of the user id recorded for someone who has no account in this installation.</summary>
     public const string ImportedPrefix = "imported:";
@@ -39,6 +39,21 @@ public sealed class CycleImporter(ReviewWork work, AuditTrail audit, IPeopleDire
         if (!actor.Has(Role.Administrator))
         {
             throw new AccessDeniedException("Only an administrator can import a cycle.");
+        }
+        string signature = "unsigned";
+        if (SignedCycleDocument.IsPacked(bytes))
+        {
+            var (content, detached, unpackError) = SignedCycleDocument.Unpack(bytes, CycleDocumentJson.MaxBytes);
+            if (unpackError is not null)
+            {
+                throw new ImportRefusedException([new InputError("document", unpackError)]);
+            }
+            var (valid, description) = SignedCycleDocument.Verify(content!, detached!, trusted.Sha256Thumbprints);
+            if (!valid)
+            {
+                throw new ImportRefusedException([new InputError("signature", description)]);
+            }
+            (bytes, signature) = (content!, description);
         }
         var (document, error) = CycleDocumentJson.Read(bytes);
         if (document is null)
@@ -155,10 +170,10 @@ public sealed class CycleImporter(ReviewWork work, AuditTrail audit, IPeopleDire
                 db.SignOffs.Add(new SignOff(cycle.Id, signers[k++], s.By!.Name!, Stored(s.SignedAt), s.DecisionsSigned ?? "[]"));
             }
             db.CycleImports.Add(new CycleImport(cycle.Id, documentHash, document.Installation is { Length: > 0 } from ? from.Trim() : "not named",
-                actor.UserId, actor.DisplayName, clock.GetUtcNow()));
+                actor.UserId, actor.DisplayName, clock.GetUtcNow(), signature));
             await db.SaveChangesAsync(cancellationToken).ConfigureAwait(false);
             await audit.AppendAsync(db, actor, "cycle.imported", "budget_cycle", cycle.Id.ToString(CultureInfo.InvariantCulture), null,
-                new { cycle.Name, DocumentSha256 = documentHash, Proposals = byReference.Count, Renamed = renamed, HeldByImporter = held, MarrPolicy = policy.Number }, cancellationToken).ConfigureAwait(false);
+                new { cycle.Name, DocumentSha256 = documentHash, Signature = signature, Proposals = byReference.Count, Renamed = renamed, HeldByImporter = held, MarrPolicy = policy.Number }, cancellationToken).ConfigureAwait(false);
             return new CycleImportResult(cycle.Id, cycle.Name, byReference.Count, renamed, held);
         }, cancellationToken).ConfigureAwait(false);
     }

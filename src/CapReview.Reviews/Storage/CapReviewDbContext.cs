@@ -158,6 +158,7 @@ public class CapReviewDbContext : DbContext
             i.Property(x => x.Installation).HasMaxLength(200);
             i.Property(x => x.ImportedBy).HasMaxLength(100);
             i.Property(x => x.ImportedByName).HasMaxLength(200);
+            i.Property(x => x.Signature).HasMaxLength(400);
             i.HasOne<BudgetCycle>().WithMany().HasForeignKey(x => x.BudgetCycleId).OnDelete(DeleteBehavior.Restrict);
         });
 

@@ -31,6 +31,7 @@ public static partial class CapReviewHosting
         var database = storage.Database(builder.Configuration.GetConnectionString("CapReview"), builder.Environment.ContentRootPath);
         var audit = AuditKeySettings.Read(builder.Configuration, database, builder.Environment.ContentRootPath);
         services.AddSingleton(audit);
+        services.AddSingleton(new Reviews.Interchange.TrustedSigners(builder.Configuration.GetSection("Interchange:TrustedSigners").Get<string[]>() ?? []));
         services.AddReviews(database, audit.Keys, audit.HeadLog);
         services.AddCapReviewIdentity(database, secureCookiesOnly: !builder.Environment.IsDevelopment(), SessionLimits.Read(builder.Configuration));
         if (builder.Configuration["DataProtection:CertificatePath"] is { Length: > 0 } keyCertificate)

@@ -63,6 +63,7 @@ public sealed partial class AuthorizationMatrix(ApiFactory factory) : IClassFixt
         ["/api/v1/cycles/{id:int}/packets"] = ("GET", "/api/v1/cycles/1/packets", ["401", "200", "200", "200", "200"]),
         ["/api/v1/packets/{id:int}"] = ("GET", "/api/v1/packets/1", ["401", "404", "404", "404", "404"]),
         ["/api/v1/cycles/{id:int}/document"] = ("GET", "/api/v1/cycles/1/document", ["401", "403", "200", "403", "200"]),
+        ["/api/v1/cycles/{id:int}/document/signed"] = ("GET", "/api/v1/cycles/1/document/signed", ["401", "403", "200", "403", "200"]),
         ["/api/v1/cycles/import"] = ("POST", "/api/v1/cycles/import", ["401", "403", "403", "403", "400"]),
         ["/openapi/{documentName}.json"] = ("GET", "/openapi/v1.json", ["401", "200", "200", "200", "200"]),
         ["/health/live"] = ("GET", "/health/live", ["200", "200", "200", "200", "200"]),

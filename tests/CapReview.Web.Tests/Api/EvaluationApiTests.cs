@@ -189,7 +189,7 @@ public sealed class EvaluationApiTests(ApiFactory factory) : IClassFixture<ApiFa
         Assert.Equal(
         [
             "AddComment", "AddContingency", "AddMarrPolicy", "CreateCycle", "CreateEvaluation", "CreateProposal",
-            "CreateRiskAnalysis", "DownloadPacket", "EditDraftVersion", "ExportCycle", "GetCycle", "GetCyclePortfolio",
+            "CreateRiskAnalysis", "DownloadPacket", "EditDraftVersion", "ExportCycle", "ExportSignedCycle", "GetCycle", "GetCyclePortfolio",
             "GetCycleRanking", "GetPacketJob", "GetPortfolioRules", "GetProposal", "GetProposalVersion",
             "GetVersionIncrementalAnalysis", "GetVersionReplacementAnalysis", "ImportCycle", "ListComments", "ListCyclePackets",
             "ListCycles", "ListDecisions", "ListMarrPolicies", "ListProposals", "ListSignOffs", "MoveCycle", "RecordDecision",

@@ -123,6 +123,37 @@ public sealed class CycleDocumentTests : IAsyncLifetime
     }
 
     [Fact]
+    public async Task A_signed_document_imports_only_from_a_trusted_signer_and_only_unchanged()
+    {
+        byte[] document = await ExportAsync(_source, "Capital plan 2027");
+        var signing = _source.Services.GetRequiredService<CapReview.Packets.Signing.CycleDocumentSigning>();
+        byte[] signature = await signing.SignAsync(document, CancellationToken.None);
+        byte[] signed = SignedCycleDocument.Pack("cycle-capital-plan-2027.json", document, signature);
+        string thumbprint = await signing.ThumbprintAsync(CancellationToken.None);
+
+        // Not trusted here (yet): refused, naming the signer's thumbprint to add.
+        var untrusted = await Assert.ThrowsAsync<ImportRefusedException>(() =>
+            _target.Services.GetRequiredService<CycleImporter>().ImportAsync(Admin, signed, CancellationToken.None));
+        Assert.Equal("signature", untrusted.Problems.Single().Field);
+        Assert.Contains(thumbprint, untrusted.Problems.Single().Message, StringComparison.Ordinal);
+
+        var trusting = ActivatorUtilities.CreateInstance<CycleImporter>(_target.Services, new TrustedSigners([thumbprint]));
+        // One character of the document changed after signing, hashes left as they were: the signature no longer holds.
+        byte[] edited = (byte[])document.Clone();
+        int at = Array.IndexOf(edited, (byte)'2', System.Text.Encoding.UTF8.GetString(document).IndexOf("\"capitalLimit\"", StringComparison.Ordinal));
+        edited[at] = (byte)'9';
+        var changed = await Assert.ThrowsAsync<ImportRefusedException>(() =>
+            trusting.ImportAsync(Admin, SignedCycleDocument.Pack("cycle-capital-plan-2027.json", edited, signature), CancellationToken.None));
+        Assert.Contains("changed after it was signed", changed.Problems.Single().Message, StringComparison.Ordinal);
+
+        var result = await trusting.ImportAsync(Admin, signed, CancellationToken.None);
+        var import = await _target.Services.GetRequiredService<CapReview.Reviews.Records.DecisionRecords>().ImportOfAsync(result.CycleId, CancellationToken.None);
+        Assert.StartsWith("signed by ", import!.Signature, StringComparison.Ordinal);
+        Assert.Contains(thumbprint, import.Signature, StringComparison.Ordinal);
+        Assert.Equal(Convert.ToHexStringLower(System.Security.Cryptography.SHA256.HashData(document)), import.DocumentSha256);
+    }
+
+    [Fact]
     public async Task A_second_import_of_the_same_cycle_or_a_changed_document_is_refused_and_changes_nothing()
     {
         var importer = _target.Services.GetRequiredService<CycleImporter>();

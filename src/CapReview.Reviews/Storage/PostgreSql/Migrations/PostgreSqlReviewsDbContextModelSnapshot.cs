@@ -302,6 +302,11 @@ namespace CapReview.Reviews.Storage.PostgreSql.Migrations
                         .HasMaxLength(200)
                         .HasColumnType("character varying(200)");
 
+                    b.Property<string>("Signature")
+                        .IsRequired()
+                        .HasMaxLength(400)
+                        .HasColumnType("character varying(400)");
+
                     b.HasKey("Id");
 
                     b.HasIndex("BudgetCycleId")
