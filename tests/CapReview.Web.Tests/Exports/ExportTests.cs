@@ -73,7 +73,7 @@ public sealed class ExportTests(ApiFactory factory) : IClassFixture<ApiFactory>
     {
         var admin = Actor.Of("export-admin", "Export Admin", Role.Administrator);
         var lead = Actor.Of("export-lead", "Export Lead", Role.ProjectLead);
-        var finance = Actor.Of("export-finance", "Export Finance", Role.Finance);
+        var board = Actor.Of("export-board", "Export Board", Role.Reviewer);
         var services = factory.Services;
         var marr = await services.GetRequiredService<MarrPolicyService>().AddVersionAsync(admin,
             new NewMarrPolicy(0.08, RateBasis.Effective, 1, new DateOnly(2027, 1, 1), "Export policy"), CancellationToken.None);
@@ -98,7 +98,7 @@ public sealed class ExportTests(ApiFactory factory) : IClassFixture<ApiFactory>
             await proposals.SubmitAsync(lead, draft.Id, cycle.Id, draft.Revision, CancellationToken.None);
         }
 
-        var ranking = await services.GetRequiredService<CycleRankingService>().RankAsync(finance, cycle.Id, 0, CancellationToken.None);
+        var ranking = await services.GetRequiredService<CycleRankingService>().RankAsync(board, cycle.Id, 0, CancellationToken.None);
         var rows = ReadCsv(CsvExport.Write(RankingExport.Table(ranking, "EUR")));
         string[] header = rows[0];
         string[] top = rows[1];
@@ -111,7 +111,7 @@ public sealed class ExportTests(ApiFactory factory) : IClassFixture<ApiFactory>
         Assert.Equal("unique", Field(top, "Rate of return note"));
         Assert.Equal(64, Field(top, "Assumptions SHA-256").Length);
 
-        var portfolio = await services.GetRequiredService<PortfolioService>().SelectAsync(finance, cycle.Id, new PortfolioQuery(), CancellationToken.None);
+        var portfolio = await services.GetRequiredService<PortfolioService>().SelectAsync(board, cycle.Id, new PortfolioQuery(), CancellationToken.None);
         var table = PortfolioExport.Table(portfolio, "EUR");
         Assert.Contains(table.Notes, n => n.StartsWith("Estimates, not advice", StringComparison.Ordinal));
         Assert.Contains(table.Notes, n => n.Contains("proven optimal", StringComparison.Ordinal));
