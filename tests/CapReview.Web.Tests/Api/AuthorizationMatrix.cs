@@ -261,6 +261,47 @@ public sealed partial class AuthorizationMatrix(MatrixApp app) : IClassFixture<M
         }
     }
 
+    public static TheoryData<string, string, CycleStatus> BadTokenCases()
+    {
+        var data = new TheoryData<string, string, CycleStatus>();
+        foreach (CycleStatus state in States)
+        {
+            // Every route a visitor must be signed in for: the API, the downloads, the pages and the OpenAPI document.
+            foreach (string route in Rules.Keys.Where(r => Rules[r].Open[0] is "401" or "signin"))
+            {
+                foreach (string kind in new[] { "never issued", "not a token", "revoked", "of a disabled account" })
+                {
+                    data.Add(route, kind, state);
+                }
+            }
+        }
+        return data;
+    }
+
+    /// <summary>
+    /// A token that is not (or no longer) valid gets 401 on every route that needs a signed-in caller, every /api/v1
+    /// route among them, before anything else is looked at: never a page, a redirect to the sign-in or a 403.
+    /// </summary>
+    [Theory]
+    [MemberData(nameof(BadTokenCases))]
+    public async Task Every_route_answers_a_token_that_is_not_valid_with_401(string route, string kind, CycleStatus state)
+    {
+        Rule rule = Rules[route];
+        MatrixCycle cycle = app[state];
+        string token = (await app.BadTokensAsync())[kind];
+        using HttpClient client = await app.ClientAsync(null);
+        using var request = new HttpRequestMessage(new HttpMethod(rule.Method), cycle.Resolve(rule.Path));
+        request.Headers.Authorization = new System.Net.Http.Headers.AuthenticationHeaderValue("Bearer", token);
+        if (rule.Method is "POST" or "PUT")
+        {
+            bool api = rule.Path.StartsWith("/api", StringComparison.Ordinal);
+            request.Content = new StringContent(api ? cycle.Resolve(Bodies.GetValueOrDefault(rule.Path, Evaluation)) : "", Encoding.UTF8,
+                api ? "application/json" : "application/x-www-form-urlencoded");
+        }
+        using HttpResponseMessage response = await client.SendAsync(request);
+        Assert.Equal(HttpStatusCode.Unauthorized, response.StatusCode);
+    }
+
     [Fact]
     public async Task A_download_without_a_cookie_or_a_valid_token_is_refused()
     {

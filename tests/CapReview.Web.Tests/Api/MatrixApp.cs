@@ -150,6 +150,35 @@ public sealed class MatrixApp : IAsyncLifetime
         return _cookies.GetOrAdd(role, cookie);
     }
 
+    private IReadOnlyDictionary<string, string>? _badTokens;
+
+    /// <summary>
+    /// Tokens no API route may accept, by kind: one never issued, one not even of the token's shape, one revoked, and
+    /// one of an account that was disabled after it was issued. Made once.
+    /// </summary>
+    public async Task<IReadOnlyDictionary<string, string>> BadTokensAsync()
+    {
+        if (_badTokens is not null)
+        {
+            return _badTokens;
+        }
+        var (revokedClient, revokedUser) = await Factory.TokenClientAsync("matrix.revoked.token@tarnby.example", RoleNames.Administrator);
+        var (disabledClient, disabledUser) = await Factory.TokenClientAsync("matrix.disabled.token@tarnby.example", RoleNames.Administrator);
+        string revoked = revokedClient.DefaultRequestHeaders.Authorization!.Parameter!;
+        string disabled = disabledClient.DefaultRequestHeaders.Authorization!.Parameter!;
+        revokedClient.Dispose();
+        disabledClient.Dispose();
+        await Factory.Services.GetRequiredService<ApiTokenService>().RevokeAllAsync(revokedUser, CancellationToken.None);
+        await Factory.Services.GetRequiredService<UserAdministration>().SetDisabledAsync(Admin, disabledUser, disabled: true);
+        return _badTokens = new Dictionary<string, string>(StringComparer.Ordinal)
+        {
+            ["never issued"] = "crv_" + new string('Q', 43),
+            ["not a token"] = "not-a-token",
+            ["revoked"] = revoked,
+            ["of a disabled account"] = disabled,
+        };
+    }
+
     public Task DisposeAsync()
     {
         Factory.Dispose();
