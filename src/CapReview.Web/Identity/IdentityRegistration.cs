@@ -104,9 +104,9 @@ public static class IdentityRegistration
             cookie.ExpireTimeSpan = sessions.Idle;
             cookie.SlidingExpiration = true;
             cookie.Events.OnSigningIn = sessions.OnSigningIn;
-            // The sign-in page decides where to go next (ReturnAddress). The handler would also redirect to the raw
-            // ReturnUrl of a sign-in made on /signin: unchecked, and decoded, so an address with "ü" in it is a header
-            // Kestrel refuses to send, and the sign-in failed.
+            // The sign-in page decides where to go next (ReturnAddress). The handler would first redirect a sign-in
+            // made on /signin to its ReturnUrl as decoded, unchecked; with a "ü" in it that is a header Kestrel
+            // refuses, and the sign-in answered without a place to go.
             cookie.Events.OnRedirectToReturnUrl = _ => Task.CompletedTask;
             cookie.Events.OnValidatePrincipal = sessions.OnValidatePrincipal;
             // The API answers 401 and 403; only pages redirect to the sign-in form.
