@@ -44,6 +44,12 @@ public sealed record SessionLimits(TimeSpan Idle, TimeSpan Absolute, TimeSpan St
     public async Task OnValidatePrincipal(CookieValidatePrincipalContext context)
     {
         ArgumentNullException.ThrowIfNull(context);
+        if (context.HttpContext.Request.Path.StartsWithSegments("/health"))
+        {
+            // The probes answer anyone and must not wait on the database: no one is signed in on them (the cookie stays).
+            context.RejectPrincipal();
+            return;
+        }
         bool expired = !context.Properties.Items.TryGetValue(SignedInAt, out string? at)
             || !DateTimeOffset.TryParse(at, CultureInfo.InvariantCulture, DateTimeStyles.RoundtripKind, out DateTimeOffset since)
             || context.Options.TimeProvider!.GetUtcNow() - since > Absolute;
