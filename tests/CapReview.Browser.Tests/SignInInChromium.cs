@@ -17,7 +17,7 @@ public sealed class SignInInChromium(BrowserFixture browser) : IClassFixture<Bro
         await page.Locator("#email").FillAsync("petra.form@tarnby.example");
         await page.Locator("#password").FillAsync("not-the-password-1");
         await page.GetByRole(AriaRole.Button, new() { Name = "Sign in" }).ClickAsync();
-        await Assertions.Expect(page.GetByTestId("signin-error")).ToHaveTextAsync("The email or the password is not right.");
+        await Assertions.Expect(page.GetByTestId("signin-error")).ToHaveTextAsync("The email or the password is not right, or the account is locked (for 10 minutes after 8 failed attempts, or by an administrator).");
         await BrowserFixture.ScreenshotAsync(page, "signin-error");
 
         await page.Locator("#password").FillAsync(AppHost.Password);

@@ -36,7 +36,7 @@ public sealed class PortfolioTests(ReviewsDatabase db) : IClassFixture<ReviewsDa
     public async Task The_ranking_orders_by_annual_worth_with_each_measure_and_shows_the_rules()
     {
         var (cycle, a, b, c, d) = await CycleOfFourAsync("Ranking 2027", 2_000_000m);
-        var ranking = await db.Rankings.RankAsync(Finance, cycle.Id, 0.0, None);
+        var ranking = await db.Rankings.RankAsync(Admin, cycle.Id, 0.0, None);
         Assert.Equal([b.Reference, a.Reference, c.Reference, d.Reference], ranking.Rows.Select(r => r.Proposal.Reference));
         var top = ranking.Rows[0];
         // Outside reference: Microsoft.VisualBasic.Financial.PV and Pmt at 8% over ten years.
@@ -83,7 +83,7 @@ public sealed class PortfolioTests(ReviewsDatabase db) : IClassFixture<ReviewsDa
     {
         var (cycle, _, _, c, d) = await CycleOfFourAsync("Withdrawn 2027", 2_000_000m);
         await db.Proposals.TransitionAsync(Lead, c.Id, ProposalStatus.Withdrawn, (await db.Proposals.GetAsync(Lead, c.Id, None)).Revision, None);
-        var result = await db.Portfolio.SelectAsync(Finance, cycle.Id, new PortfolioQuery(), None);
+        var result = await db.Portfolio.SelectAsync(Admin, cycle.Id, new PortfolioQuery(), None);
         Assert.DoesNotContain(result.Ranking.Rows, r => r.Proposal.Id == c.Id);
         Assert.Equal([(d.Reference, "its prerequisite is not in the ranking")], result.Excluded);
         Assert.DoesNotContain(d.Reference, result.Optimal.Chosen);

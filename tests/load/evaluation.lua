@@ -3,7 +3,7 @@
 wrk.method = "POST"
 wrk.headers["Content-Type"] = "application/json"
 wrk.headers["Authorization"] = "Bearer " .. os.getenv("CAPREVIEW_TOKEN")
--- As the TLS proxy in front would say (loopback is a known proxy); production answers plain HTTP with a redirect.
+-- As the TLS proxy in front would say (run.sh lists loopback as the known proxy); production answers plain HTTP with a redirect.
 wrk.headers["X-Forwarded-Proto"] = "https"
 wrk.body = [[{
   "horizon": 10,

@@ -8,10 +8,11 @@ cd "$(dirname "$0")/../.."
 connections="${1:-50}" seconds="${2:-60}" port=5098
 source tests/load/app.sh
 # The demo's accounts have no authenticator app; the page's speed, not the sign-in, is measured.
-export ASPNETCORE_ENVIRONMENT=Production Demo__Enabled=true AllowedHosts='*' Security__RequireTwoFactor=false ConnectionStrings__CapReview="Data Source=$work/load.db"
+export ASPNETCORE_ENVIRONMENT=Production Demo__Enabled=true AllowedHosts='*' Security__RequireTwoFactor=false ConnectionStrings__CapReview="Data Source=$work/load.db" \
+  ReverseProxy__KnownProxies__0=127.0.0.1
 start_app "$port"
 
-# As the TLS proxy would (loopback is a known proxy): the request came over HTTPS, so production's __Host- cookies
+# As the TLS proxy would (loopback is listed as the known proxy above): the request came over HTTPS, so production's __Host- cookies
 # are set; they are passed on by hand since curl keeps secure cookies for HTTPS addresses.
 base="http://127.0.0.1:$port" proxied=(-H "X-Forwarded-Proto: https")
 token="$(curl -fs -D "$work/form-headers" "${proxied[@]}" "$base/signin" | grep -o 'name="__RequestVerificationToken" value="[^"]*"' | head -n 1 | sed 's/.*value="//; s/"$//')"

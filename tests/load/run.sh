@@ -7,7 +7,8 @@ set -euo pipefail
 cd "$(dirname "$0")/../.."
 connections="${1:-50}" seconds="${2:-60}" port=5099
 source tests/load/app.sh
-export ASPNETCORE_ENVIRONMENT=Production Demo__Enabled=false AllowedHosts='*' RateLimits__ApiPerMinute=10000000
+# Loopback stands for the TLS proxy in front (evaluation.lua sends its X-Forwarded-Proto); it is believed only when listed.
+export ASPNETCORE_ENVIRONMENT=Production Demo__Enabled=false AllowedHosts='*' RateLimits__ApiPerMinute=10000000 ReverseProxy__KnownProxies__0=127.0.0.1
 if [ -n "${CAPREVIEW_LOAD_POSTGRES:-}" ]; then
   export Storage__Provider=PostgreSql ConnectionStrings__CapReview="$CAPREVIEW_LOAD_POSTGRES"
 else

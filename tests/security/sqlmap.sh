@@ -8,7 +8,8 @@ set -euo pipefail
 cd "$(dirname "$0")/../.."
 level="${1:-3}" risk="${2:-2}" port=5098
 source tests/load/app.sh
-export ASPNETCORE_ENVIRONMENT=Production Demo__Enabled=true AllowedHosts='*' RateLimits__ApiPerMinute=10000000 RateLimits__SignInPerMinute=10000000
+export ASPNETCORE_ENVIRONMENT=Production Demo__Enabled=true AllowedHosts='*' RateLimits__ApiPerMinute=10000000 RateLimits__SignInPerMinute=10000000 \
+  ReverseProxy__KnownProxies__0=127.0.0.1
 if [ -n "${CAPREVIEW_LOAD_POSTGRES:-}" ]; then
   export Storage__Provider=PostgreSql ConnectionStrings__CapReview="$CAPREVIEW_LOAD_POSTGRES"
 else
@@ -18,7 +19,7 @@ start_app "$port"
 token() { (cd "$work/app" && dotnet CapReview.Web.dll issue-token --email "$1" --token-name sqlmap | grep -o 'crv_[A-Za-z0-9_-]*' | head -n 1); }
 admin="$(token ines.varga@tarnby.example)" lead="$(token oskar.lind@tarnby.example)" finance="$(token rui.costa@tarnby.example)"
 base="http://127.0.0.1:$port"
-# As the TLS proxy in front would say (loopback is a known proxy); production answers plain HTTP with a redirect.
+# As the TLS proxy in front would say (loopback is listed as the known proxy above); production answers plain HTTP with a redirect.
 proxied=(-H "X-Forwarded-Proto: https")
 cycle="$(curl -fs "${proxied[@]}" -H "Authorization: Bearer $finance" "$base/api/v1/cycles" | grep -o '"id":[0-9]*' | tail -n 1 | cut -d: -f2)"
 proposal="$(curl -fs "${proxied[@]}" -H "Authorization: Bearer $lead" "$base/api/v1/proposals" | grep -o '"id":[0-9]*' | head -n 1 | cut -d: -f2)"
@@ -33,8 +34,9 @@ probe() { # probe NAME TOKEN sqlmap-arguments…
 }
 mkdir -p "$report"
 # A route value marked with * is probed alone, so the query string has a probe of its own.
-probe ranking-query "$finance" -u "$base/api/v1/cycles/$cycle/ranking?shift=1&limit=1500000&objective=annualWorth&basis=afterTax"
-probe ranking-route "$finance" -u "$base/api/v1/cycles/$cycle*/ranking"
+# The administrator's token: finance sees a cycle's ranking only once it is decided.
+probe ranking-query "$admin" -u "$base/api/v1/cycles/$cycle/ranking?shift=1&limit=1500000&objective=annualWorth&basis=afterTax"
+probe ranking-route "$admin" -u "$base/api/v1/cycles/$cycle*/ranking"
 probe proposal "$lead" -u "$base/api/v1/proposals/$proposal*"
 probe version "$lead" -u "$base/api/v1/proposals/$proposal*/versions/1*"
 probe document "$admin" -u "$base/api/v1/cycles/$cycle*/document"

@@ -49,7 +49,7 @@ public sealed class CommentService(ReviewWork work, AuditTrail audit, TimeProvid
     private static async Task<Proposal> VisibleAsync(CapReviewDbContext db, Actor actor, int proposalId, CancellationToken cancellationToken)
     {
         Proposal? proposal = await db.Proposals.Include(p => p.Versions).SingleOrDefaultAsync(p => p.Id == proposalId, cancellationToken).ConfigureAwait(false);
-        return proposal is not null && ProposalAccess.CanSee(actor, proposal)
+        return proposal is not null && await ProposalAccess.CanSeeAsync(db, actor, proposal, cancellationToken).ConfigureAwait(false)
             ? proposal
             : throw new NotFoundException("There is no such proposal.");
     }

@@ -108,12 +108,10 @@ public sealed class DecisionService(ReviewWork work, AuditTrail audit, TimeProvi
         ArgumentNullException.ThrowIfNull(actor);
         return work.ReadAsync<IReadOnlyList<DecisionView>>(async db =>
         {
-            if (!await db.BudgetCycles.AnyAsync(c => c.Id == cycleId, cancellationToken).ConfigureAwait(false))
-            {
-                throw new NotFoundException("There is no such budget cycle.");
-            }
+            BudgetCycle cycle = await db.BudgetCycles.SingleOrDefaultAsync(c => c.Id == cycleId, cancellationToken).ConfigureAwait(false)
+                ?? throw new NotFoundException("There is no such budget cycle.");
             var proposals = await db.Proposals.Where(p => p.BudgetCycleId == cycleId).ToListAsync(cancellationToken).ConfigureAwait(false);
-            var visible = proposals.Where(p => ProposalAccess.CanSee(actor, p)).ToDictionary(p => p.Id, p => p.Reference);
+            var visible = proposals.Where(p => ProposalAccess.CanSee(actor, p, cycle.Status)).ToDictionary(p => p.Id, p => p.Reference);
             var decisions = await db.Decisions.Where(d => d.BudgetCycleId == cycleId).OrderBy(d => d.Id).ToListAsync(cancellationToken).ConfigureAwait(false);
             return [.. decisions.Where(d => visible.ContainsKey(d.ProposalId)).Select(d => DecisionView.Of(d, visible[d.ProposalId]))];
         }, cancellationToken);

@@ -30,7 +30,10 @@ public sealed class CycleRankingService(ReviewWork work)
         return Rank(inputs, marrShift, afterTax);
     }
 
-    /// <summary>What the cycle's ranking is computed from, in one read; for the board, finance and administrators.</summary>
+    /// <summary>
+    /// What the cycle's ranking is computed from, in one read; for the board and administrators, and for finance once
+    /// the cycle is decided (<see cref="ProposalAccess.CanSeeProposalsOf"/>).
+    /// </summary>
     public Task<CycleRankingInputs> LoadAsync(Actor actor, int cycleId, CancellationToken cancellationToken)
     {
         ArgumentNullException.ThrowIfNull(actor);
@@ -42,6 +45,8 @@ public sealed class CycleRankingService(ReviewWork work)
         {
             BudgetCycle cycle = await db.BudgetCycles.SingleOrDefaultAsync(c => c.Id == cycleId, cancellationToken).ConfigureAwait(false)
                 ?? throw new NotFoundException("There is no such budget cycle.");
+            // Every face (the pages, the API, the downloads) reads a cycle's proposals through here, so the rule holds for all.
+            ProposalAccess.RequireProposalsOf(actor, cycle, "the ranking and portfolio");
             var marr = await db.MarrPolicyVersions.SingleAsync(m => m.Id == cycle.MarrPolicyVersionId, cancellationToken).ConfigureAwait(false);
             var proposals = await db.Proposals.Include(p => p.Versions)
                 .Where(p => p.BudgetCycleId == cycleId && Ranked.Contains(p.Status))

@@ -3,6 +3,7 @@ using CapReview.Reviews.Access;
 using CapReview.Reviews.Audit;
 using CapReview.Reviews.Common;
 using CapReview.Reviews.Cycles;
+using CapReview.Reviews.Proposals;
 using CapReview.Reviews.Storage;
 using Microsoft.EntityFrameworkCore;
 
@@ -20,7 +21,7 @@ public sealed class PortfolioRulesService(ReviewWork work, AuditTrail audit)
     public Task<PortfolioRules> GetAsync(int cycleId, CancellationToken cancellationToken) =>
         work.ReadAsync(db => LoadAsync(db, cycleId, cancellationToken), cancellationToken);
 
-    /// <summary>The rules as the board, finance and administrators read them; a missing cycle is not found.</summary>
+    /// <summary>The rules as the board and administrators read them, and finance once the cycle is decided; a missing cycle is not found.</summary>
     public Task<PortfolioRules> GetAsync(Actor actor, int cycleId, CancellationToken cancellationToken)
     {
         ArgumentNullException.ThrowIfNull(actor);
@@ -30,10 +31,10 @@ public sealed class PortfolioRulesService(ReviewWork work, AuditTrail audit)
         }
         return work.ReadAsync(async db =>
         {
-            if (!await db.BudgetCycles.AnyAsync(c => c.Id == cycleId, cancellationToken).ConfigureAwait(false))
-            {
-                throw new NotFoundException("There is no such budget cycle.");
-            }
+            BudgetCycle cycle = await db.BudgetCycles.SingleOrDefaultAsync(c => c.Id == cycleId, cancellationToken).ConfigureAwait(false)
+                ?? throw new NotFoundException("There is no such budget cycle.");
+            // The rules name the cycle's proposals (groups of alternatives, prerequisites): the ranking's rule applies.
+            ProposalAccess.RequireProposalsOf(actor, cycle, "the portfolio rules");
             return await LoadAsync(db, cycleId, cancellationToken).ConfigureAwait(false);
         }, cancellationToken);
     }

@@ -194,9 +194,11 @@ public sealed class ProposalService(ReviewWork work, AuditTrail audit, TimeProvi
         ArgumentNullException.ThrowIfNull(actor);
         return work.ReadAsync<IReadOnlyList<ProposalView>>(async db =>
         {
+            CycleStatus? status = await db.BudgetCycles.Where(c => c.Id == cycleId).Select(c => (CycleStatus?)c.Status)
+                .SingleOrDefaultAsync(cancellationToken).ConfigureAwait(false);
             var inCycle = await db.Proposals.Include(p => p.Versions).Where(p => p.BudgetCycleId == cycleId)
                 .OrderBy(p => p.Id).ToListAsync(cancellationToken).ConfigureAwait(false);
-            return [.. inCycle.Where(p => ProposalAccess.CanSee(actor, p)).Select(ProposalView.Of)];
+            return [.. inCycle.Where(p => ProposalAccess.CanSee(actor, p, status)).Select(ProposalView.Of)];
         }, cancellationToken);
     }
 
@@ -204,7 +206,7 @@ public sealed class ProposalService(ReviewWork work, AuditTrail audit, TimeProvi
     {
         Proposal? proposal = await db.Proposals.Include(p => p.Versions)
             .SingleOrDefaultAsync(p => p.Id == proposalId, cancellationToken).ConfigureAwait(false);
-        if (proposal is null || !ProposalAccess.CanSee(actor, proposal))
+        if (proposal is null || !await ProposalAccess.CanSeeAsync(db, actor, proposal, cancellationToken).ConfigureAwait(false))
         {
             // Another lead's draft is reported exactly like a missing one, so ids reveal nothing.
             throw new NotFoundException("There is no such proposal.");

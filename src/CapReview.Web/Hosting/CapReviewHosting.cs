@@ -66,12 +66,20 @@ public static partial class CapReviewHosting
         services.AddHsts(options => options.MaxAge = TimeSpan.FromDays(365));
         services.Configure<ForwardedHeadersOptions>(options =>
         {
-            // Behind the reverse proxy (deploy/nginx): the client's address and scheme, from proxies listed in
-            // ReverseProxy:KnownProxies only (loopback by default).
-            options.ForwardedHeaders = ForwardedHeaders.XForwardedFor | ForwardedHeaders.XForwardedProto | ForwardedHeaders.XForwardedHost;
-            foreach (string proxy in builder.Configuration.GetSection("ReverseProxy:KnownProxies").Get<string[]>() ?? [])
+            // Behind the reverse proxy (deploy/nginx): the client's address and scheme, believed only from the proxies
+            // listed in ReverseProxy:KnownProxies. The framework would believe loopback too, which anyone on the host
+            // can connect from; and with no proxy known at all it would believe every sender, so then nothing is read.
+            options.KnownProxies.Clear();
+            options.KnownIPNetworks.Clear();
+            string[] proxies = builder.Configuration.GetSection("ReverseProxy:KnownProxies").Get<string[]>() ?? [];
+            options.ForwardedHeaders = proxies.Length == 0
+                ? ForwardedHeaders.None
+                : ForwardedHeaders.XForwardedFor | ForwardedHeaders.XForwardedProto | ForwardedHeaders.XForwardedHost;
+            foreach (string proxy in proxies)
             {
-                options.KnownProxies.Add(System.Net.IPAddress.Parse(proxy));
+                options.KnownProxies.Add(System.Net.IPAddress.TryParse(proxy, out var address)
+                    ? address
+                    : throw new InvalidOperationException($"ReverseProxy:KnownProxies: “{proxy}” is not an IP address; list the reverse proxy's address, such as 127.0.0.1."));
             }
         });
         return builder;

@@ -5,7 +5,8 @@ namespace CapReview.Web.Identity;
 
 /// <summary>
 /// Sign-out as a form post (the sign-in form is the /signin page). It ends the account's sessions on every device
-/// (a copied cookie stops working within Security:SessionCheckSeconds) and tells the browser to forget this site's data.
+/// (a copied cookie is refused at its next request, on every app server: <see cref="SessionCheck"/>) and tells the
+/// browser to forget this site's data.
 /// </summary>
 public static class AccountEndpoints
 {

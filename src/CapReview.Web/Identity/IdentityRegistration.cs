@@ -27,8 +27,8 @@ public static class IdentityRegistration
     /// <param name="services">The app's services.</param>
     /// <param name="database">Where the accounts, tokens and data-protection keys are kept.</param>
     /// <param name="secureCookiesOnly">
-    /// Outside development: the sign-in and form cookies are sent over HTTPS only and carry the __Host- prefix, so no
-    /// other host or path can set or overwrite them (the app is served from the root of its own host name).
+    /// Outside development: every cookie (session, two-step, form) is sent over HTTPS only and carries the __Host-
+    /// prefix (<see cref="CookieRules"/>).
     /// </param>
     /// <param name="sessions">How long a browser session lasts and how often it is checked against the account.</param>
     public static IServiceCollection AddCapReviewIdentity(this IServiceCollection services, DatabaseSettings database, bool secureCookiesOnly, SessionLimits sessions)
@@ -85,18 +85,29 @@ public static class IdentityRegistration
             .AddIdentityCookies();
         services.AddAuthentication()
             .AddScheme<AuthenticationSchemeOptions, ApiTokenAuthenticationHandler>(ApiTokenAuthenticationHandler.SchemeName, null);
+        // Identity's other cookies: the one that carries a person from the password to the code, and two that
+        // CapReview never sets (it remembers no device and has no external sign-in), under the same rules all the same.
+        foreach (var (scheme, name) in new[]
+        {
+            (IdentityConstants.TwoFactorUserIdScheme, "capreview-two-step"),
+            (IdentityConstants.TwoFactorRememberMeScheme, "capreview-device"),
+            (IdentityConstants.ExternalScheme, "capreview-external"),
+        })
+        {
+            services.Configure<Microsoft.AspNetCore.Authentication.Cookies.CookieAuthenticationOptions>(scheme, cookie => CookieRules.Apply(cookie.Cookie, name, secureCookiesOnly));
+        }
         services.ConfigureApplicationCookie(cookie =>
         {
-            cookie.Cookie.Name = secureCookiesOnly ? "__Host-capreview" : "capreview";
-            cookie.Cookie.SecurePolicy = secureCookiesOnly ? CookieSecurePolicy.Always : CookieSecurePolicy.SameAsRequest;
-            cookie.Cookie.Path = "/";
-            cookie.Cookie.HttpOnly = true;
-            cookie.Cookie.SameSite = SameSiteMode.Strict;
+            CookieRules.Apply(cookie.Cookie, "capreview", secureCookiesOnly);
             cookie.LoginPath = "/signin";
             cookie.AccessDeniedPath = "/denied";
             cookie.ExpireTimeSpan = sessions.Idle;
             cookie.SlidingExpiration = true;
             cookie.Events.OnSigningIn = sessions.OnSigningIn;
+            // The sign-in page decides where to go next (ReturnAddress). The handler would first redirect a sign-in
+            // made on /signin to its ReturnUrl as decoded, unchecked; with a "ü" in it that is a header Kestrel
+            // refuses, and the sign-in answered without a place to go.
+            cookie.Events.OnRedirectToReturnUrl = _ => Task.CompletedTask;
             cookie.Events.OnValidatePrincipal = sessions.OnValidatePrincipal;
             // The API answers 401 and 403; only pages redirect to the sign-in form.
             cookie.Events.OnRedirectToLogin = context => Answer(context, StatusCodes.Status401Unauthorized);
@@ -125,12 +136,7 @@ public static class IdentityRegistration
                 return Task.CompletedTask;
             };
         });
-        services.AddAntiforgery(antiforgery =>
-        {
-            antiforgery.Cookie.Name = secureCookiesOnly ? "__Host-capreview-form" : "capreview-form";
-            antiforgery.Cookie.SecurePolicy = secureCookiesOnly ? CookieSecurePolicy.Always : CookieSecurePolicy.SameAsRequest;
-            antiforgery.Cookie.Path = "/";
-        });
+        services.AddAntiforgery(antiforgery => CookieRules.Apply(antiforgery.Cookie, "capreview-form", secureCookiesOnly));
         services.AddAuthorizationBuilder()
             .AddPolicy(SignedIn, policy => policy.RequireAuthenticatedUser())
             .AddPolicy(Api, policy => policy
@@ -147,6 +153,8 @@ public static class IdentityRegistration
         services.AddSingleton<CapReview.Reviews.Interchange.IPeopleDirectory, PeopleDirectory>();
         services.AddScoped<IdentityStore>();
         services.AddScoped<TwoStepSignIn>();
+        services.AddScoped<PasswordSignIn>();
+        services.AddSingleton<UnknownAccountHash>();
         services.AddSingleton<UserAdministration>();
         return services;
     }

@@ -101,7 +101,7 @@ public sealed class UserAdministration(IServiceScopeFactory scopes, ReviewWork w
         return first;
     }
 
-    /// <summary>Ends every session of the user on every device (within Security:SessionCheckSeconds); they sign in again.</summary>
+    /// <summary>Ends every session of the user on every device (at its next request; an open page within Security:SessionCheckSeconds); they sign in again.</summary>
     public Task EndSessionsAsync(Actor actor, string userId) => ChangeAsync(actor, userId, "user.sessions-ended", users => Task.FromResult(IdentityResult.Success));
 
     /// <summary>

@@ -4,8 +4,9 @@ namespace CapReview.Web.Importing;
 
 /// <summary>
 /// Reads a CSV file with CsvHelper: the separator detected (comma, semicolon, tab or bar, so a file saved by a
-/// spreadsheet in a comma-decimal culture reads too), lines starting with # skipped (the notes of our own exports),
-/// each row numbered by its line in the file.
+/// spreadsheet in a comma-decimal culture reads too), lines starting with # skipped (the notes of exports from earlier
+/// versions, and comments people add), each row numbered by its line in the file. Our exports' title and notes are now
+/// ordinary rows above the header, which the import passes over while it looks for the header.
 /// </summary>
 public static class CsvSheetReader
 {

@@ -22,7 +22,8 @@ public sealed class PortfolioApiTests(ApiFactory factory) : IClassFixture<ApiFac
 
     private static double PresentWorth(double cost, double saving, double rate = 0.10) => -cost - Financial.PV(rate, 10, saving);
 
-    private async Task<HttpClient> FinanceAsync() => (await factory.TokenClientAsync("portfolio.finance@tarnby.example", RoleNames.Finance)).Client;
+    /// <summary>A board member's token: the cycles here are open, and finance sees a cycle's portfolio only once it is decided.</summary>
+    private async Task<HttpClient> BoardAsync() => (await factory.TokenClientAsync("portfolio.board@tarnby.example", RoleNames.Reviewer)).Client;
 
     /// <summary>A cycle at 10 % with a limit of 500,000 and the proposals given (cost, yearly saving), submitted in order.</summary>
     private async Task<(BudgetCycle Cycle, List<ProposalView> Proposals)> CycleAsync(string name, params (string Title, double Cost, double Saving)[] drafts)
@@ -46,8 +47,8 @@ public sealed class PortfolioApiTests(ApiFactory factory) : IClassFixture<ApiFac
         // B and C together (500,000) are worth more.
         var (cycle, p) = await CycleAsync("Portfolio API 2027", ("Hall crane", 300_000, 58_600), ("Kiln burners", 250_000, 49_700), ("Dust extraction", 250_000, 48_800));
         string a = p[0].Reference, b = p[1].Reference, c = p[2].Reference;
-        using HttpClient finance = await FinanceAsync();
-        using JsonDocument answer = JsonDocument.Parse(await finance.GetStringAsync($"/api/v1/cycles/{cycle.Id}/portfolio"));
+        using HttpClient board = await BoardAsync();
+        using JsonDocument answer = JsonDocument.Parse(await board.GetStringAsync($"/api/v1/cycles/{cycle.Id}/portfolio"));
         JsonElement root = answer.RootElement;
 
         Assert.Equal("presentWorth", root.GetProperty("objective").GetString());
@@ -84,16 +85,16 @@ public sealed class PortfolioApiTests(ApiFactory factory) : IClassFixture<ApiFac
     public async Task The_portfolio_answers_the_pages_what_ifs_and_refuses_what_it_cannot_read()
     {
         var (cycle, p) = await CycleAsync("Portfolio what-if 2027", ("Hall crane", 300_000, 58_600), ("Kiln burners", 250_000, 49_700), ("Dust extraction", 250_000, 48_800));
-        using HttpClient finance = await FinanceAsync();
+        using HttpClient board = await BoardAsync();
 
         // 300,000 funds only one: A is worth more than B.
-        using (JsonDocument narrow = JsonDocument.Parse(await finance.GetStringAsync($"/api/v1/cycles/{cycle.Id}/portfolio?limit=300000")))
+        using (JsonDocument narrow = JsonDocument.Parse(await board.GetStringAsync($"/api/v1/cycles/{cycle.Id}/portfolio?limit=300000")))
         {
             Assert.Equal([p[0].Reference], narrow.RootElement.GetProperty("optimal").GetProperty("chosen").EnumerateArray().Select(x => x.GetString()));
             Assert.Equal(0, narrow.RootElement.GetProperty("difference").GetProperty("worth").GetDouble(), 6);
         }
         // Annual worth at a MARR raised by 2 points: each worth is Pmt at 12 % of the present worth at 12 %.
-        using (JsonDocument annual = JsonDocument.Parse(await finance.GetStringAsync($"/api/v1/cycles/{cycle.Id}/portfolio?objective=annualWorth&shift=2")))
+        using (JsonDocument annual = JsonDocument.Parse(await board.GetStringAsync($"/api/v1/cycles/{cycle.Id}/portfolio?objective=annualWorth&shift=2")))
         {
             JsonElement root = annual.RootElement;
             Assert.Equal("annualWorth", root.GetProperty("objective").GetString());
@@ -102,12 +103,12 @@ public sealed class PortfolioApiTests(ApiFactory factory) : IClassFixture<ApiFac
             Assert.Equal(expected, root.GetProperty("optimal").GetProperty("totalWorth").GetDouble(), 6);
         }
 
-        using var badObjective = await finance.GetAsync($"/api/v1/cycles/{cycle.Id}/portfolio?objective=most");
+        using var badObjective = await board.GetAsync($"/api/v1/cycles/{cycle.Id}/portfolio?objective=most");
         Assert.Equal(HttpStatusCode.BadRequest, badObjective.StatusCode);
         Assert.Contains("\"objective\"", await badObjective.Content.ReadAsStringAsync(), StringComparison.Ordinal);
-        using var badLimit = await finance.GetAsync($"/api/v1/cycles/{cycle.Id}/portfolio?limit=-5");
+        using var badLimit = await board.GetAsync($"/api/v1/cycles/{cycle.Id}/portfolio?limit=-5");
         Assert.Equal(HttpStatusCode.BadRequest, badLimit.StatusCode);
-        using var missing = await finance.GetAsync("/api/v1/cycles/99999/portfolio");
+        using var missing = await board.GetAsync("/api/v1/cycles/99999/portfolio");
         Assert.Equal(HttpStatusCode.NotFound, missing.StatusCode);
         Assert.Equal("application/problem+json", missing.Content.Headers.ContentType?.MediaType);
         using HttpClient lead = await factory.CreateAuthenticatedClientAsync();
@@ -120,7 +121,6 @@ public sealed class PortfolioApiTests(ApiFactory factory) : IClassFixture<ApiFac
     {
         var (cycle, p) = await CycleAsync("Incremental API 2027", ("Boiler, small", 200_000, 40_000), ("Boiler, large", 260_000, 50_000), ("Roof lights", 50_000, 9_000));
         await factory.Services.GetRequiredService<PortfolioRulesService>().SaveGroupAsync(Board, cycle.Id, new GroupDraft("Boiler", true, [p[0].Id, p[1].Id]), None);
-        using HttpClient finance = await FinanceAsync();
         var (boardClient, _) = await factory.TokenClientAsync("incremental.board@tarnby.example", RoleNames.Reviewer);
         using (boardClient)
         {

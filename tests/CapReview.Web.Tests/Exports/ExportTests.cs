@@ -9,7 +9,6 @@ using CapReview.Reviews.Portfolio;
 using CapReview.Reviews.Proposals;
 using CapReview.Web.Exports;
 using CapReview.Web.Tests.Api;
-using CsvHelper;
 using DocumentFormat.OpenXml.Packaging;
 using DocumentFormat.OpenXml.Spreadsheet;
 using Microsoft.Extensions.DependencyInjection;
@@ -23,30 +22,46 @@ public sealed class ExportTests(ApiFactory factory) : IClassFixture<ApiFactory>
         [new("Reference", ExportKind.Text), new("Worth", ExportKind.Money), new("Rate", ExportKind.Percent), new("Rank", ExportKind.Whole)],
         [["P-0001", -1234.5, 0.0725, 1], ["=HYPERLINK(\"x\")", null, null, 2]]);
 
-    private static List<string[]> ReadCsv(byte[] bytes)
-    {
-        // Read back with CsvHelper itself, skipping the comment lines.
-        using CsvReader reader = CsvReader.Create(bytes, new CsvReaderOptions { CommentPrefix = '#', HasHeader = false });
-        var rows = new List<string[]>();
-        while (reader.Read())
-        {
-            rows.Add([.. Enumerable.Range(0, reader.FieldCount).Select(reader.GetString)]);
-        }
-        return rows;
-    }
+    /// <summary>The table's rows from its header row (first cell <paramref name="firstHeader"/>) on, as a spreadsheet reads the file.</summary>
+    private static List<string[]> ReadCsv(byte[] bytes, string firstHeader = "Rank") =>
+        [.. SpreadsheetCells.Read(bytes).SkipWhile(r => r[0] != firstHeader).Select(r => r.ToArray())];
 
     [Fact]
-    public void Csv_keeps_numbers_as_invariant_numbers_notes_as_comments_and_escapes_formulas()
+    public void Csv_keeps_numbers_as_invariant_numbers_and_puts_the_title_and_notes_first_in_lines_as_wide_as_the_table()
     {
         byte[] bytes = CsvExport.Write(Sample);
         Assert.Equal([0xEF, 0xBB, 0xBF], bytes[..3]);
         string text = System.Text.Encoding.UTF8.GetString(bytes[3..]);
-        Assert.StartsWith("# Sample export\r\n# A note\r\n# Estimates, not advice.\r\n", text, StringComparison.Ordinal);
-        var rows = ReadCsv(bytes);
+        Assert.StartsWith("Sample export,,,\r\nA note,,,\r\n\"Estimates, not advice.\",,,\r\nReference,Worth,Rate,Rank\r\n", text, StringComparison.Ordinal);
+        var rows = ReadCsv(bytes, "Reference");
         Assert.Equal(["Reference", "Worth", "Rate", "Rank"], rows[0]);
         Assert.Equal(["P-0001", "-1234.5", "0.0725", "1"], rows[1]);
         Assert.False(rows[2][0].StartsWith('='), "a formula in a title must not reach a spreadsheet as a formula");
         Assert.Equal("", rows[2][1]);
+    }
+
+    // Text a person could type into a cycle's name, a proposal's title or an element's label, in the title, the notes,
+    // a header and a cell: formula starts (OWASP's = + - @ tab CR), commas, quotes and line breaks.
+    private static readonly ExportTable Hostile = new("=HYPERLINK(\"https://elsewhere.example\",\"Open\")",
+        ["Cycle Hall 3,=1+2,@SUM(A1)", "+cmd|' /C calc'!A0", "-2+3", "@SUM(A1)", "\tTab first", "\rCR first", "two lines\n=1+1", "says \"quoted\", then =1+1"],
+        [new("=Label", ExportKind.Text), new("Worth", ExportKind.Money)],
+        [["=1+1", -1234.5], ["Plain, with a comma", 2.0]]);
+
+    [Fact]
+    public void Csv_writes_every_line_title_notes_and_headers_included_through_the_same_quoting_and_formula_escaping()
+    {
+        var cells = SpreadsheetCells.Read(CsvExport.Write(Hostile));
+        // Every line is as wide as the table: a comma or line break in a note never makes cells of its own.
+        Assert.All(cells, row => Assert.Equal(2, row.Count));
+        Assert.DoesNotContain(cells.SelectMany(r => r), SpreadsheetCells.MayRunAsFormula);
+        // Each text whole in its first cell; a possible formula behind an apostrophe, which spreadsheets read as "this is text".
+        Assert.Equal(
+            [
+                "'=HYPERLINK(\"https://elsewhere.example\",\"Open\")", "Cycle Hall 3,=1+2,@SUM(A1)", "'+cmd|' /C calc'!A0", "'-2+3", "'@SUM(A1)",
+                "'\tTab first", "'\rCR first", "two lines\n=1+1", "says \"quoted\", then =1+1", "'=Label", "'=1+1", "Plain, with a comma",
+            ],
+            cells.Select(r => r[0]));
+        Assert.Equal(["-1234.5", "2"], cells.Skip(cells.Count - 2).Select(r => r[1]));
     }
 
     [Fact]
@@ -73,7 +88,7 @@ public sealed class ExportTests(ApiFactory factory) : IClassFixture<ApiFactory>
     {
         var admin = Actor.Of("export-admin", "Export Admin", Role.Administrator);
         var lead = Actor.Of("export-lead", "Export Lead", Role.ProjectLead);
-        var finance = Actor.Of("export-finance", "Export Finance", Role.Finance);
+        var board = Actor.Of("export-board", "Export Board", Role.Reviewer);
         var services = factory.Services;
         var marr = await services.GetRequiredService<MarrPolicyService>().AddVersionAsync(admin,
             new NewMarrPolicy(0.08, RateBasis.Effective, 1, new DateOnly(2027, 1, 1), "Export policy"), CancellationToken.None);
@@ -98,7 +113,7 @@ public sealed class ExportTests(ApiFactory factory) : IClassFixture<ApiFactory>
             await proposals.SubmitAsync(lead, draft.Id, cycle.Id, draft.Revision, CancellationToken.None);
         }
 
-        var ranking = await services.GetRequiredService<CycleRankingService>().RankAsync(finance, cycle.Id, 0, CancellationToken.None);
+        var ranking = await services.GetRequiredService<CycleRankingService>().RankAsync(board, cycle.Id, 0, CancellationToken.None);
         var rows = ReadCsv(CsvExport.Write(RankingExport.Table(ranking, "EUR")));
         string[] header = rows[0];
         string[] top = rows[1];
@@ -111,7 +126,7 @@ public sealed class ExportTests(ApiFactory factory) : IClassFixture<ApiFactory>
         Assert.Equal("unique", Field(top, "Rate of return note"));
         Assert.Equal(64, Field(top, "Assumptions SHA-256").Length);
 
-        var portfolio = await services.GetRequiredService<PortfolioService>().SelectAsync(finance, cycle.Id, new PortfolioQuery(), CancellationToken.None);
+        var portfolio = await services.GetRequiredService<PortfolioService>().SelectAsync(board, cycle.Id, new PortfolioQuery(), CancellationToken.None);
         var table = PortfolioExport.Table(portfolio, "EUR");
         Assert.Contains(table.Notes, n => n.StartsWith("Estimates, not advice", StringComparison.Ordinal));
         Assert.Contains(table.Notes, n => n.Contains("proven optimal", StringComparison.Ordinal));

@@ -5,6 +5,9 @@ using CapReview.Web.Operations;
 using CapReview.Web.Tests.Api;
 using Microsoft.AspNetCore.Hosting;
 using Microsoft.AspNetCore.Mvc.Testing;
+using Microsoft.AspNetCore.TestHost;
+using Microsoft.Extensions.DependencyInjection;
+using Microsoft.Extensions.Logging;
 using Microsoft.EntityFrameworkCore;
 using Microsoft.Extensions.Diagnostics.HealthChecks;
 
@@ -75,6 +78,56 @@ public sealed class OperationsTests(ApiFactory factory) : IClassFixture<ApiFacto
         // Ten a minute (the default): the first ten reach the form (refused there for want of its token), the rest are not read.
         Assert.All(statuses.Take(10), s => Assert.NotEqual(HttpStatusCode.TooManyRequests, s));
         Assert.All(statuses.Skip(10), s => Assert.Equal(HttpStatusCode.TooManyRequests, s));
+    }
+
+    /// <summary>
+    /// Every request comes from loopback (as from a proxy on the same host) and names another client in
+    /// X-Forwarded-For. Without ReverseProxy:KnownProxies the header is not believed: the three posts count against
+    /// loopback's sign-in limit and are logged from 127.0.0.1. With loopback configured as the proxy, each post is its
+    /// client's own and is logged from the client's address.
+    /// </summary>
+    [Theory]
+    [InlineData(null)]
+    [InlineData("127.0.0.1")]
+    public async Task A_forwarded_client_address_is_believed_only_from_a_configured_proxy_never_from_loopback_by_default(string? proxy)
+    {
+        var logs = new CapReview.Web.Tests.Security.CapturedLogs();
+        using var app = factory.WithWebHostBuilder(builder =>
+        {
+            builder.UseSetting("RateLimits:SignInPerMinute", "2");
+            if (proxy is not null)
+            {
+                builder.UseSetting("ReverseProxy:KnownProxies:0", proxy);
+            }
+            builder.ConfigureServices(services => services.AddSingleton<ILoggerProvider>(logs));
+            builder.ConfigureTestServices(services => services.AddSingleton<IStartupFilter>(new ConnectionFrom(IPAddress.Loopback)));
+        });
+        using HttpClient client = app.CreateClient(new WebApplicationFactoryClientOptions { AllowAutoRedirect = false });
+        var statuses = new List<HttpStatusCode>();
+        string[] clients = ["203.0.113.7", "203.0.113.8", "203.0.113.9"];
+        foreach (string forwarded in clients)
+        {
+            using var request = new HttpRequestMessage(HttpMethod.Post, "/signin")
+            {
+                Content = new FormUrlEncodedContent(new Dictionary<string, string> { ["Input.Email"] = "nobody@example.test", ["Input.Password"] = "wrong-password-1" }),
+            };
+            request.Headers.Add("X-Forwarded-For", forwarded);
+            using var response = await client.SendAsync(request);
+            statuses.Add(response.StatusCode);
+        }
+        // Each post lacks the form's token (400) unless the limit of two a minute from one address refuses it first (429).
+        var refused = logs.Entries.Where(e => e.Category == CapReview.Web.Identity.SecurityLog.Category && e.EventId == 110).Select(e => e.Message).ToList();
+        if (proxy is null)
+        {
+            Assert.Equal([HttpStatusCode.BadRequest, HttpStatusCode.BadRequest, HttpStatusCode.TooManyRequests], statuses);
+            Assert.Equal(3, refused.Count(m => m.EndsWith("from 127.0.0.1.", StringComparison.Ordinal)));
+            Assert.DoesNotContain(refused, m => m.Contains("203.0.113.", StringComparison.Ordinal));
+        }
+        else
+        {
+            Assert.Equal([HttpStatusCode.BadRequest, HttpStatusCode.BadRequest, HttpStatusCode.BadRequest], statuses);
+            Assert.All(clients, address => Assert.Contains(refused, m => m.EndsWith($"from {address}.", StringComparison.Ordinal)));
+        }
     }
 
     [Fact]

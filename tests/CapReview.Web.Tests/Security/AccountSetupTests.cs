@@ -75,7 +75,7 @@ public sealed partial class AccountSetupTests(ApiFactory factory) : IClassFixtur
         {
             // Kept as SHA-256 hashes: the database holds none of the codes as shown.
             var identity = scope.ServiceProvider.GetRequiredService<CapReviewIdentityDbContext>();
-            string stored = identity.UserTokens.Single(t => t.Name == "RecoveryCodes").Value!;
+            string stored = identity.UserTokens.Single(t => t.Name == "RecoveryCodes" && t.UserId == identity.Users.Single(u => u.Email == "two.step@tarnby.example").Id).Value!;
             Assert.All(recovery, code => Assert.DoesNotContain(code.Replace("-", "", StringComparison.Ordinal), stored.ToUpperInvariant(), StringComparison.Ordinal));
             Assert.All(recovery, code => Assert.Contains(HashedRecoveryCodeStore.Hash(code), stored, StringComparison.Ordinal));
         }
@@ -111,6 +111,51 @@ public sealed partial class AccountSetupTests(ApiFactory factory) : IClassFixtur
         string askedAgain = await (await FormSignIn.PostAsync(reuse, "two.step@tarnby.example", Password)).Content.ReadAsStringAsync();
         Assert.Contains("That code is not right", await PostFormAsync(reuse, "/signin", askedAgain, "signin-code", ("Second.Code", recovery[0])), StringComparison.Ordinal);
     }
+
+    [Fact]
+    public async Task Each_recovery_code_works_once_after_others_were_used_typed_as_shown_or_in_lower_case_without_hyphens()
+    {
+        var clock = new SteppedClock(DateTimeOffset.UtcNow);
+        using var app = TwoStepRequired(clock);
+        await AccountDefenceTests.CreateUserAsync(app.Services, "many.codes@tarnby.example", Password);
+        using HttpClient browser = NewBrowser(app);
+        (await FormSignIn.PostAsync(browser, "many.codes@tarnby.example", Password)).Dispose();
+        string account = await browser.GetStringAsync("/account");
+        byte[] secret = Rfc6238.FromBase32(Key().Match(account).Groups[1].Value);
+        string enabled = await PostFormAsync(browser, "/account", account, "enable-two-step", ("Enable.Code", Rfc6238.Code(secret, clock.GetUtcNow())));
+        var recovery = RecoveryCode().Matches(enabled).Select(m => m.Groups[1].Value).ToList();
+        Assert.Equal(TwoStepSignIn.RecoveryCodeCount, recovery.Count);
+
+        // Three codes one after another, in the three ways a person may type them; each sign-in succeeds.
+        string[] typed = [recovery[0], recovery[1].Replace("-", "", StringComparison.Ordinal).ToLowerInvariant(), recovery[2].ToLowerInvariant()];
+        foreach (string code in typed)
+        {
+            using HttpClient phoneLost = NewBrowser(app);
+            string asked = await (await FormSignIn.PostAsync(phoneLost, "many.codes@tarnby.example", Password)).Content.ReadAsStringAsync();
+            using var recovered = await FormSignIn.PostFormAsync(phoneLost, "/signin", asked, "signin-code", ("Second.Code", code));
+            Assert.True(recovered.StatusCode == HttpStatusCode.Redirect, $"the recovery code typed as {code} was refused");
+        }
+        using (var scope = app.Services.CreateScope())
+        {
+            // Seven codes left, each still the SHA-256 of a code as shown (hashed once, not again at each redemption).
+            var identity = scope.ServiceProvider.GetRequiredService<CapReviewIdentityDbContext>();
+            string[] stored = identity.UserTokens.Single(t => t.Name == "RecoveryCodes" && t.UserId == identity.Users.Single(u => u.Email == "many.codes@tarnby.example").Id)
+                .Value!.Split(';');
+            Assert.Equal(recovery.Skip(3).Select(c => Sha256Hex(c.Replace("-", "", StringComparison.Ordinal))).Order(StringComparer.Ordinal), stored.Order(StringComparer.Ordinal));
+        }
+
+        // A code already used is refused, and the last one still works.
+        using HttpClient reuse = NewBrowser(app);
+        string again = await (await FormSignIn.PostAsync(reuse, "many.codes@tarnby.example", Password)).Content.ReadAsStringAsync();
+        string refused = await PostFormAsync(reuse, "/signin", again, "signin-code", ("Second.Code", recovery[1]));
+        Assert.Contains("That code is not right", refused, StringComparison.Ordinal);
+        using var last = await FormSignIn.PostFormAsync(reuse, "/signin", refused, "signin-code", ("Second.Code", recovery[^1]));
+        Assert.Equal(HttpStatusCode.Redirect, last.StatusCode);
+    }
+
+    /// <summary>Lower-case hex SHA-256 of the ASCII text, computed here rather than by the store under test.</summary>
+    private static string Sha256Hex(string text) =>
+        Convert.ToHexStringLower(System.Security.Cryptography.SHA256.HashData(System.Text.Encoding.ASCII.GetBytes(text)));
 
     [Fact]
     public async Task A_changed_password_needs_the_current_one_and_must_not_be_guessable()

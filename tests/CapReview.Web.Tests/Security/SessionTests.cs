@@ -35,6 +35,52 @@ public sealed class SessionTests(ApiFactory factory) : IClassFixture<ApiFactory>
         Assert.Equal(HttpStatusCode.Redirect, await StatusWithCookieAsync(app, cookie, "/proposals"));
     }
 
+    /// <summary>
+    /// Two app servers on one database, with the settings as shipped (no session-check interval changed): a cookie
+    /// copied from a session is refused by both the moment the session is ended on one of them, whether by signing
+    /// out, by an administrator's "end sessions" or by disabling the account.
+    /// </summary>
+    [Fact]
+    public async Task A_copied_cookie_is_refused_on_every_server_as_soon_as_its_session_is_ended()
+    {
+        using var first = factory.WithWebHostBuilder(_ => { });
+        using var second = factory.WithWebHostBuilder(_ => { });
+        var administration = first.Services.GetRequiredService<UserAdministration>();
+
+        string signedOut = await CopiedCookieAsync(first, "copied.signout@tarnby.example");
+        Assert.Equal(HttpStatusCode.OK, await StatusWithCookieAsync(second, signedOut, "/proposals"));
+        using (HttpClient browser = NewBrowser(first))
+        {
+            browser.DefaultRequestHeaders.Add("Cookie", signedOut);
+            string form = await browser.GetStringAsync("/proposals");
+            using var signOut = await FormSignIn.PostFormAsync(browser, "/signout", form, null);
+            Assert.Equal(HttpStatusCode.Redirect, signOut.StatusCode);
+        }
+        Assert.Equal(HttpStatusCode.Redirect, await StatusWithCookieAsync(second, signedOut, "/proposals"));
+        Assert.Equal(HttpStatusCode.Unauthorized, await StatusWithCookieAsync(second, signedOut, "/api/v1/proposals"));
+        Assert.Equal(HttpStatusCode.Redirect, await StatusWithCookieAsync(first, signedOut, "/proposals"));
+
+        string ended = await CopiedCookieAsync(first, "copied.ended@tarnby.example");
+        Assert.Equal(HttpStatusCode.OK, await StatusWithCookieAsync(second, ended, "/proposals"));
+        await administration.EndSessionsAsync(Admin, await UserIdAsync(first, "copied.ended@tarnby.example"));
+        Assert.Equal(HttpStatusCode.Redirect, await StatusWithCookieAsync(second, ended, "/proposals"));
+
+        string disabled = await CopiedCookieAsync(first, "copied.disabled@tarnby.example");
+        Assert.Equal(HttpStatusCode.OK, await StatusWithCookieAsync(second, disabled, "/proposals"));
+        await administration.SetDisabledAsync(Admin, await UserIdAsync(first, "copied.disabled@tarnby.example"), disabled: true);
+        Assert.Equal(HttpStatusCode.Redirect, await StatusWithCookieAsync(second, disabled, "/proposals"));
+    }
+
+    /// <summary>Signs a new account in on <paramref name="app"/> through the form; the session cookie as a browser would send it.</summary>
+    private static async Task<string> CopiedCookieAsync(WebApplicationFactory<Program> app, string email)
+    {
+        await AccountDefenceTests.CreateUserAsync(app.Services, email, Password);
+        using HttpClient browser = NewBrowser(app);
+        using var signedIn = await FormSignIn.PostAsync(browser, email, Password);
+        Assert.Equal(HttpStatusCode.Redirect, signedIn.StatusCode);
+        return signedIn.Headers.GetValues("Set-Cookie").Single(c => c.StartsWith("capreview=", StringComparison.Ordinal)).Split(';')[0];
+    }
+
     [Fact]
     public async Task A_password_change_ends_the_accounts_other_sessions_and_keeps_the_one_it_was_made_in()
     {
