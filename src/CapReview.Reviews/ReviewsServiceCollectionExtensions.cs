@@ -10,6 +10,7 @@ using CapReview.Reviews.Proposals;
 using CapReview.Reviews.Storage;
 using Microsoft.EntityFrameworkCore;
 using Microsoft.Extensions.DependencyInjection;
+using Microsoft.Extensions.DependencyInjection.Extensions;
 
 namespace CapReview.Reviews;
 
@@ -46,6 +47,9 @@ public static class ReviewsServiceCollectionExtensions
         services.AddSingleton<PortfolioRulesService>();
         services.AddSingleton<CycleRankingService>();
         services.AddSingleton<PortfolioService>();
+        services.TryAddSingleton(new Runs.RunLimitOptions());
+        services.AddSingleton<Runs.RunLimiter>();
+        services.AddSingleton<Risk.RiskRuns>();
         services.AddSingleton<IncrementalAnalysisService>();
         services.AddSingleton<ReplacementService>();
         services.AddSingleton<Records.PacketArchive>();

@@ -113,7 +113,11 @@ public sealed class CycleRankingService(ReviewWork work)
             sources[proposal.Reference] = (proposal, version);
         }
         var byId = proposals.ToDictionary(p => p.Id);
-        var rows = ProposalRanking.Rank(entries, cycle.StudyPeriodYears, marrShift).Select(ranked =>
+        // A proposal whose worth cannot be computed on the cycle's basis (a stored MARR past the bounds, a what-if
+        // shift that takes it there) is listed as not ranked with the reason; it never takes the cycle's ranking down.
+        RankingOutcome outcome = ProposalRanking.RankEvaluable(entries, cycle.StudyPeriodYears, marrShift);
+        unranked.AddRange(outcome.Unevaluable.Select(u => new UnrankedProposal(sources[u.Id].Proposal, "its worth cannot be computed: " + u.Reason)));
+        var rows = outcome.Ranked.Select(ranked =>
         {
             var (proposal, version) = sources[ranked.Id];
             var prerequisites = rules.PrerequisitesOf(proposal.Id)
