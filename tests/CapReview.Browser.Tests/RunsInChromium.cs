@@ -54,19 +54,23 @@ public sealed class RunsInChromium(BrowserFixture browser) : IClassFixture<Brows
         await page.Locator("[data-testid=interactive]").WaitForAsync(new() { State = WaitForSelectorState.Attached });
         await Assertions.Expect(page.GetByTestId("tornado-table").Locator("tbody tr")).ToHaveCountAsync(1, new() { Timeout = 60_000 });
         await page.GetByTestId("run-simulation").ClickAsync();
-        await Until(() => limiter.Running == 1, "the simulation to start");
+        await Until(() => limiter.Running == 1, "the simulation to start", page, browser.App.Log);
 
         await page.CloseAsync();
         // Well inside the three minutes Blazor keeps the circuit: only the dropped connection can have stopped it.
         await Until(() => limiter.Running == 0, "the closed tab's simulation to stop");
     }
 
-    private static async Task Until(Func<bool> condition, string what)
+    private static async Task Until(Func<bool> condition, string what, IPage? page = null, ServerLog? log = null)
     {
         var waited = System.Diagnostics.Stopwatch.StartNew();
         while (!condition())
         {
-            Assert.True(waited.Elapsed < TimeSpan.FromSeconds(30), $"Waited 30 s for {what}.");
+            if (waited.Elapsed >= TimeSpan.FromSeconds(30))
+            {
+                string said = page is null ? "" : await page.Locator("body").InnerTextAsync();
+                Assert.Fail($"Waited 30 s for {what}. {said} {log?.Errors(Microsoft.Extensions.Logging.LogLevel.Warning)}");
+            }
             await Task.Delay(100);
         }
     }
