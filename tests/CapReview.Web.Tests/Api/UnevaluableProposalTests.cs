@@ -69,6 +69,15 @@ public sealed class UnevaluableProposalTests(ApiFactory factory) : IClassFixture
             // At the cycle's own terms the dam is ranked: −40% keeps its worth (about 10^278) within every double.
             JsonElement own = await JsonAsync(board, $"/api/v1/cycles/{cycleId}/ranking");
             Assert.Equal(2, own.GetProperty("rows").GetArrayLength());
+            // A row's null measure has its reason; a measure with a value has none.
+            foreach (JsonElement ranked in own.GetProperty("rows").EnumerateArray())
+            {
+                foreach (string field in new[] { "externalRate", "discountedPaybackYears", "benefitCostRatio" })
+                {
+                    bool explained = ranked.GetProperty("unavailable").TryGetProperty(field, out _);
+                    Assert.Equal(ranked.GetProperty(field).ValueKind == JsonValueKind.Null, explained);
+                }
+            }
 
             JsonElement shifted = await JsonAsync(board, $"/api/v1/cycles/{cycleId}/ranking?shift=-10");
             JsonElement row = Assert.Single(shifted.GetProperty("rows").EnumerateArray());

@@ -143,6 +143,11 @@ public sealed class ApiFuzzTests(ApiFactory factory) : IClassFixture<ApiFactory>
             string address = route + (query.Length == 0 ? "" : "?" + string.Join("&", query.Select(q => q.Item1 + "=" + Uri.EscapeDataString(q.Item2.Trim('"')))));
             using var answer = await finance.GetAsync(new Uri(address, UriKind.Relative));
             Assert.True((int)answer.StatusCode < 500, $"GET {address} answered {(int)answer.StatusCode}");
+            if (answer.Content.Headers.ContentType?.MediaType?.EndsWith("json", StringComparison.Ordinal) == true)
+            {
+                using var json = System.Text.Json.JsonDocument.Parse(await answer.Content.ReadAsStringAsync());
+                Api.FiniteNumbers.Assert(json.RootElement, "GET " + address);
+            }
         }, iter: 600, threads: 1);
         Assert.Equal(before, await StoredStateAsync());
     }
