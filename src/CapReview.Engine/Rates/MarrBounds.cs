@@ -9,7 +9,7 @@ namespace CapReview.Engine.Rates;
 /// The range in which a rate a model is discounted at (a MARR, an after-tax MARR) may be entered: an effective annual
 /// rate of at least −40% and at most 1000%. The lower bound is where discounting stops giving numbers: at a rate i the
 /// worth of the last period's flow is multiplied by (1 + i)^−n, and over the longest horizon (1,200 periods of a year
-/// each) a rate below about −42.7% makes that factor, times the largest net flows a model can hold (500 elements of
+/// each) a rate below about −42.4% makes that factor, times the largest net flows a model can hold (500 elements of
 /// 10^15 over 1,201 periods), pass the largest double (about 1.8 × 10^308). −40% keeps every legal model's present worth
 /// representable, with room: (1 − 0.4)^−1200 ≈ 10^266. There is no bound near zero: every factor tends to its limit at
 /// i = 0 and is computed to it, however small the rate (see docs/methods.md, "Limits of the input").

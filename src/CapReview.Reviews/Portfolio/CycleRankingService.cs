@@ -92,7 +92,7 @@ public sealed class CycleRankingService(ReviewWork work)
                 if (!evaluated.IsValid)
                 {
                     var error = evaluated.Errors[0];
-                    unranked.Add(new(proposal, $"the tax settings are not complete: {error.Field}: {error.Message}"));
+                    unranked.Add(new(proposal, $"its after-tax figures cannot be computed: {error.Field}: {error.Message}"));
                     continue;
                 }
                 // The after-tax flows ranked as a model of their own; their value at a study period's end is not taxed again.
@@ -105,7 +105,7 @@ public sealed class CycleRankingService(ReviewWork work)
                 if (!read.IsValid)
                 {
                     var error = read.Errors[0];
-                    unranked.Add(new(proposal, $"the model is not complete: {error.Field}: {error.Message}"));
+                    unranked.Add(new(proposal, $"the model cannot be evaluated: {error.Field}: {error.Message}"));
                     continue;
                 }
                 entries.Add(new RankingEntry(proposal.Reference, read.Value!.Model, read.Value.Options.Marr, version.Assumptions.ValueAtStudyEnd));

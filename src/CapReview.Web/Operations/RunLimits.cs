@@ -9,9 +9,12 @@ public static class RunLimits
     {
         ArgumentNullException.ThrowIfNull(configuration);
         var options = configuration.GetSection("Runs").Get<RunLimitOptions>() ?? new RunLimitOptions();
-        if (options.PerPerson < 1 || options.PerServer < 1 || options.WorkBudget < 1)
+        foreach (var (name, value) in new (string, long)[] { ("Runs:PerPerson", options.PerPerson), ("Runs:PerServer", options.PerServer), ("Runs:WorkBudget", options.WorkBudget) })
         {
-            throw new InvalidOperationException("Runs:PerPerson, Runs:PerServer and Runs:WorkBudget must each be at least 1.");
+            if (value < 1)
+            {
+                throw new InvalidOperationException($"{name} must be at least 1: with {value} no simulation or portfolio calculation could run.");
+            }
         }
         return options;
     }

@@ -164,7 +164,7 @@ public class ExtremeInputProperties
     public void The_lower_bound_is_minus_40_percent_and_the_refusal_names_the_rate()
     {
         // The bound's own arithmetic (docs/methods.md): at −40% over 1,200 years the largest legal model's worth stays
-        // below the largest double, 1.797 × 10^308 (IEEE 754); just under −42.7% it would not.
+        // below the largest double, 1.797 × 10^308 (IEEE 754); at −43% it would not.
         Assert.True(MarrBounds.LargestDiscountedSum < double.MaxValue);
         Assert.True(Math.Exp(-1200 * Math.Log(1 - 0.43)) * 500 * 1e15 * 1201 > double.MaxValue);
         ModelSpec At(double rate, RateBasis basis = RateBasis.Effective, int? m = null) => new()
