@@ -65,7 +65,7 @@ public sealed class PacketService(DecisionRecords records, PortfolioService port
         if (!await archive.ExistsAsync(PacketKind.Cycle, cycleId, null, cancellationToken).ConfigureAwait(false))
         {
             PortfolioResult? selection = record.Decided.Count == 0 ? null
-                : await portfolio.SelectAsync(actor, cycleId, new PortfolioQuery(), cancellationToken).ConfigureAwait(false);
+                : await portfolio.SelectForRecordAsync(actor, cycleId, new PortfolioQuery(), cancellationToken).ConfigureAwait(false);
             var data = new CyclePacketData(who, record.Cycle, record.Marr, record.SignOffs, record.Decided, figures, selection, now, certificate.Notice, options.Paper, record.Import, head);
             byte[] bytes = PacketRenderer.Cycle(data, certificate);
             string name = string.Concat(record.Cycle.Name.Select(c => char.IsLetterOrDigit(c) ? char.ToLowerInvariant(c) : '-')) + "-cycle-packet.pdf";

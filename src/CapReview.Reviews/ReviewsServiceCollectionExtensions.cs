@@ -54,6 +54,9 @@ public static class ReviewsServiceCollectionExtensions
         services.AddSingleton<PortfolioRulesService>();
         services.AddSingleton<CycleRankingService>();
         services.AddSingleton<PortfolioService>();
+        services.TryAddSingleton(new Runs.RunLimitOptions());
+        services.AddSingleton<Runs.RunLimiter>();
+        services.AddSingleton<Risk.RiskRuns>();
         services.AddSingleton<IncrementalAnalysisService>();
         services.AddSingleton<ReplacementService>();
         services.AddSingleton<Records.PacketArchive>();

@@ -77,9 +77,9 @@ public sealed class MarrAndCycleTests(ReviewsDatabase db) : IClassFixture<Review
         Assert.Contains(message, error.Message);
     }
     [Theory]
-    [InlineData(-0.99, -0.5, 0.0, "lowRiskPremium")]
-    [InlineData(-0.6, 0.0, -0.45, "standardRiskPremium")]
-    public async Task A_premium_that_takes_a_risk_class_to_minus_100_percent_or_below_is_refused_and_nothing_is_stored(double rate, double low, double standard, string field)
+    [InlineData(-0.39, -0.5, 0.0, "lowRiskPremium")]
+    [InlineData(-0.3, 0.0, -0.11, "standardRiskPremium")]
+    public async Task A_premium_that_takes_a_risk_class_below_the_minus_40_percent_bound_is_refused_and_nothing_is_stored(double rate, double low, double standard, string field)
     {
         int before = (await db.Marr.ListAsync(None)).Count;
         var error = await Assert.ThrowsAsync<RuleViolationException>(() => db.Marr.AddVersionAsync(Admin,

@@ -100,6 +100,25 @@ public sealed class CashFlowModel
         return Outcome.Success(new CashFlowModel(horizon, periodsPerYear, [.. elements], netFlows));
     }
 
+    /// <summary>
+    /// A model of flows the engine computed (after-tax and equity flows, one single amount a period), not entered:
+    /// they are not held to the entered amounts' limit of 10^12, which a sum of several entered elements after tax may
+    /// pass, only to being finite.
+    /// </summary>
+    internal static CashFlowModel OfComputedFlows(int horizon, int periodsPerYear, IReadOnlyList<SingleAmount> elements)
+    {
+        var netFlows = new double[horizon + 1];
+        foreach (SingleAmount element in elements)
+        {
+            if (!double.IsFinite(element.Amount) || element.Period < 0 || element.Period > horizon)
+            {
+                throw new ArgumentOutOfRangeException(nameof(elements), element.Amount, "A computed flow must be finite and inside the horizon.");
+            }
+            element.AddTo(netFlows);
+        }
+        return new CashFlowModel(horizon, periodsPerYear, [.. elements], netFlows);
+    }
+
     /// <summary>The flows of one element per period 0 … n (for per-element tables).</summary>
     public double[] FlowsOf(int elementIndex)
     {

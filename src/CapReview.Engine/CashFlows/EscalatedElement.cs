@@ -34,6 +34,14 @@ public sealed record EscalatedElement(CashFlowElement Inner, double PeriodEscala
     public override double PresentWorth(double i)
     {
         double deflated = (1.0 + i) / (1.0 + PeriodEscalation) - 1.0;
+        if (!(deflated > -1.0))
+        {
+            // The deflated rate rounds to −100% (a rate near it against steep escalation): no closed form there, so the
+            // element's own flows are discounted.
+            var own = new double[LastPeriod + 1];
+            AddTo(own);
+            return Measures.FlowWorth.PresentWorth(own, i);
+        }
         return Math.Exp(-BasePeriod * Numerics.StableMath.Log1p(PeriodEscalation)) * Inner.PresentWorth(deflated);
     }
 

@@ -34,10 +34,16 @@ public sealed record RecurringAmount(string Label, CashFlowCategory Category, in
     {
         CompoundInterest.CheckRate(i);
         double rateOverInterval = StableMath.Expm1(Every * StableMath.Log1p(i));
-        if (!double.IsFinite(rateOverInterval))
+        if (!double.IsFinite(rateOverInterval) || rateOverInterval <= -1.0)
         {
-            // Beyond the first occurrence every amount is worth nothing at such a rate.
-            return Amount * CompoundInterest.SinglePaymentPresentWorth(i, First);
+            // (1 + i)^k is past every double, or rounds to 0 (a rate near −100% over a long interval, as an escalated
+            // element's deflated rate can be): no closed form at i_k, so the M amounts are discounted one by one.
+            double log = StableMath.Log1p(i), sum = 0.0;
+            for (int t = First; t <= Last; t += Every)
+            {
+                sum += Math.Exp(-t * log);
+            }
+            return Amount * sum;
         }
         return Amount * CompoundInterest.SinglePaymentPresentWorth(i, First - Every)
             * CompoundInterest.UniformSeriesPresentWorth(rateOverInterval, Occurrences);

@@ -48,23 +48,28 @@ public sealed record Selection(IReadOnlyList<string> Chosen, double TotalWorth, 
 
 /// <summary>
 /// The set of proposals of greatest total worth within the capital limit, exclusive groups and contingencies: a 0-1
-/// knapsack with side constraints, solved exactly by Google OR-Tools' CP-SAT solver on amounts in whole cents. Beside
+/// knapsack with side constraints, solved exactly by Google OR-Tools' CP-SAT solver on amounts in whole cents (coarser
+/// units when a cycle's totals in cents would not fit the solver's integers, see <see cref="SelectionUnits"/>). Beside
 /// it, the greedy fill by ranking (best worth first, taken while it fits and is allowed) that a ranking alone suggests.
 /// </summary>
 public static class CapitalSelection
 {
-    private const double Cents = 100.0;
-
-    public static Selection Optimal(SelectionProblem problem, TimeSpan timeLimit)
+    /// <summary>
+    /// The set of greatest total worth, proven optimal when the solver finishes within <paramref name="timeLimit"/>;
+    /// a cancellation stops the solver's search at once and throws <see cref="OperationCanceledException"/>.
+    /// </summary>
+    public static Selection Optimal(SelectionProblem problem, TimeSpan timeLimit, CancellationToken cancellationToken = default)
     {
         ArgumentNullException.ThrowIfNull(problem);
         Check(problem);
+        cancellationToken.ThrowIfCancellationRequested();
+        var units = SelectionUnits.For(problem);
         var model = new CpModel();
         var chosen = problem.Candidates.ToDictionary(c => c.Id, c => model.NewBoolVar(c.Id));
         for (int year = 0; year < problem.BudgetYears; year++)
         {
-            model.Add(LinearExpr.WeightedSum(problem.Candidates.Select(c => chosen[c.Id]), problem.Candidates.Select(c => ToCents(c.CapitalIn(year))))
-                <= FloorCents(problem.LimitIn(year)));
+            model.Add(LinearExpr.WeightedSum(problem.Candidates.Select(c => chosen[c.Id]), problem.Candidates.Select(c => units.Of(c.CapitalIn(year))))
+                <= units.Limit(problem, year));
         }
         foreach (var (members, mandatory) in problem.Groups)
         {
@@ -82,10 +87,15 @@ public static class CapitalSelection
             model.AddImplication(chosen[dependent], chosen[prerequisite]);
         }
         // Only proposals that add worth can help the objective; the others stay out.
-        model.Maximize(LinearExpr.WeightedSum(problem.Candidates.Select(c => chosen[c.Id]), problem.Candidates.Select(c => ToCents(c.Worth))));
+        model.Maximize(LinearExpr.WeightedSum(problem.Candidates.Select(c => chosen[c.Id]), problem.Candidates.Select(c => units.Of(c.Worth))));
 
         var solver = new CpSolver { StringParameters = $"max_time_in_seconds:{timeLimit.TotalSeconds.ToString(System.Globalization.CultureInfo.InvariantCulture)} num_workers:2" };
-        CpSolverStatus status = solver.Solve(model);
+        CpSolverStatus status;
+        using (cancellationToken.Register(solver.StopSearch))
+        {
+            status = solver.Solve(model);
+        }
+        cancellationToken.ThrowIfCancellationRequested();
         if (status is not (CpSolverStatus.Optimal or CpSolverStatus.Feasible))
         {
             // Infeasible is proven; an unknown status means the time ran out before any allowed set was found.
@@ -93,7 +103,7 @@ public static class CapitalSelection
         }
         var set = problem.Candidates.Where(c => solver.BooleanValue(chosen[c.Id])).ToList();
         return new Selection([.. set.Select(c => c.Id)], set.Sum(c => c.Worth), set.Sum(c => c.FirstCost),
-            status == CpSolverStatus.Optimal, solver.BestObjectiveBound / Cents);
+            status == CpSolverStatus.Optimal, units.Money(solver.BestObjectiveBound));
     }
 
     /// <summary>
@@ -105,13 +115,14 @@ public static class CapitalSelection
     {
         ArgumentNullException.ThrowIfNull(problem);
         Check(problem);
+        var units = SelectionUnits.For(problem);
         var taken = new List<SelectionCandidate>();
         var byRank = byWorth
             ? problem.Candidates.OrderByDescending(c => c.Worth).ThenBy(c => c.Id, StringComparer.Ordinal).ToList()
             : [.. problem.Candidates];
         foreach (var group in problem.MandatoryGroups ?? [])
         {
-            SelectionCandidate? pick = byRank.FirstOrDefault(c => group.Contains(c.Id) && Fits(problem, taken, c) && PrerequisiteTaken(problem, taken, c));
+            SelectionCandidate? pick = byRank.FirstOrDefault(c => group.Contains(c.Id) && Fits(problem, units, taken, c) && PrerequisiteTaken(problem, taken, c));
             if (pick is null)
             {
                 return new Selection([], 0.0, 0.0, ProvenOptimal: false, double.NaN, Feasible: false);
@@ -121,7 +132,7 @@ public static class CapitalSelection
         foreach (SelectionCandidate c in byRank)
         {
             var ids = taken.Select(t => t.Id).Append(c.Id).ToHashSet();
-            if (c.Worth > 0.0 && !taken.Contains(c) && Fits(problem, taken, c) && Allowed(problem, ids, requireMandatory: false))
+            if (c.Worth > 0.0 && !taken.Contains(c) && Fits(problem, units, taken, c) && Allowed(problem, ids, requireMandatory: false))
             {
                 taken.Add(c);
             }
@@ -140,6 +151,8 @@ public static class CapitalSelection
         {
             throw new ArgumentOutOfRangeException(nameof(problem), n, "The exhaustive search is for at most 22 candidates.");
         }
+        var units = SelectionUnits.For(problem);
+        var limits = Enumerable.Range(0, problem.BudgetYears).Select(year => units.Limit(problem, year)).ToArray();
         double bestWorth = double.NegativeInfinity;
         long bestMask = -1;
         for (long mask = 0; mask < 1L << n; mask++)
@@ -151,15 +164,15 @@ public static class CapitalSelection
             {
                 if ((mask & (1L << k)) != 0)
                 {
-                    worth += ToCents(problem.Candidates[k].Worth);
+                    worth += units.Of(problem.Candidates[k].Worth);
                     ids.Add(problem.Candidates[k].Id);
                     for (int year = 0; year < cost.Length; year++)
                     {
-                        cost[year] += ToCents(problem.Candidates[k].CapitalIn(year));
+                        cost[year] += units.Of(problem.Candidates[k].CapitalIn(year));
                     }
                 }
             }
-            bool fits = cost.Select((c, year) => c <= FloorCents(problem.LimitIn(year))).All(ok => ok);
+            bool fits = cost.Select((c, year) => c <= limits[year]).All(ok => ok);
             if (fits && worth > bestWorth && Allowed(problem, ids, requireMandatory: true))
             {
                 bestWorth = worth;
@@ -171,31 +184,28 @@ public static class CapitalSelection
             return new Selection([], 0.0, 0.0, true, double.NaN, Feasible: false);
         }
         var set = problem.Candidates.Where((_, k) => (bestMask & (1L << k)) != 0).ToList();
-        return new Selection([.. set.Select(c => c.Id)], set.Sum(c => c.Worth), set.Sum(c => c.FirstCost), true, bestWorth / Cents);
+        return new Selection([.. set.Select(c => c.Id)], set.Sum(c => c.Worth), set.Sum(c => c.FirstCost), true, units.Money(bestWorth));
     }
 
     /// <summary>The optimal total worth at each capital limit: how the selection answers a larger or smaller budget.</summary>
-    public static IReadOnlyList<(double Limit, Selection Selection)> Frontier(SelectionProblem problem, IEnumerable<double> limits, TimeSpan timeLimitEach)
+    public static IReadOnlyList<(double Limit, Selection Selection)> Frontier(SelectionProblem problem, IEnumerable<double> limits, TimeSpan timeLimitEach,
+        CancellationToken cancellationToken = default)
     {
         ArgumentNullException.ThrowIfNull(problem);
         ArgumentNullException.ThrowIfNull(limits);
-        return [.. limits.Select(limit => (limit, Optimal(problem with { CapitalLimit = limit }, timeLimitEach)))];
+        return [.. limits.Select(limit => (limit, Optimal(problem with { CapitalLimit = limit }, timeLimitEach, cancellationToken)))];
     }
 
     private static bool Allowed(SelectionProblem problem, HashSet<string> ids, bool requireMandatory) =>
         problem.Groups.All(g => g.Members.Count(ids.Contains) is var count && count <= 1 && (!requireMandatory || !g.Mandatory || count == 1))
         && problem.Contingencies.All(c => !ids.Contains(c.Dependent) || ids.Contains(c.Prerequisite));
 
-    private static bool Fits(SelectionProblem problem, List<SelectionCandidate> taken, SelectionCandidate next) =>
+    private static bool Fits(SelectionProblem problem, SelectionUnits units, List<SelectionCandidate> taken, SelectionCandidate next) =>
         Enumerable.Range(0, problem.BudgetYears).All(year =>
-            taken.Sum(t => ToCents(t.CapitalIn(year))) + ToCents(next.CapitalIn(year)) <= FloorCents(problem.LimitIn(year)));
+            taken.Sum(t => units.Of(t.CapitalIn(year))) + units.Of(next.CapitalIn(year)) <= units.Limit(problem, year));
 
     private static bool PrerequisiteTaken(SelectionProblem problem, List<SelectionCandidate> taken, SelectionCandidate c) =>
         problem.Contingencies.Where(k => k.Dependent == c.Id).All(k => taken.Any(t => t.Id == k.Prerequisite));
-
-    private static long ToCents(double amount) => (long)Math.Round(amount * Cents, MidpointRounding.AwayFromZero);
-
-    private static long FloorCents(double amount) => (long)Math.Floor(amount * Cents + 1e-6);
 
     private static void Check(SelectionProblem problem)
     {

@@ -89,6 +89,12 @@ public static class ExclusiveChoice
                 defender = challenger;
             }
         }
+        // Over a common horizon longer than any one life, a MARR near its lower bound can discount past every double.
+        if (presentWorths.Values.Concat(steps.Select(s => s.IncrementalPresentWorth)).Any(w => !double.IsFinite(w)))
+        {
+            throw new ArgumentOutOfRangeException(nameof(marr), marr.EffectiveAnnual(),
+                $"At this MARR the worths over the common horizon of {horizon} periods are {UnavailableMeasures.BeyondRange}.");
+        }
         return new ExclusiveDecision(worths, presentWorths, bestByWorth, horizon, steps, defender.Name);
     }
 
@@ -107,7 +113,7 @@ public static class ExclusiveChoice
         double marrAnnual = AnnualRate.AnnualEffectiveFromPeriod(i, p);
         double deltaBenefits = challenger.Benefits - defender.Benefits;
         double deltaCosts = challenger.Costs - defender.Costs;
-        double? deltaRatio = deltaCosts > 0.0 ? deltaBenefits / deltaCosts : null;
+        double? deltaRatio = deltaCosts > 0.0 && double.IsFinite(deltaBenefits / deltaCosts) ? deltaBenefits / deltaCosts : null;
 
         // The rate decides only for a simple investment: money out first and one sign change, so that it is the one
         // root above −100% and the worth is positive below it and negative above. Anything else: ΔPW decides.

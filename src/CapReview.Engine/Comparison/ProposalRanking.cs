@@ -1,3 +1,4 @@
+using System.Globalization;
 using CapReview.Engine.CashFlows;
 using CapReview.Engine.Evaluation;
 using CapReview.Engine.Factors;
@@ -48,28 +49,63 @@ public static class ProposalRanking
     /// <param name="entries">The proposals, each with its model and MARR.</param>
     /// <param name="studyPeriodYears">A board-set study period in whole years, or null for repeatability.</param>
     /// <param name="marrShift">Effective annual points added to every proposal's MARR (a what-if; 0 for the cycle's).</param>
+    /// <exception cref="ArgumentException">An entry cannot be evaluated on the ranking's basis (see <see cref="RankEvaluable"/>).</exception>
     public static IReadOnlyList<RankedProposal> Rank(IReadOnlyList<RankingEntry> entries, int? studyPeriodYears = null, double marrShift = 0.0)
+    {
+        RankingOutcome outcome = RankEvaluable(entries, studyPeriodYears, marrShift);
+        if (outcome.Unevaluable.Count > 0)
+        {
+            throw new ArgumentException($"{outcome.Unevaluable[0].Id}: {outcome.Unevaluable[0].Reason}", nameof(entries));
+        }
+        return outcome.Ranked;
+    }
+
+    /// <summary>
+    /// The ranking of the entries that can be evaluated on the ranking's basis, and each that cannot with the reason:
+    /// a MARR that the shift moves out of (−100%, 1000%], or a worth past every double at it. One such entry never stops
+    /// the others being ranked.
+    /// </summary>
+    public static RankingOutcome RankEvaluable(IReadOnlyList<RankingEntry> entries, int? studyPeriodYears = null, double marrShift = 0.0)
     {
         ArgumentNullException.ThrowIfNull(entries);
         if (studyPeriodYears is < 1 or > 100)
         {
             throw new ArgumentOutOfRangeException(nameof(studyPeriodYears), studyPeriodYears, "A study period is 1 to 100 years.");
         }
-        var ranked = new (RankingEntry Entry, Evaluation.Evaluation Evaluation, double AnnualWorth, double PresentWorth, string Basis)[entries.Count];
-        for (int k = 0; k < entries.Count; k++)
+        var ranked = new List<(RankingEntry Entry, Evaluation.Evaluation Evaluation, double AnnualWorth, double PresentWorth, string Basis)>(entries.Count);
+        var unevaluable = new List<UnevaluableEntry>();
+        foreach (RankingEntry entry in entries)
         {
-            RankingEntry entry = entries[k];
-            AnnualRate marr = marrShift == 0.0 ? entry.Marr : AnnualRate.Effective(entry.Marr.EffectiveAnnual() + marrShift);
-            var evaluation = ModelEvaluator.Evaluate(entry.Model, new EvaluationOptions(marr));
-            ranked[k] = studyPeriodYears is int years
+            double shifted = entry.Marr.EffectiveAnnual() + marrShift;
+            if (marrShift != 0.0 && AnnualRate.Check(shifted, RateBasis.Effective, 1, "rate").Count > 0)
+            {
+                unevaluable.Add(new(entry.Id, string.Create(CultureInfo.InvariantCulture,
+                    $"its MARR shifted by {marrShift * 100:+0.##;-0.##} points, {shifted * 100:0.##}% a year, is outside −100% … 1000%")));
+                continue;
+            }
+            AnnualRate marr = marrShift == 0.0 ? entry.Marr : AnnualRate.Effective(shifted);
+            var evaluated = ModelEvaluator.TryEvaluate(entry.Model, new EvaluationOptions(marr));
+            if (evaluated.Value is not { } evaluation)
+            {
+                unevaluable.Add(new(entry.Id, evaluated.Errors[0].Message));
+                continue;
+            }
+            var row = studyPeriodYears is int years
                 ? OverStudyPeriod(entry, evaluation, years)
                 : (entry, evaluation, evaluation.AnnualWorth, evaluation.PresentWorth, Repeatability);
+            if (!double.IsFinite(row.Item3) || !double.IsFinite(row.Item4))
+            {
+                unevaluable.Add(new(entry.Id, $"its worth over the study period is {UnavailableMeasures.BeyondRange}"));
+                continue;
+            }
+            ranked.Add(row);
         }
-        return [.. ranked
+        return new RankingOutcome([.. ranked
             .OrderByDescending(r => r.AnnualWorth)
             .ThenBy(r => r.Entry.Id, StringComparer.Ordinal)
             .Select((r, index) => new RankedProposal(r.Entry.Id, index + 1, r.Evaluation, r.AnnualWorth, r.PresentWorth, r.Basis,
-                LaterCapital(r.Entry.CapitalFrom ?? r.Entry.Model), Math.Max(0.0, -(r.Entry.CapitalFrom ?? r.Entry.Model).NetFlows[0])))];
+                LaterCapital(r.Entry.CapitalFrom ?? r.Entry.Model), Math.Max(0.0, -(r.Entry.CapitalFrom ?? r.Entry.Model).NetFlows[0])))],
+            unevaluable);
     }
 
     /// <summary>Capital outlays per budget year: year k holds periods in (k − 1, k] years; year 0 is period 0 alone.</summary>

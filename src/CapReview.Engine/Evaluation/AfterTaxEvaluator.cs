@@ -51,16 +51,26 @@ public static class AfterTaxEvaluator
         // Without a stated after-tax MARR the common approximation: the before-tax MARR less its tax (no source).
         afterTaxMarr ??= AnnualRate.Effective(options.Marr.EffectiveAnnual() * (1 - s.IncomeTaxRate));
         var table = AfterTaxAnalysis.Compute(cashFlows, s);
-        var after = ModelEvaluator.Evaluate(FlowsModel(table.AfterTaxFlows), new EvaluationOptions(afterTaxMarr.Value));
-        Evaluation? equity = s.Financing is null ? null : ModelEvaluator.Evaluate(FlowsModel(table.EquityFlows), new EvaluationOptions(afterTaxMarr.Value));
-        return Outcome.Success(new AfterTaxEvaluation(ModelEvaluator.Evaluate(cashFlows, options), table, after, equity, s, basis));
+        // Each set of flows may be past every double at its MARR (a loan or a tax that swells the flows at a rate near
+        // the bound): then the field that set the MARR is named, as for the model's own.
+        var before = ModelEvaluator.TryEvaluate(cashFlows, options);
+        var after = ModelEvaluator.TryEvaluate(FlowsModel(table.AfterTaxFlows), new EvaluationOptions(afterTaxMarr.Value));
+        var equity = s.Financing is null ? null : ModelEvaluator.TryEvaluate(FlowsModel(table.EquityFlows), new EvaluationOptions(afterTaxMarr.Value));
+        errors.AddRange(before.Errors);
+        string marrField = tax.AfterTaxMarr is null ? "tax.incomeTaxRate" : "tax.afterTaxMarr.value";
+        errors.AddRange(after.Errors.Concat(equity?.Errors ?? []).Select(e => e with { Field = marrField }).Take(1));
+        if (errors.Count > 0)
+        {
+            return Outcome.Failure<AfterTaxEvaluation>(errors);
+        }
+        return Outcome.Success(new AfterTaxEvaluation(before.Value!, table, after.Value!, equity?.Value, s, basis));
     }
 
     /// <summary>Yearly flows as a model: the outlay now as capital, later receipts as revenue, later payments as operating.</summary>
     private static CashFlowModel FlowsModel(IReadOnlyList<double> flows)
     {
-        var elements = flows.Select((f, t) => (CashFlowElement)new SingleAmount(t == 0 ? "Now" : $"Year {t}",
+        var elements = flows.Select((f, t) => new SingleAmount(t == 0 ? "Now" : $"Year {t}",
             t == 0 && f < 0 ? CashFlowCategory.Capital : f >= 0 ? CashFlowCategory.Revenue : CashFlowCategory.Operating, t, f)).ToList();
-        return CashFlowModel.Create(flows.Count - 1, 1, elements).Value!;
+        return CashFlowModel.OfComputedFlows(flows.Count - 1, 1, elements);
     }
 }

@@ -14,6 +14,8 @@ public static class EvaluationProfile
         double lowest = Math.Min(0.0, result.RatesOfReturn.Count > 0 ? result.RatesOfReturn[0] : 0.0);
         double to = Math.Min(RateOfReturnSearch.HighestAnnual, Math.Max(0.30, highest * 1.5 + 0.05));
         double from = Math.Max(-0.95, lowest - (lowest < 0 ? 0.05 : 0.0));
-        return PresentWorthProfile.Compute(result.NetFlows, result.Model.PeriodsPerYear, from, to, points);
+        // Far below the MARR a long model's worth can pass every double; those points are left off the chart, which
+        // always keeps the points near 0% and the MARR.
+        return [.. PresentWorthProfile.Compute(result.NetFlows, result.Model.PeriodsPerYear, from, to, points).Where(p => double.IsFinite(p.PresentWorth))];
     }
 }

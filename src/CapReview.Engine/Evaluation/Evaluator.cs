@@ -13,6 +13,6 @@ public static class Evaluator
         {
             return Outcome.Failure<Evaluation>(read.Errors);
         }
-        return Outcome.Success(ModelEvaluator.Evaluate(read.Value!.Model, read.Value.Options));
+        return ModelEvaluator.TryEvaluate(read.Value!.Model, read.Value.Options);
     }
 }

@@ -61,7 +61,8 @@ public static class CompoundInterest
     /// (P/G, i, n) = ((1 + i)^n − 1 − n i) / (i² (1 + i)^n), the arithmetic-gradient present worth factor:
     /// the worth at time 0 of 0, G, 2G, … (n − 1)G at the ends of periods 1 … n, per unit G; n(n − 1)/2 at i = 0.
     /// Near zero the numerator is formed as x²·E(x) + n·(ln(1 + i) − i) with x = n ln(1 + i) and
-    /// E(x) = (e^x − 1 − x)/x², both parts free of cancellation.
+    /// E(x) = (e^x − 1 − x)/x², both parts free of cancellation, and divided by i² term by term, so that a vanishing
+    /// rate (down to the smallest double) gives the limit n(n − 1)/2 rather than 0/0.
     /// </summary>
     public static double ArithmeticGradientPresentWorth(double i, int n)
     {
@@ -82,8 +83,11 @@ public static class CompoundInterest
             // Away from zero the textbook form cancels by at most a factor of about 2.5.
             return (UniformSeriesPresentWorth(i, n) - n * SinglePaymentPresentWorth(i, n)) / i;
         }
-        double numerator = x * x * StableMath.Expm1MinusXOverXSquared(x) + n * StableMath.Log1pMinusX(i);
-        return numerator / (i * i * Math.Exp(x));
+        // Divided through by i² before summing: i² itself underflows for rates below about 1e-162, where the
+        // quotient of the two underflowed parts was 0/0. ln(1 + i)/i and (ln(1 + i) − i)/i² both tend to finite limits.
+        double logOverRate = log1p == i ? 1.0 : log1p / i;
+        double numerator = (double)n * n * logOverRate * logOverRate * StableMath.Expm1MinusXOverXSquared(x) + n * StableMath.Log1pMinusXOverXSquared(i);
+        return numerator / Math.Exp(x);
     }
 
     /// <summary>(A/G, i, n) = (P/G, i, n)(A/P, i, n), the arithmetic-gradient uniform-series factor; (n − 1)/2 at i = 0.</summary>
@@ -107,7 +111,14 @@ public static class CompoundInterest
         }
         CheckPeriods(n, 0);
         double d = (g - i) / (1.0 + i);
-        return UniformSeriesCompoundAmount(d, n) / (1.0 + i);
+        if (d > -0.5)
+        {
+            return UniformSeriesCompoundAmount(d, n) / (1.0 + i);
+        }
+        // Far below zero, 1 + d = (1 + g)/(1 + i) can round to nothing as a difference from −1 (growth near −100%
+        // against a large rate); as a difference of logarithms it keeps its size, and no cancellation is left to fear.
+        double log = StableMath.Log1p(g) - StableMath.Log1p(i);
+        return n == 0 ? 0.0 : StableMath.Expm1(n * log) / StableMath.Expm1(log) / (1.0 + i);
     }
 
     internal static void CheckRate(double i)

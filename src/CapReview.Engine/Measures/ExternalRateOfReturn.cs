@@ -8,7 +8,13 @@ namespace CapReview.Engine.Measures;
 /// </summary>
 public static class ExternalRateOfReturn
 {
-    /// <summary>The rate per period, or null when there are no receipts, no disbursements or no periods.</summary>
+    /// <summary>
+    /// The rate per period, or null when there are no receipts, no disbursements or no periods. Both sums are formed as
+    /// logarithms (the largest term's, plus the log of the terms relative to it), so that neither overflows nor
+    /// vanishes at the ends of the rate range (receipts carried at 1000% over 1,200 periods pass every double, a
+    /// payment brought from period 400 at −90% would too); the result is a number, or positive infinity when the rate
+    /// itself is past every double.
+    /// </summary>
     public static double? Compute(IReadOnlyList<double> netFlows, double financeRate, double reinvestmentRate)
     {
         ArgumentNullException.ThrowIfNull(netFlows);
@@ -17,28 +23,41 @@ public static class ExternalRateOfReturn
         {
             return null;
         }
-        double presentCost = 0.0;
-        double futureReceipts = 0.0;
-        double financeDiscount = 1.0 / (1.0 + financeRate);
-        double reinvestGrowth = 1.0 + reinvestmentRate;
-        double discount = 1.0;
-        for (int t = 0; t <= n; t++)
-        {
-            double f = netFlows[t];
-            if (f < 0.0)
-            {
-                presentCost -= f * discount;
-            }
-            discount *= financeDiscount;
-        }
-        for (int t = 0; t <= n; t++)
-        {
-            futureReceipts = futureReceipts * reinvestGrowth + Math.Max(netFlows[t], 0.0);
-        }
-        if (presentCost <= 0.0 || futureReceipts <= 0.0)
+        double finance = Numerics.StableMath.Log1p(financeRate), reinvestment = Numerics.StableMath.Log1p(reinvestmentRate);
+        double logCost = LogSum(netFlows, payments: true, t => -t * finance);
+        double logReceipts = LogSum(netFlows, payments: false, t => (n - t) * reinvestment);
+        if (double.IsNegativeInfinity(logCost) || double.IsNegativeInfinity(logReceipts))
         {
             return null;
         }
-        return Math.Exp(Math.Log(futureReceipts / presentCost) / n) - 1.0;
+        return Numerics.StableMath.Expm1((logReceipts - logCost) / n);
     }
+
+    /// <summary>ln Σ a_t e^(g(t)) over the payments (a_t = −F_t, F_t &lt; 0) or the receipts (a_t = F_t &gt; 0); −∞ when there are none.</summary>
+    private static double LogSum(IReadOnlyList<double> flows, bool payments, Func<int, double> exponent)
+    {
+        double largest = double.NegativeInfinity;
+        for (int t = 0; t < flows.Count; t++)
+        {
+            if (Part(flows[t], payments) > 0.0)
+            {
+                largest = Math.Max(largest, Math.Log(Part(flows[t], payments)) + exponent(t));
+            }
+        }
+        if (double.IsNegativeInfinity(largest))
+        {
+            return largest;
+        }
+        double sum = 0.0;
+        for (int t = 0; t < flows.Count; t++)
+        {
+            if (Part(flows[t], payments) > 0.0)
+            {
+                sum += Math.Exp(Math.Log(Part(flows[t], payments)) + exponent(t) - largest);
+            }
+        }
+        return largest + Math.Log(sum);
+    }
+
+    private static double Part(double flow, bool payments) => payments ? Math.Max(-flow, 0.0) : Math.Max(flow, 0.0);
 }

@@ -13,18 +13,25 @@ public static class Payback
     /// <summary>Periods until the cumulative flow discounted at <paramref name="ratePerPeriod"/> is recovered; null when never.</summary>
     public static double? Discounted(IReadOnlyList<double> netFlows, double ratePerPeriod) => Recovery(netFlows, ratePerPeriod);
 
+    /// <summary>
+    /// The cumulative worth C_t = Σ_{s≤t} F_s (1 + i)^−s is followed as C_t itself where i ≥ 0 (its discount factors only
+    /// shrink) and as C_t (1 + i)^t where i &lt; 0 (the same sign, and the factors that would grow past every double never
+    /// form); the fraction of period t needed, −C_(t−1) / (F_t (1 + i)^−t), is the same ratio in either form.
+    /// </summary>
     private static double? Recovery(IReadOnlyList<double> netFlows, double ratePerPeriod)
     {
         ArgumentNullException.ThrowIfNull(netFlows);
+        bool atPeriod = ratePerPeriod < 0.0;
         double v = 1.0 / (1.0 + ratePerPeriod);
+        double growth = 1.0 + ratePerPeriod;
         double discount = 1.0;
         double cumulative = 0.0;
         bool invested = false;
         for (int t = 0; t < netFlows.Count; t++)
         {
-            double flow = netFlows[t] * discount;
-            double before = cumulative;
-            cumulative += flow;
+            double flow = atPeriod ? netFlows[t] : netFlows[t] * discount;
+            double before = atPeriod ? cumulative * growth : cumulative;
+            cumulative = before + flow;
             discount *= v;
             if (cumulative < 0.0)
             {

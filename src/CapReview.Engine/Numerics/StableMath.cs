@@ -59,14 +59,17 @@ internal static class StableMath
         return sum;
     }
 
-    /// <summary>ln(1 + x) − x, by its Taylor series near zero (Σ (−1)^(k+1) x^k / k, k ≥ 2), directly elsewhere.</summary>
-    public static double Log1pMinusX(double x)
+    /// <summary>
+    /// (ln(1 + x) − x) / x², by its Taylor series near zero (Σ (−1)^(k+1) x^(k−2) / k, k ≥ 2), which tends to −1/2 and
+    /// never forms x² (that underflows to zero for |x| below about 1e-162); directly elsewhere.
+    /// </summary>
+    public static double Log1pMinusXOverXSquared(double x)
     {
         if (Math.Abs(x) >= 0.1)
         {
-            return Log1p(x) - x;
+            return (Log1p(x) - x) / (x * x);
         }
-        double power = x * x;
+        double power = 1.0;
         double sum = 0.0;
         for (int k = 2; k < 60; k++)
         {

@@ -88,7 +88,8 @@ internal sealed class CompiledTrials
             }
             space.Elements[element] = changed;
         }
-        if (AnnualRate.Check(rateValue, _rate.Basis ?? RateBasis.Effective, _rate.CompoundingsPerYear ?? 1, "rate").Count > 0)
+        // The same bounds as the entered MARR, so that a drawn rate the full path would refuse is refused here too.
+        if (MarrBounds.Check(rateValue, _rate.Basis ?? RateBasis.Effective, _rate.CompoundingsPerYear ?? 1, "rate").Count > 0)
         {
             return (double.NaN, double.NaN, double.NaN);
         }
@@ -100,6 +101,11 @@ internal sealed class CompiledTrials
         }
         double pw = FlowWorth.PresentWorth(space.Flows, i);
         double aw = pw * CompoundInterest.CapitalRecovery(i, _horizon) * CompoundInterest.UniformSeriesCompoundAmount(i, _periodsPerYear);
+        if (!double.IsFinite(pw) || !double.IsFinite(aw))
+        {
+            // Past every double: the full path refuses such a trial's model too.
+            return (double.NaN, double.NaN, double.NaN);
+        }
         var roots = RateOfReturnSearch.Find(space.Flows,
             AnnualRate.PeriodFromAnnualEffective(RateOfReturnSearch.LowestAnnual, _periodsPerYear),
             AnnualRate.PeriodFromAnnualEffective(RateOfReturnSearch.HighestAnnual, _periodsPerYear));

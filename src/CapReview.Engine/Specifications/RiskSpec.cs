@@ -59,6 +59,9 @@ public sealed record RiskSettings(IReadOnlyList<UncertainParameter> Parameters, 
 /// <summary>Reads a <see cref="RiskSpec"/>, naming each bad field under "risk".</summary>
 public static class RiskSpecReader
 {
+    /// <summary>The largest magnitude of a parameter's low, most likely or high value: the largest flow a model holds.</summary>
+    public const double MaxValue = CashFlows.CashFlowElement.MaxFlow;
+
     public static Outcome<RiskSettings> Read(RiskSpec spec, ProposalCase proposal)
     {
         ArgumentNullException.ThrowIfNull(spec);
@@ -88,6 +91,13 @@ public static class RiskSpecReader
             if (p.Low is not double low || p.MostLikely is not double likely || p.High is not double high || !double.IsFinite(low) || !double.IsFinite(likely) || !double.IsFinite(high))
             {
                 errors.Add(new($"{path}.low", "Give the low, most likely and high values."));
+                continue;
+            }
+            if (Math.Abs(low) > MaxValue || Math.Abs(high) > MaxValue)
+            {
+                // Beyond the largest flow no input of a model means anything, and the break-even search, which looks
+                // twice the range's width beyond each end, must stay among finite numbers.
+                errors.Add(new(Math.Abs(low) > MaxValue ? $"{path}.low" : $"{path}.high", "Keep the values within ±10¹⁵, the largest flow a model holds."));
                 continue;
             }
             if (!(low <= likely && likely <= high))

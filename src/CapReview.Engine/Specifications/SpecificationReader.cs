@@ -55,10 +55,19 @@ public static class SpecificationReader
         {
             return Outcome.Failure<ReadSpecification>(errors);
         }
-        // A real MARR meets actual money at its market equivalent, (1 + real)(1 + inflation) − 1.
-        AnnualRate marr = inflation is { RealMarr: true } real
-            ? AnnualRate.Effective(InflationAdjustment.MarketRate(rate!.Value.EffectiveAnnual(), real.Rate))
-            : rate!.Value;
+        // A real MARR meets actual money at its market equivalent, (1 + real)(1 + inflation) − 1, which must itself be
+        // a rate the model can be discounted at.
+        AnnualRate marr = rate!.Value;
+        if (inflation is { RealMarr: true } real)
+        {
+            double market = InflationAdjustment.MarketRate(marr.EffectiveAnnual(), real.Rate);
+            if (!MarrBounds.Allows(market))
+            {
+                return Outcome.Failure<ReadSpecification>([new("inflation.rate",
+                    "With a real MARR, the market rate (1 + MARR)(1 + inflation) − 1 must be between −40% and 1000% a year: change the inflation or the MARR.")]);
+            }
+            marr = AnnualRate.Effective(market);
+        }
         return Outcome.Success(new ReadSpecification(model!.Value!, new EvaluationOptions(marr)));
     }
 
@@ -115,7 +124,7 @@ public static class SpecificationReader
             errors.Add(new("rate.compoundingsPerYear", "A nominal rate needs its compoundings per year."));
             return null;
         }
-        IReadOnlyList<InputError> rateErrors = AnnualRate.Check(value, basis, m, "rate");
+        IReadOnlyList<InputError> rateErrors = MarrBounds.Check(value, basis, m, "rate");
         if (rateErrors.Count > 0)
         {
             errors.AddRange(rateErrors);

@@ -25,6 +25,15 @@ internal static class CycleSections
                 f.Money(r.Ranked.FirstCost), f.Number(r.Ranked.LifeYears, 1),
             ])));
 
+        if (portfolio.LeftOut.Count > 0)
+        {
+            // One proposal that cannot be evaluated is named here with its reason; it never keeps the others out.
+            flow.Gap(2);
+            flow.Text("Not in the ranking or the selection:", PacketStyle.BodyBold);
+            TableWriter.Draw(flow, [new("Proposal", 3.2), new("Why", 5.0)],
+                portfolio.LeftOut.Select(u => new TableRow([$"{u.Proposal.Reference} {u.Proposal.Title}", u.Reason])));
+        }
+
         var approved = data.Decided.Where(d => d.Decision.Outcome == DecisionOutcome.Approve).Select(d => d.Proposal.Reference).ToHashSet();
         var funded = ranking.Rows.Where(r => approved.Contains(r.Proposal.Reference)).ToList();
         double cost = funded.Sum(r => r.Ranked.FirstCost);

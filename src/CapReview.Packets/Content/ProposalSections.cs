@@ -47,7 +47,7 @@ internal static class ProposalSections
         flow.Heading("What the proposal is worth", PacketStyle.Heading1);
         if (evaluation is null)
         {
-            flow.Text("The model of this version is not complete, so no measure can be stated.", PacketStyle.Body);
+            flow.Text("No measure of this version can be stated: " + (figures.WhyNoMeasures ?? "its model is not complete."), PacketStyle.Body);
             return;
         }
         Summary(flow, data, evaluation, figures.StudyPeriod, version.Assumptions.MarrOverride?.Reason, f);

@@ -148,7 +148,7 @@ public static class CycleDocumentCheck
         }
         else
         {
-            foreach (var e in AnnualRate.Check(rate, policy.Basis ?? RateBasis.Effective, policy.CompoundingsPerYear ?? 1, "marrPolicy.rate"))
+            foreach (var e in MarrBounds.Check(rate, policy.Basis ?? RateBasis.Effective, policy.CompoundingsPerYear ?? 1, "marrPolicy.rate"))
             {
                 add(e.Field, e.Message);
             }

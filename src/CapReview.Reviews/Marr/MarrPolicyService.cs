@@ -17,10 +17,10 @@ public sealed class MarrPolicyService(ReviewWork work, AuditTrail audit, TimePro
         {
             throw new AccessDeniedException("Only an administrator can set the MARR policy.");
         }
-        var errors = AnnualRate.Check(policy.Rate, policy.Basis, policy.CompoundingsPerYear, "rate");
+        var errors = MarrBounds.Check(policy.Rate, policy.Basis, policy.CompoundingsPerYear, "rate");
         if (errors.Count > 0)
         {
-            throw new RuleViolationException(errors[0].Message);
+            throw new RuleViolationException($"{errors[0].Field}: {errors[0].Message}");
         }
         if (new[] { policy.LowRiskPremium, policy.StandardRiskPremium, policy.HighRiskPremium }.Any(p => !double.IsFinite(p) || p < -0.5 || p > 1.0))
         {
@@ -31,10 +31,10 @@ public sealed class MarrPolicyService(ReviewWork work, AuditTrail audit, TimePro
         double effective = AnnualRate.Create(policy.Rate, policy.Basis, policy.CompoundingsPerYear).EffectiveAnnual();
         foreach (var (field, words, premium) in new[] { ("lowRiskPremium", "low", policy.LowRiskPremium), ("standardRiskPremium", "standard", policy.StandardRiskPremium), ("highRiskPremium", "high", policy.HighRiskPremium) })
         {
-            if (premium != 0.0 && AnnualRate.Check(effective + premium, RateBasis.Effective, 1, field).Count > 0)
+            if (premium != 0.0 && !MarrBounds.Allows(effective + premium))
             {
                 throw new RuleViolationException(string.Create(System.Globalization.CultureInfo.InvariantCulture,
-                    $"{field}: with this premium the MARR of {words}-risk proposals would be {(effective + premium) * 100:0.##} %; it must stay above -100 %."));
+                    $"{field}: with this premium the MARR of {words}-risk proposals would be {(effective + premium) * 100:0.##} %; it must stay between −40 % and 1000 % a year."));
             }
         }
         if (!double.IsFinite(policy.InflationRate) || policy.InflationRate is <= -0.5 or > 1.0)

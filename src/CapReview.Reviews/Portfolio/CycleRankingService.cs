@@ -97,7 +97,7 @@ public sealed class CycleRankingService(ReviewWork work)
                 if (!evaluated.IsValid)
                 {
                     var error = evaluated.Errors[0];
-                    unranked.Add(new(proposal, $"the tax settings are not complete: {error.Field}: {error.Message}"));
+                    unranked.Add(new(proposal, $"its after-tax figures cannot be computed: {error.Field}: {error.Message}"));
                     continue;
                 }
                 // The after-tax flows ranked as a model of their own; their value at a study period's end is not taxed again.
@@ -110,7 +110,7 @@ public sealed class CycleRankingService(ReviewWork work)
                 if (!read.IsValid)
                 {
                     var error = read.Errors[0];
-                    unranked.Add(new(proposal, $"the model is not complete: {error.Field}: {error.Message}"));
+                    unranked.Add(new(proposal, $"the model cannot be evaluated: {error.Field}: {error.Message}"));
                     continue;
                 }
                 entries.Add(new RankingEntry(proposal.Reference, read.Value!.Model, read.Value.Options.Marr, version.Assumptions.ValueAtStudyEnd));
@@ -118,7 +118,11 @@ public sealed class CycleRankingService(ReviewWork work)
             sources[proposal.Reference] = (proposal, version);
         }
         var byId = proposals.ToDictionary(p => p.Id);
-        var rows = ProposalRanking.Rank(entries, cycle.StudyPeriodYears, marrShift).Select(ranked =>
+        // A proposal whose worth cannot be computed on the cycle's basis (a stored MARR past the bounds, a what-if
+        // shift that takes it there) is listed as not ranked with the reason; it never takes the cycle's ranking down.
+        RankingOutcome outcome = ProposalRanking.RankEvaluable(entries, cycle.StudyPeriodYears, marrShift);
+        unranked.AddRange(outcome.Unevaluable.Select(u => new UnrankedProposal(sources[u.Id].Proposal, "its worth cannot be computed: " + u.Reason)));
+        var rows = outcome.Ranked.Select(ranked =>
         {
             var (proposal, version) = sources[ranked.Id];
             var prerequisites = rules.PrerequisitesOf(proposal.Id)

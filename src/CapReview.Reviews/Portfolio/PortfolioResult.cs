@@ -13,6 +13,13 @@ namespace CapReview.Reviews.Portfolio;
 public sealed record PortfolioResult(CycleRanking Ranking, SelectionProblem Problem, SelectionObjective Objective, Selection Optimal, Selection Greedy,
     IReadOnlyList<FrontierPoint> Frontier, IReadOnlyList<(string Reference, string Reason)> Excluded)
 {
+    /// <summary>
+    /// Every proposal of the cycle that takes no part in the selection, with the reason: those the ranking could not
+    /// rank (an unevaluable one among them), then those left out before selecting.
+    /// </summary>
+    public IReadOnlyList<UnrankedProposal> LeftOut =>
+        [.. Ranking.Unranked, .. Excluded.Select(e => new UnrankedProposal(Ranking.Rows.First(r => r.Proposal.Reference == e.Reference).Proposal, e.Reason))];
+
     /// <summary>How much more the optimal set is worth than the greedy fill.</summary>
     public double Advantage => Optimal.TotalWorth - Greedy.TotalWorth;
 }

@@ -19,22 +19,39 @@ public static class PortfolioRisk
 {
     public const int MaxTrials = 5_000;
 
-    public static PortfolioRiskResult Simulate(PortfolioResult portfolio, int trials, IProgress<double>? progress = null, CancellationToken cancellationToken = default)
+    public static PortfolioRiskResult Simulate(PortfolioResult portfolio, int trials, IProgress<double>? progress = null, CancellationToken cancellationToken = default) =>
+        Simulate(portfolio, Studies(portfolio), trials, progress, cancellationToken);
+
+    /// <summary>The risk studies of the candidates that have risk settings, by reference (before tax, on their lives' basis).</summary>
+    public static IReadOnlyDictionary<string, RiskStudy> Studies(PortfolioResult portfolio)
     {
         ArgumentNullException.ThrowIfNull(portfolio);
+        var studies = new Dictionary<string, RiskStudy>(StringComparer.Ordinal);
+        foreach (RankingRow row in Candidates(portfolio))
+        {
+            if (ProposalRisk.Prepare(row.Version.Assumptions, portfolio.Ranking.Marr, row.Proposal.RiskClass, afterTax: false) is { Value: { } study })
+            {
+                studies[row.Proposal.Reference] = study;
+            }
+        }
+        return studies;
+    }
+
+    /// <summary>The simulation from studies already prepared (<see cref="Studies"/>).</summary>
+    public static PortfolioRiskResult Simulate(PortfolioResult portfolio, IReadOnlyDictionary<string, RiskStudy> studies, int trials, IProgress<double>? progress,
+        CancellationToken cancellationToken)
+    {
+        ArgumentNullException.ThrowIfNull(portfolio);
+        ArgumentNullException.ThrowIfNull(studies);
         if (trials is < 1 or > MaxTrials)
         {
             throw new ArgumentOutOfRangeException(nameof(trials), trials, "Run 1 to 5,000 trials of the portfolio.");
         }
-        CycleRanking ranking = portfolio.Ranking;
-        var rows = ranking.Rows.Where(r => portfolio.Problem.Candidates.Any(c => c.Id == r.Proposal.Reference)).ToList();
+        var rows = Candidates(portfolio);
         var samples = new Dictionary<string, (double[] Pw, double[] Aw)>();
-        foreach (RankingRow row in rows)
+        foreach (var (reference, study) in studies)
         {
-            if (ProposalRisk.Prepare(row.Version.Assumptions, ranking.Marr, row.Proposal.RiskClass, afterTax: false) is { Value: { } study })
-            {
-                samples[row.Proposal.Reference] = ProposalRisk.Draw(study, trials, cancellationToken);
-            }
+            samples[reference] = ProposalRisk.Draw(study, trials, cancellationToken);
         }
         string baseTop = rows.OrderByDescending(r => r.Ranked.AnnualWorth).Select(r => r.Proposal.Reference).FirstOrDefault() ?? "";
         var funded = rows.ToDictionary(r => r.Proposal.Reference, _ => 0);
@@ -53,7 +70,7 @@ public static class PortfolioRisk
                 topChanges++;
             }
             var problem = portfolio.Problem with { Candidates = candidates };
-            Selection chosen = candidates.Count <= 10 ? CapitalSelection.Exhaustive(problem) : CapitalSelection.Optimal(problem, TimeSpan.FromSeconds(1));
+            Selection chosen = candidates.Count <= 10 ? CapitalSelection.Exhaustive(problem) : CapitalSelection.Optimal(problem, TimeSpan.FromSeconds(1), cancellationToken);
             foreach (string id in chosen.Chosen)
             {
                 funded[id]++;
@@ -66,6 +83,9 @@ public static class PortfolioRisk
         progress?.Report(1);
         return new PortfolioRiskResult(trials, funded.ToDictionary(f => f.Key, f => (double)f.Value / trials), (double)topChanges / trials, [.. samples.Keys.Order(StringComparer.Ordinal)]);
     }
+
+    private static List<RankingRow> Candidates(PortfolioResult portfolio) =>
+        [.. portfolio.Ranking.Rows.Where(r => portfolio.Problem.Candidates.Any(c => c.Id == r.Proposal.Reference))];
 
     // A trial whose inputs made no valid model counts as worth nothing.
     private static double Finite(double value) => double.IsFinite(value) ? value : 0;

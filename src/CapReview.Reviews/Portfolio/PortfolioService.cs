@@ -1,5 +1,6 @@
 using CapReview.Engine.Comparison;
 using CapReview.Reviews.Access;
+using CapReview.Reviews.Runs;
 
 namespace CapReview.Reviews.Portfolio;
 
@@ -8,17 +9,37 @@ namespace CapReview.Reviews.Portfolio;
 /// worth on the cycle's basis; at most one per exclusive group (exactly one for a mandatory group); dependents only
 /// with their prerequisites; within the capital limit now and the limits of later budget years.
 /// </summary>
-public sealed class PortfolioService(CycleRankingService rankings)
+public sealed class PortfolioService(CycleRankingService rankings, RunLimiter limiter)
 {
     public static readonly TimeSpan SolverTimeLimit = TimeSpan.FromSeconds(10);
     private static readonly TimeSpan FrontierTimeLimit = TimeSpan.FromSeconds(2);
     private const int FrontierSteps = 12;
 
+    /// <summary>
+    /// The portfolio a person asks for (the API, the downloads): read, then solved as one of their runs, counted by the
+    /// <see cref="RunLimiter"/> and stopped when <paramref name="cancellationToken"/> is cancelled.
+    /// </summary>
     public async Task<PortfolioResult> SelectAsync(Actor actor, int cycleId, PortfolioQuery query, CancellationToken cancellationToken)
     {
         CheckQuery(query);
         CycleRankingInputs inputs = await rankings.LoadAsync(actor, cycleId, cancellationToken).ConfigureAwait(false);
-        return Select(inputs, query, cancellationToken);
+        return await SolveAsync(actor, inputs, query, cancellationToken).ConfigureAwait(false);
+    }
+
+    /// <summary>The portfolio of a decided cycle for its record (the packets): the same figures, outside the people's limits.</summary>
+    public async Task<PortfolioResult> SelectForRecordAsync(Actor actor, int cycleId, PortfolioQuery query, CancellationToken cancellationToken)
+    {
+        CheckQuery(query);
+        CycleRankingInputs inputs = await rankings.LoadAsync(actor, cycleId, cancellationToken).ConfigureAwait(false);
+        return await Task.Run(() => Select(inputs, query, cancellationToken), cancellationToken).ConfigureAwait(false);
+    }
+
+    /// <summary>The portfolio from inputs already read (the portfolio page), as one of <paramref name="actor"/>'s runs, off the caller's thread.</summary>
+    public async Task<PortfolioResult> SolveAsync(Actor actor, CycleRankingInputs inputs, PortfolioQuery query, CancellationToken cancellationToken)
+    {
+        CheckQuery(query);
+        using RunLease lease = limiter.Enter(actor);
+        return await Task.Run(() => Select(inputs, query, cancellationToken), cancellationToken).ConfigureAwait(false);
     }
 
     /// <summary>
@@ -31,16 +52,14 @@ public sealed class PortfolioService(CycleRankingService rankings)
         CycleRanking ranking = CycleRankingService.Rank(inputs, query.MarrShift, query.AfterTax);
         SelectionObjective objective = query.Objective ?? ranking.Cycle.Objective;
         var (problem, excluded) = ProblemOf(ranking, (double)(query.CapitalLimit ?? ranking.Cycle.CapitalLimit), objective);
-        Selection optimal = CapitalSelection.Optimal(problem, SolverTimeLimit);
-        cancellationToken.ThrowIfCancellationRequested();
+        Selection optimal = CapitalSelection.Optimal(problem, SolverTimeLimit, cancellationToken);
         Selection greedy = CapitalSelection.Greedy(problem);
         // Up to what every worthwhile proposal and the dearest way of meeting each mandatory group would need together.
         double mandatory = (problem.MandatoryGroups ?? []).Sum(g => problem.Candidates.Where(c => g.Contains(c.Id)).Max(c => c.FirstCost));
         double top = Math.Max(problem.CapitalLimit, problem.Candidates.Where(c => c.Worth > 0).Sum(c => c.FirstCost) + mandatory);
         var limits = Enumerable.Range(0, FrontierSteps + 1).Select(k => Math.Round(top * k / FrontierSteps, 2))
             .Append(problem.CapitalLimit).Distinct().Order();
-        var frontier = CapitalSelection.Frontier(problem, limits, FrontierTimeLimit).Select(f => new FrontierPoint(f.Limit, f.Selection)).ToList();
-        cancellationToken.ThrowIfCancellationRequested();
+        var frontier = CapitalSelection.Frontier(problem, limits, FrontierTimeLimit, cancellationToken).Select(f => new FrontierPoint(f.Limit, f.Selection)).ToList();
         return new PortfolioResult(ranking, problem, objective, optimal, greedy, frontier, excluded);
     }
 

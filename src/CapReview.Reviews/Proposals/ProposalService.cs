@@ -255,9 +255,9 @@ public sealed class ProposalService(ReviewWork work, AuditTrail audit, TimeProvi
         {
             throw new RuleViolationException("Choose a category and a risk class from the lists.");
         }
-        if (draft.Assumptions?.ValueAtStudyEnd is double value && !double.IsFinite(value))
+        if (draft.Assumptions?.ValueAtStudyEnd is double value && !(Math.Abs(value) <= CapReview.Engine.CashFlows.CashFlowElement.MaxAmount))
         {
-            throw new RuleViolationException("valueAtStudyEnd: the value at the end of the study period must be a number.");
+            throw new RuleViolationException("valueAtStudyEnd: the value at the end of the study period must be a number within ±10¹², like any amount.");
         }
         if (draft.Assumptions?.Replacement?.FirstError() is var (field, message))
         {
@@ -269,11 +269,11 @@ public sealed class ProposalService(ReviewWork work, AuditTrail audit, TimeProvi
             {
                 throw new RuleViolationException("Say why the proposal needs a MARR of its own.");
             }
-            var rateErrors = CapReview.Engine.Rates.AnnualRate.Check(own.Rate.Value ?? double.NaN,
-                own.Rate.Basis ?? CapReview.Engine.Rates.RateBasis.Effective, own.Rate.CompoundingsPerYear ?? 1, "marrOverride");
+            var rateErrors = CapReview.Engine.Rates.MarrBounds.Check(own.Rate.Value ?? double.NaN,
+                own.Rate.Basis ?? CapReview.Engine.Rates.RateBasis.Effective, own.Rate.CompoundingsPerYear ?? 1, "marrOverride.rate");
             if (rateErrors.Count > 0)
             {
-                throw new RuleViolationException("The proposal's own MARR: " + rateErrors[0].Message);
+                throw new RuleViolationException($"{rateErrors[0].Field}: the proposal's own MARR: " + rateErrors[0].Message);
             }
         }
     }

@@ -39,6 +39,12 @@ public sealed record VersionFigures(
     SimulationSummary? Simulation)
 {
     /// <summary>
+    /// Why there are no measures, when <see cref="Evaluation"/> is null: the first field the model is refused on, and
+    /// why (a model not complete, or a MARR at which its worth cannot be computed).
+    /// </summary>
+    public string? WhyNoMeasures { get; init; }
+
+    /// <summary>
     /// The figures of <paramref name="version"/> of <paramref name="proposal"/> under <paramref name="policy"/>, over
     /// <paramref name="studyPeriodYears"/> where the cycle has a study period. The simulation runs only when asked.
     /// </summary>
@@ -48,9 +54,10 @@ public sealed record VersionFigures(
         ArgumentNullException.ThrowIfNull(proposal);
         ArgumentNullException.ThrowIfNull(version);
         ArgumentNullException.ThrowIfNull(policy);
-        Evaluation? evaluation = VersionComparison.Evaluate(version.Assumptions, policy, proposal.RiskClass);
+        Outcome<Evaluation> evaluated = Evaluator.Evaluate(ProposalTerms.Model(version.Assumptions, policy, proposal.RiskClass));
+        Evaluation? evaluation = evaluated.Value;
         RankedProposal? study = evaluation is not null && studyPeriodYears is int years
-            ? ProposalRanking.Rank([new RankingEntry(proposal.Reference, evaluation.Model, evaluation.Marr, version.Assumptions.ValueAtStudyEnd)], years)[0]
+            ? ProposalRanking.RankEvaluable([new RankingEntry(proposal.Reference, evaluation.Model, evaluation.Marr, version.Assumptions.ValueAtStudyEnd)], years).Ranked is [var ranked] ? ranked : null
             : null;
         Outcome<AfterTaxEvaluation>? afterTax = ProposalTerms.Tax(version.Assumptions, policy) is { } tax
             ? AfterTaxEvaluator.Evaluate(ProposalTerms.Model(version.Assumptions, policy, proposal.RiskClass), tax)
@@ -63,6 +70,9 @@ public sealed record VersionFigures(
         SensitivityResult? sensitivity = risk?.Value is { } prepared ? ProposalRisk.Analyse(prepared) : null;
         SimulationSummary? simulation = simulate && risk?.Value is { } ready ? ProposalRisk.Simulate(ready, cancellationToken: cancellationToken) : null;
         return new VersionFigures(evaluation, evaluation is null ? [] : EvaluationProfile.Of(evaluation), evaluation is null ? [] : PeriodTable.Of(evaluation), evaluation is null ? [] : PeriodTable.ElementWorths(evaluation),
-            study, afterTax, depreciation, changes, risk, sensitivity, simulation);
+            study, afterTax, depreciation, changes, risk, sensitivity, simulation)
+        {
+            WhyNoMeasures = evaluated.Errors is [var first, ..] ? $"{first.Field}: {first.Message}" : null,
+        };
     }
 }

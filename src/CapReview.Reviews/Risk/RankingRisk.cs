@@ -4,24 +4,38 @@ namespace CapReview.Reviews.Risk;
 
 /// <summary>
 /// The ranking's risk column: each proposal's probability of a loss (present worth below zero) from its own risk
-/// settings, trials and seed, at the ranking's MARR and basis.
+/// settings, trials and seed, at the ranking's MARR and basis. People start it through <see cref="RiskRuns"/>.
 /// </summary>
 public static class RankingRisk
 {
+    /// <summary>Each ranked proposal's risk study by reference; null for one without risk settings (or whose settings cannot be read).</summary>
+    public static IReadOnlyDictionary<string, RiskStudy?> Studies(CycleRanking ranking, bool afterTax)
+    {
+        ArgumentNullException.ThrowIfNull(ranking);
+        var studies = new Dictionary<string, RiskStudy?>(StringComparer.Ordinal);
+        foreach (var row in ranking.Rows)
+        {
+            studies[row.Proposal.Reference] = ProposalRisk.Prepare(row.Version.Assumptions, ranking.Marr, row.Proposal.RiskClass, afterTax)?.Value;
+        }
+        return studies;
+    }
+
     /// <summary>
     /// P(PW &lt; 0) by proposal reference; null for a proposal without risk settings. Stops between proposals and
     /// between trials when <paramref name="cancellationToken"/> is cancelled.
     /// </summary>
-    public static IReadOnlyDictionary<string, double?> LossProbabilities(CycleRanking ranking, bool afterTax, CancellationToken cancellationToken)
+    public static IReadOnlyDictionary<string, double?> LossProbabilities(CycleRanking ranking, bool afterTax, CancellationToken cancellationToken) =>
+        LossProbabilities(Studies(ranking, afterTax), cancellationToken);
+
+    /// <summary>P(PW &lt; 0) of studies already prepared (<see cref="Studies"/>).</summary>
+    public static IReadOnlyDictionary<string, double?> LossProbabilities(IReadOnlyDictionary<string, RiskStudy?> studies, CancellationToken cancellationToken)
     {
-        ArgumentNullException.ThrowIfNull(ranking);
+        ArgumentNullException.ThrowIfNull(studies);
         var losses = new Dictionary<string, double?>(StringComparer.Ordinal);
-        foreach (var row in ranking.Rows)
+        foreach (var (reference, study) in studies)
         {
             cancellationToken.ThrowIfCancellationRequested();
-            losses[row.Proposal.Reference] = ProposalRisk.Prepare(row.Version.Assumptions, ranking.Marr, row.Proposal.RiskClass, afterTax) is { Value: { } study }
-                ? ProposalRisk.Simulate(study, cancellationToken: cancellationToken).ProbabilityOfLoss
-                : null;
+            losses[reference] = study is null ? null : ProposalRisk.Simulate(study, cancellationToken: cancellationToken).ProbabilityOfLoss;
         }
         return losses;
     }

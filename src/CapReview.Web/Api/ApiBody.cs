@@ -34,7 +34,7 @@ public static class ApiBody
         }
         catch (JsonException ex)
         {
-            return (null, ApiProblems.Invalid(EvaluationEndpoints.FieldOf(ex.Path), "This value is not valid here: check its type and spelling."));
+            return (null, ApiProblems.Invalid(EvaluationEndpoints.FieldOf(ex.Path), FiniteNumberConverter.Refusal(ex)));
         }
     }
 }

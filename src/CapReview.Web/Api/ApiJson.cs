@@ -13,6 +13,7 @@ public static class ApiJson
         ArgumentNullException.ThrowIfNull(options);
         options.NumberHandling = JsonNumberHandling.Strict;
         options.Converters.Add(new JsonStringEnumConverter(JsonNamingPolicy.CamelCase, allowIntegerValues: false));
+        options.Converters.Add(new FiniteNumberConverter());
         return options;
     }
 }

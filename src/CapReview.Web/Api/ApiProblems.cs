@@ -8,7 +8,7 @@ public static class ApiProblems
     public static IResult Invalid(string field, string message) =>
         Results.ValidationProblem(new Dictionary<string, string[]> { [field] = [message] }, title: "The request could not be served.");
 
-    /// <summary>Runs <paramref name="action"/>, turning the domain's refusals into 400, 403, 404 and 409.</summary>
+    /// <summary>Runs <paramref name="action"/>, turning the domain's refusals into 400, 403, 404, 409 and (a run limit) 429.</summary>
     public static async Task<IResult> RunAsync(Func<Task<IResult>> action)
     {
         ArgumentNullException.ThrowIfNull(action);
@@ -31,6 +31,10 @@ public static class ApiProblems
         catch (RuleViolationException ex)
         {
             return Invalid(FieldOf(ex.Message), ex.Message);
+        }
+        catch (Reviews.Runs.RunLimitReachedException ex)
+        {
+            return new TooManyRunsResult(ex.Message);
         }
     }
 

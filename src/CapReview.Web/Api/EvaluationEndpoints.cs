@@ -51,7 +51,7 @@ public static class EvaluationEndpoints
         }
         catch (JsonException ex)
         {
-            return Problem(FieldOf(ex.Path), "This value is not valid here: check its type and spelling.");
+            return Problem(FieldOf(ex.Path), FiniteNumberConverter.Refusal(ex));
         }
         if (spec is null)
         {

@@ -2,7 +2,10 @@ using CapReview.Engine.Evaluation;
 
 namespace CapReview.Web.Api;
 
-/// <summary>The measures of one model at one MARR. Money in the model's units; rates annual effective as fractions.</summary>
+/// <summary>
+/// The measures of one model at one MARR. Money in the model's units; rates annual effective as fractions. A measure
+/// that does not exist or that no number can hold is null, and <c>unavailable</c> says why, keyed by its name.
+/// </summary>
 public sealed record EvaluationResponse(
     double PresentWorth,
     double? FutureWorth,
@@ -15,7 +18,8 @@ public sealed record EvaluationResponse(
     double? ExternalRate,
     PaybackResponse Payback,
     BenefitCostResponse BenefitCostRatio,
-    IReadOnlyList<double> NetFlows)
+    IReadOnlyList<double> NetFlows,
+    IReadOnlyDictionary<string, string> Unavailable)
 {
     /// <summary>The after-tax figures when the request carried a <c>tax</c> block; absent otherwise.</summary>
     [System.Text.Json.Serialization.JsonIgnore(Condition = System.Text.Json.Serialization.JsonIgnoreCondition.WhenWritingNull)]
@@ -37,7 +41,8 @@ public sealed record EvaluationResponse(
             evaluation.ExternalRate,
             new PaybackResponse(evaluation.SimplePayback, evaluation.DiscountedPayback, evaluation.SimplePaybackYears, evaluation.DiscountedPaybackYears),
             new BenefitCostResponse(evaluation.BenefitCost.Conventional, evaluation.BenefitCost.Modified),
-            evaluation.NetFlows);
+            evaluation.NetFlows,
+            evaluation.Unavailable);
     }
 }
 

@@ -16,6 +16,7 @@ public static class PortfolioEndpoints
             .ProducesValidationProblem()
             .ProducesProblem(StatusCodes.Status403Forbidden)
             .ProducesProblem(StatusCodes.Status404NotFound)
+            .ProducesProblem(StatusCodes.Status429TooManyRequests)
             .RequireAuthorization(IdentityRegistration.Api);
         return routes;
     }

@@ -22,6 +22,6 @@ public sealed record PortfolioResponse(int CycleId, string Objective, string Bas
             [.. r.Problem.Candidates.Select(c => new PortfolioCandidateResponse(rows[c.Id].Ranked.Rank, rows[c.Id].Proposal.Id, c.Id, rows[c.Id].Proposal.Title, c.Worth, c.FirstCost,
                 [.. Enumerable.Range(1, laterYears).Select(c.CapitalIn)], optimal.Contains(c.Id), greedy.Contains(c.Id)))],
             [.. r.Frontier.Select(f => new FrontierPointResponse(f.Limit, f.Selection.TotalWorth, f.Selection.TotalCost, [.. f.Selection.Chosen.Order(StringComparer.Ordinal)], f.Selection.ProvenOptimal))],
-            [.. r.Excluded.Select(e => new UnrankedResponse(rows[e.Reference].Proposal.Id, e.Reference, e.Reason))]);
+            [.. r.LeftOut.Select(e => new UnrankedResponse(e.Proposal.Id, e.Proposal.Reference, e.Reason))]);
     }
 }

@@ -17,12 +17,13 @@ public static class RiskAnalysisEndpoints
             .Produces<RiskAnalysisResponse>()
             .ProducesValidationProblem()
             .Produces(StatusCodes.Status401Unauthorized)
+            .ProducesProblem(StatusCodes.Status429TooManyRequests)
             .RequireAuthorization(Identity.IdentityRegistration.Api)
             .DisableAntiforgery();
         return routes;
     }
 
-    private static async Task<IResult> AnalyseAsync(HttpRequest request, CancellationToken cancellationToken)
+    private static async Task<IResult> AnalyseAsync(HttpRequest request, RiskRuns runs, CancellationToken cancellationToken)
     {
         if (request.ContentLength > EvaluationEndpoints.MaxRequestBytes)
         {
@@ -44,7 +45,7 @@ public static class RiskAnalysisEndpoints
         }
         catch (JsonException ex)
         {
-            return ApiProblems.Invalid(EvaluationEndpoints.FieldOf(ex.Path), "This value is not valid here: check its type and spelling.");
+            return ApiProblems.Invalid(EvaluationEndpoints.FieldOf(ex.Path), FiniteNumberConverter.Refusal(ex));
         }
         if (body?.Model is null)
         {
@@ -65,8 +66,13 @@ public static class RiskAnalysisEndpoints
         {
             return EvaluationEndpoints.Invalid(prepared.Errors, "The risk settings have invalid input.");
         }
-        var sensitivity = ProposalRisk.Analyse(study, body.Measure ?? RiskMeasure.PresentWorth);
-        var simulation = await Task.Run(() => ProposalRisk.Simulate(study, cancellationToken: cancellationToken), cancellationToken).ConfigureAwait(false);
-        return Results.Ok(RiskAnalysisResponse.From(study, sensitivity, simulation));
+        // The simulation is one of the caller's runs: over the work budget it is refused naming risk.trials (400), beyond
+        // the caller's or the server's runs at once with 429; an abandoned request stops it between trials.
+        return await ApiProblems.RunAsync(async () =>
+        {
+            var simulation = await runs.SimulateAsync(Identity.ActorFactory.From(request.HttpContext.User)!, study, progress: null, cancellationToken).ConfigureAwait(false);
+            var sensitivity = ProposalRisk.Analyse(study, body.Measure ?? RiskMeasure.PresentWorth);
+            return Results.Ok(RiskAnalysisResponse.From(study, sensitivity, simulation));
+        }).ConfigureAwait(false);
     }
 }

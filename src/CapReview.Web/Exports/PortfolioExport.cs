@@ -31,6 +31,15 @@ public static class PortfolioExport
                 row.Group?.Name, row.Prerequisites.Count == 0 ? null : string.Join(" ", row.Prerequisites)]);
             return (IReadOnlyList<object?>)values;
         }).ToList();
+        // Every proposal left out of the selection (one that could not be ranked among them) is a row too, its reason
+        // in the optimal selection's column.
+        rows.AddRange(result.LeftOut.Select(u =>
+        {
+            var values = new List<object?> { null, u.Proposal.Reference, u.Proposal.Title, null, null };
+            values.AddRange(Enumerable.Range(1, laterYears).Select(_ => (object?)null));
+            values.AddRange(["left out: " + u.Reason, "", null, null]);
+            return (IReadOnlyList<object?>)values;
+        }));
 
         var notes = new List<string>(RankingExport.Notes(result.Ranking))
         {
@@ -40,7 +49,7 @@ public static class PortfolioExport
                 $"Optimal selection: total worth {result.Optimal.TotalWorth:0.00}, first cost {result.Optimal.TotalCost:0.00}, {(result.Optimal.ProvenOptimal ? "proven optimal" : "best found within the time limit, not proven optimal")}."),
             string.Create(CultureInfo.InvariantCulture, $"Greedy fill by ranking: total worth {result.Greedy.TotalWorth:0.00}; the optimal selection is worth {result.Advantage:0.00} more."),
         };
-        notes.AddRange(result.Excluded.Select(e => $"{e.Reference} left out: {e.Reason}."));
+        notes.AddRange(result.LeftOut.Select(e => $"{e.Proposal.Reference} left out: {e.Reason}."));
         return new ExportTable($"Portfolio {result.Ranking.Cycle.Name}", notes, columns, rows);
     }
 }

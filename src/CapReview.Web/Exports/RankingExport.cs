@@ -29,8 +29,19 @@ public static class RankingExport
             r.Group is null ? null : r.Group.Name + (r.Group.Mandatory ? " (mandatory)" : ""),
             r.Prerequisites.Count == 0 ? null : string.Join(" ", r.Prerequisites), r.Version.AssumptionsHash,
         ]).ToList();
+        // A proposal that could not be ranked is listed too, with no figures and the reason in the basis column: the
+        // download shows every proposal of the cycle the page shows.
+        rows.AddRange(ranking.Unranked.Select(u => (IReadOnlyList<object?>)
+        [
+            null, u.Proposal.Reference, u.Proposal.Title, u.Proposal.Versions.LastOrDefault(v => v.IsFrozen)?.Number, u.Proposal.Category.ToString(),
+            u.Proposal.RiskClass.ToString(), null, null, null, null, null, null, null, null, null, null, NotRanked + u.Reason, null, null,
+            u.Proposal.Versions.LastOrDefault(v => v.IsFrozen)?.AssumptionsHash,
+        ]));
         return new ExportTable($"Ranking {ranking.Cycle.Name}", Notes(ranking), columns, rows);
     }
+
+    /// <summary>The start of the basis column of a proposal that could not be ranked, before its reason.</summary>
+    public const string NotRanked = "not ranked: ";
 
     internal static IReadOnlyList<string> Notes(CycleRanking ranking) =>
     [

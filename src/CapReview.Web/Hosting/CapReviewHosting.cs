@@ -61,6 +61,9 @@ public static partial class CapReviewHosting
         services.AddSingleton<DatabasePreparation>();
         services.AddSingleton<CapReviewMetrics>();
         services.AddScoped<Microsoft.AspNetCore.Components.Server.Circuits.CircuitHandler, CircuitCounter>();
+        services.AddScoped<PageLifetime>();
+        services.AddScoped<Microsoft.AspNetCore.Components.Server.Circuits.CircuitHandler>(sp => sp.GetRequiredService<PageLifetime>());
+        services.AddSingleton(RunLimits.Read(builder.Configuration));
         services.AddCapReviewRateLimits(builder.Configuration);
         services.AddHttpsRedirection(options => options.HttpsPort = builder.Configuration.GetValue("ReverseProxy:HttpsPort", 443));
         services.AddHsts(options => options.MaxAge = TimeSpan.FromDays(365));

@@ -53,6 +53,26 @@ public class CompiledTrialsTests
     }
 
     [Fact]
+    public void A_drawn_MARR_below_the_entry_bound_is_invalid_on_both_paths()
+    {
+        // The fast path holds a drawn MARR to the bound the entered one is held to (docs/methods.md, "Limits of the
+        // input"), as the full path does through the specification reader: −50% is refused by both, −40% by neither.
+        UncertainParameter[] marr = [new("MARR", "rate", -0.6, 0.09, 0.14)];
+        var compiled = CompiledTrials.TryCompile(Line, marr)!;
+        Assert.True(double.IsNaN(compiled.Run([-0.5], compiled.NewWorkspace()).Pw));
+        Assert.True(double.IsNaN(MonteCarlo.Full(Line, marr, [-0.5]).Item1));
+        Assert.True(double.IsFinite(compiled.Run([-0.4], compiled.NewWorkspace()).Pw));
+        Assert.True(double.IsFinite(MonteCarlo.Full(Line, marr, [-0.4]).Item1));
+    }
+
+    [Fact]
+    public void Parameter_values_past_the_largest_flow_are_refused_by_name()
+    {
+        var read = RiskSpecReader.Read(new RiskSpec { Parameters = [new ParameterSpec { Name = "Line", Target = "elements[0].amount", Low = -1e300, MostLikely = -900_000, High = 0 }] }, Line);
+        Assert.Equal("risk.parameters[0].low", Assert.Single(read.Errors).Field);
+    }
+
+    [Fact]
     public void A_draw_that_makes_no_valid_model_is_counted_as_invalid()
     {
         var result = MonteCarlo.Run(Line, [new("Output ends", "elements[1].last", 15, 20, 30, DistributionKind.Uniform)], 1_000, 3);

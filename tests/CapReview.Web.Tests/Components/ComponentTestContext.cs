@@ -14,6 +14,10 @@ internal static class ComponentTestContext
         var context = new BunitContext();
         context.JSInterop.Mode = JSRuntimeMode.Loose;
         context.Services.AddSingleton(new DisplayFormat(new OrganisationOptions { CultureName = "en-IE", CurrencyCode = "EUR" }));
+        context.Services.AddSingleton(new CapReview.Reviews.Runs.RunLimitOptions());
+        context.Services.AddSingleton<CapReview.Reviews.Runs.RunLimiter>();
+        context.Services.AddSingleton<CapReview.Reviews.Risk.RiskRuns>();
+        context.Services.AddScoped<CapReview.Web.Components.PageLifetime>();
         context.SetRendererInfo(new RendererInfo("Server", isInteractive: true));
         return context;
     }

@@ -45,10 +45,64 @@ public sealed class ApiFuzzTests(ApiFactory factory) : IClassFixture<ApiFactory>
     }
 
     [Fact]
+    public async Task Extreme_but_valid_evaluations_never_fail_with_5xx_and_every_null_measure_has_its_reason()
+    {
+        // Rates at the −40% bound, 0, ±10^−323 and 1000%, horizons of 1 and 1,200 periods, amounts at ±10^12 and at the
+        // smallest double (docs/api.md): a 200 whose every number is finite and every null measure explained, or a 400.
+        using HttpClient lead = await ClientAsync("fuzz.lead@tarnby.example", RoleNames.ProjectLead);
+        int answered = 0;
+        await ExtremeJson.Evaluation.SampleAsync(async body =>
+        {
+            using var answer = await lead.PostAsync(new Uri("/api/v1/evaluations", UriKind.Relative), new StringContent(body, Encoding.UTF8, "application/json"));
+            string text = await answer.Content.ReadAsStringAsync();
+            Assert.True((int)answer.StatusCode < 500, $"POST /api/v1/evaluations answered {(int)answer.StatusCode} to: {Shorten(body)}");
+            using var json = System.Text.Json.JsonDocument.Parse(text);
+            Api.FiniteNumbers.Assert(json.RootElement, "evaluation");
+            if (answer.StatusCode == HttpStatusCode.OK)
+            {
+                answered++;
+                Api.FiniteNumbers.AssertNullsExplained(json.RootElement, body);
+                if (json.RootElement.TryGetProperty("afterTax", out var afterTax))
+                {
+                    Api.FiniteNumbers.AssertNullsExplained(afterTax.GetProperty("measures"), body);
+                }
+            }
+        }, iter: 400, threads: 1);
+        Assert.True(answered > 50, $"Only {answered} of 400 extreme bodies were evaluated: the generator barely reached the measures.");
+    }
+
+    [Fact]
+    public async Task Extreme_but_valid_risk_analyses_never_fail_with_5xx()
+    {
+        using HttpClient lead = await ClientAsync("fuzz.lead@tarnby.example", RoleNames.ProjectLead);
+        await ExtremeJson.RiskAnalysis.SampleAsync(async body =>
+        {
+            using var answer = await lead.PostAsync(new Uri("/api/v1/risk-analyses", UriKind.Relative), new StringContent(body, Encoding.UTF8, "application/json"));
+            string text = await answer.Content.ReadAsStringAsync();
+            Assert.True((int)answer.StatusCode < 500, $"POST /api/v1/risk-analyses answered {(int)answer.StatusCode} to: {Shorten(body)}");
+            using var json = System.Text.Json.JsonDocument.Parse(text);
+            Api.FiniteNumbers.Assert(json.RootElement, "risk analysis");
+        }, iter: 150, threads: 1);
+    }
+
+    [Fact]
     public async Task Mutated_drafts_never_fail_with_5xx_and_a_refused_one_stores_nothing()
     {
         using HttpClient lead = await ClientAsync("fuzz.lead@tarnby.example", RoleNames.ProjectLead);
         await AssertRefusalsStoreNothingAsync(lead, "/api/v1/proposals", Draft, accepted: HttpStatusCode.Created, acceptedStores: true, iterations: 600);
+    }
+
+    [Fact]
+    public async Task A_draft_with_a_number_beyond_any_double_is_refused_naming_it_not_a_500()
+    {
+        // Found by the draft fuzzer (seed 0iqk8aoMdik8): 1e400 is valid JSON but no double holds it.
+        using HttpClient lead = await ClientAsync("fuzz.lead@tarnby.example", RoleNames.ProjectLead);
+        string body = Draft.Replace("\"amount\":-64000", "\"amount\":-64000,\"escalation\":1e400", StringComparison.Ordinal);
+        Assert.NotEqual(Draft, body);
+        using var answer = await lead.PostAsync(new Uri("/api/v1/proposals", UriKind.Relative), new StringContent(body, System.Text.Encoding.UTF8, "application/json"));
+        string problem = await answer.Content.ReadAsStringAsync();
+        Assert.True(answer.StatusCode == HttpStatusCode.BadRequest, problem);
+        Assert.Contains("escalation", problem, StringComparison.Ordinal);
     }
 
     [Fact]
@@ -102,6 +156,11 @@ public sealed class ApiFuzzTests(ApiFactory factory) : IClassFixture<ApiFactory>
             string address = route + (query.Length == 0 ? "" : "?" + string.Join("&", query.Select(q => q.Item1 + "=" + Uri.EscapeDataString(q.Item2.Trim('"')))));
             using var answer = await finance.GetAsync(new Uri(address, UriKind.Relative));
             Assert.True((int)answer.StatusCode < 500, $"GET {address} answered {(int)answer.StatusCode}");
+            if (answer.Content.Headers.ContentType?.MediaType?.EndsWith("json", StringComparison.Ordinal) == true)
+            {
+                using var json = System.Text.Json.JsonDocument.Parse(await answer.Content.ReadAsStringAsync());
+                Api.FiniteNumbers.Assert(json.RootElement, "GET " + address);
+            }
         }, iter: 600, threads: 1);
         Assert.Equal(before, await StoredStateAsync());
     }

@@ -22,7 +22,7 @@ internal static class RiskCharts
         Name = line.Parameter.Name,
         Mode = Plotly.Blazor.Traces.ScatterLib.ModeFlag.Lines | Plotly.Blazor.Traces.ScatterLib.ModeFlag.Markers,
         X = line.Points.Select(p => (object)(p.Change * 100)).ToList(),
-        Y = line.Points.Select(p => (object)p.Measure).ToList(),
+        Y = line.Points.Select(p => Point(p.Measure)).ToList(),
         Line = new Plotly.Blazor.Traces.ScatterLib.Line { Color = LineColours[k % LineColours.Length], Width = 2 },
         HoverTemplate = line.Parameter.Name + " %{x:+.0f} %: %{y:,.0f}<extra></extra>",
     })];
@@ -52,13 +52,19 @@ internal static class RiskCharts
         },
     ];
 
+    /// <summary>
+    /// A figure as the chart's JSON can carry it: a move of an input that makes no valid model (a life past the
+    /// horizon's limit) has no figure, and is a gap in the line or a missing bar, never a NaN the page cannot send.
+    /// </summary>
+    private static object? Point(double value) => double.IsFinite(value) ? value : null;
+
     public static string MeasureName(RiskMeasure measure) => measure == RiskMeasure.AnnualWorth ? "Annual worth" : "Present worth";
 
     private static Bar TornadoBars(string name, SensitivityResult result, IEnumerable<double> deltas, string color) => new()
     {
         Name = name,
         Orientation = Plotly.Blazor.Traces.BarLib.OrientationEnum.H,
-        X = deltas.Select(d => (object)d).ToList(),
+        X = deltas.Select(Point).ToList(),
         Y = result.Tornado.Select(b => (object)b.Parameter.Name).ToList(),
         Base = result.Basis,
         Marker = new Plotly.Blazor.Traces.BarLib.Marker { Color = color },
