@@ -19,10 +19,15 @@ public sealed class DatabaseInitializer(IDbContextFactory<CapReviewDbContext> co
             db.Organisations.Add(defaults);
             await db.SaveChangesAsync(cancellationToken).ConfigureAwait(false);
         }
-        await work.RunAsync(async writer =>
+        // The write (and, on PostgreSQL, its lock) only when the newest event has no key: on most starts nothing to do.
+        bool unkeyed = await db.AuditEvents.OrderByDescending(e => e.Id).Select(e => e.KeyId == null).FirstOrDefaultAsync(cancellationToken).ConfigureAwait(false);
+        if (unkeyed)
         {
-            await audit.SealAsync(writer, cancellationToken).ConfigureAwait(false);
-            return true;
-        }, cancellationToken).ConfigureAwait(false);
+            await work.RunAsync(async writer =>
+            {
+                await audit.SealAsync(writer, cancellationToken).ConfigureAwait(false);
+                return true;
+            }, cancellationToken).ConfigureAwait(false);
+        }
     }
 }
