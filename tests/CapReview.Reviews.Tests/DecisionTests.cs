@@ -103,6 +103,16 @@ public sealed class DecisionTests(ReviewsDatabase db) : IClassFixture<ReviewsDat
     }
 
     [Fact]
+    public async Task Text_with_a_nul_character_is_refused_by_its_field_and_nothing_is_stored()
+    {
+        // PostgreSQL refuses U+0000 in text (common practice, no source; found by the draft fuzzer on PostgreSQL).
+        var refused = await Assert.ThrowsAsync<RuleViolationException>(() => db.Proposals.CreateDraftAsync(Lead, Draft(title: "Kiln\0burner"), None));
+        Assert.StartsWith("title:", refused.Message, StringComparison.Ordinal);
+        await using var context = db.NewContext();
+        Assert.False(await context.Proposals.AnyAsync(p => p.Title.StartsWith("Kiln")));
+    }
+
+    [Fact]
     public async Task Decisions_and_sign_offs_cannot_be_edited()
     {
         var cycle = await db.OpenCycleAsync("Written once 2027");

@@ -64,7 +64,7 @@ public class CapReviewDbContext : DbContext
         ArgumentNullException.ThrowIfNull(optionsBuilder);
         // Here rather than at each registration, so that every context refuses alike: both providers, the design-time
         // factories and any context a test builds from bare options.
-        optionsBuilder.AddInterceptors(WriteOnceRowsInterceptor.Instance);
+        optionsBuilder.AddInterceptors(WriteOnceRowsInterceptor.Instance, StorableTextInterceptor.Instance);
     }
 
     protected override void OnModelCreating(ModelBuilder modelBuilder)
