@@ -80,8 +80,10 @@ public sealed class ReviewFlowInChromium(BrowserFixture browser) : IClassFixture
         // once the packet worker has made them, without a reload.
         await Assertions.Expect(second.GetByTestId("cycle-message")).ToContainTextAsync("decides the cycle; its signed packets are being made");
         // The worker renders and signs two PDFs and solves the cycle's portfolio: given time on a busy machine.
+        // Making the packets runs each proposal's simulation; on two cores shared with the other suites that can take
+        // well over 30 s, and this waits for the outcome, not for a speed.
+        await Assertions.Expect(second.GetByTestId("packet-job")).ToHaveAttributeAsync("data-status", "done", new() { Timeout = 120_000 });
         await Assertions.Expect(second.GetByTestId("packets").Locator("tbody tr")).ToHaveCountAsync(2, new() { Timeout = 30_000 });
-        await Assertions.Expect(second.GetByTestId("packet-job")).ToHaveAttributeAsync("data-status", "done", new() { Timeout = 30_000 });
         string href = (await second.GetByTestId("packets").Locator("a").First.GetAttributeAsync("href"))!;
         var download = await second.APIRequest.GetAsync(browser.App.BaseAddress + href);
         Assert.Equal("application/pdf", download.Headers["content-type"]);
