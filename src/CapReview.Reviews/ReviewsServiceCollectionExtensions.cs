@@ -45,6 +45,7 @@ public static class ReviewsServiceCollectionExtensions
         services.AddSingleton<ReviewWork>();
         services.AddSingleton<AuditTrail>();
         services.AddSingleton<AuditQueries>();
+        services.AddSingleton<AuditSearch>();
         services.AddSingleton<ProposalService>();
         services.AddSingleton<MarrPolicyService>();
         services.AddSingleton<CycleService>();

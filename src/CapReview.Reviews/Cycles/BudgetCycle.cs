@@ -160,6 +160,33 @@ public sealed class BudgetCycle
         return signOff;
     }
 
+    /// <summary>
+    /// An administrator corrects the cycle's capital limit and dates while it is open, under the same rules as a new
+    /// cycle's; once its review has started, proposals were judged against these terms and they stand.
+    /// </summary>
+    public void Correct(Actor admin, CycleCorrection correction)
+    {
+        ArgumentNullException.ThrowIfNull(admin);
+        ArgumentNullException.ThrowIfNull(correction);
+        if (!admin.Has(Role.Administrator))
+        {
+            throw new AccessDeniedException("Only an administrator can correct a cycle.");
+        }
+        if (Status != CycleStatus.Open)
+        {
+            throw new RuleViolationException($"The cycle {Name} is no longer open: its dates and capital limit stand as they are.");
+        }
+        CheckTerms(new NewBudgetCycle(Name, correction.CapitalLimit, MarrPolicyVersionId, correction.OpensOn, correction.ClosesOn, RequiredSignOffs));
+        if (correction == CycleCorrection.Of(this))
+        {
+            throw new RuleViolationException("The dates and the capital limit are as they were: there is nothing to correct.");
+        }
+        CapitalLimit = correction.CapitalLimit;
+        OpensOn = correction.OpensOn;
+        ClosesOn = correction.ClosesOn;
+        Revision++;
+    }
+
     /// <summary>The board's plan: a study period, later years' limits and what the selection maximises; only while the cycle is undecided.</summary>
     public void SetPlan(int? studyPeriodYears, IEnumerable<decimal> laterYearLimits, SelectionObjective objective)
     {

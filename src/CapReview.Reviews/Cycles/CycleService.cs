@@ -23,6 +23,10 @@ public sealed class CycleService(ReviewWork work, AuditTrail audit)
             {
                 throw new NotFoundException("There is no such MARR policy version.");
             }
+            if (await db.MarrVersionRetirements.AnyAsync(r => r.MarrPolicyVersionId == cycle.MarrPolicyVersionId, cancellationToken).ConfigureAwait(false))
+            {
+                throw new RuleViolationException("marrPolicyVersionId: that MARR version was retired as a mistake; choose another.");
+            }
             if (await db.BudgetCycles.AnyAsync(c => c.Name == cycle.Name.Trim(), cancellationToken).ConfigureAwait(false))
             {
                 throw new RuleViolationException($"There is already a cycle called {cycle.Name.Trim()}.");
@@ -68,6 +72,32 @@ public sealed class CycleService(ReviewWork work, AuditTrail audit)
             await db.SaveChangesAsync(cancellationToken).ConfigureAwait(false);
             await audit.AppendAsync(db, actor, "cycle.moved", "budget_cycle", cycle.Id.ToString(System.Globalization.CultureInfo.InvariantCulture),
                 new { Status = before }, new { Status = to.ToString() }, cancellationToken).ConfigureAwait(false);
+            return cycle;
+        }, cancellationToken);
+    }
+
+    /// <summary>
+    /// An administrator corrects an open cycle's dates and capital limit (a typing mistake, a date moved by the board);
+    /// audited with the terms before and after. Once the review has started the terms stand.
+    /// </summary>
+    public Task<BudgetCycle> CorrectAsync(Actor actor, int cycleId, CycleCorrection correction, int expectedRevision, CancellationToken cancellationToken)
+    {
+        ArgumentNullException.ThrowIfNull(actor);
+        ArgumentNullException.ThrowIfNull(correction);
+        if (!actor.Has(Role.Administrator))
+        {
+            throw new AccessDeniedException("Only an administrator can correct a cycle.");
+        }
+        return work.RunAsync(async db =>
+        {
+            BudgetCycle cycle = await db.BudgetCycles.SingleOrDefaultAsync(c => c.Id == cycleId, cancellationToken).ConfigureAwait(false)
+                ?? throw new NotFoundException("There is no such budget cycle.");
+            var before = CycleCorrection.Of(cycle);
+            db.Entry(cycle).Property(c => c.Revision).OriginalValue = expectedRevision;
+            cycle.Correct(actor, correction);
+            await db.SaveChangesAsync(cancellationToken).ConfigureAwait(false);
+            await audit.AppendAsync(db, actor, "cycle.corrected", "budget_cycle", cycle.Id.ToString(System.Globalization.CultureInfo.InvariantCulture),
+                before, correction, cancellationToken).ConfigureAwait(false);
             return cycle;
         }, cancellationToken);
     }

@@ -6,7 +6,10 @@ using Microsoft.EntityFrameworkCore;
 
 namespace CapReview.Reviews.Marr;
 
-/// <summary>The MARR policy: administrators add versions; nothing changes or removes one, so past cycles keep theirs.</summary>
+/// <summary>
+/// The MARR policy: administrators add versions; nothing changes or removes one, so past cycles keep theirs. A version
+/// entered by mistake is retired: kept and shown, but never pinned by a new cycle and never the current one.
+/// </summary>
 public sealed class MarrPolicyService(ReviewWork work, AuditTrail audit, TimeProvider clock)
 {
     public Task<MarrPolicyVersion> AddVersionAsync(Actor actor, NewMarrPolicy policy, CancellationToken cancellationToken)
@@ -59,6 +62,46 @@ public sealed class MarrPolicyService(ReviewWork work, AuditTrail audit, TimePro
             return version;
         }, cancellationToken);
     }
+
+    /// <summary>Retires a version entered by mistake, with the reason; cycles already pinned to it keep it.</summary>
+    public Task<MarrVersionRetirement> RetireAsync(Actor actor, int versionId, string reason, CancellationToken cancellationToken)
+    {
+        ArgumentNullException.ThrowIfNull(actor);
+        if (!actor.Has(Role.Administrator))
+        {
+            throw new AccessDeniedException("Only an administrator can retire a MARR version.");
+        }
+        if (string.IsNullOrWhiteSpace(reason) || reason.Trim().Length > 1000)
+        {
+            throw new RuleViolationException("reason: say in at most 1,000 characters why the version is retired.");
+        }
+        return work.RunAsync(async db =>
+        {
+            MarrPolicyVersion version = await db.MarrPolicyVersions.SingleOrDefaultAsync(m => m.Id == versionId, cancellationToken).ConfigureAwait(false)
+                ?? throw new NotFoundException("There is no such MARR policy version.");
+            if (await db.MarrVersionRetirements.AnyAsync(r => r.MarrPolicyVersionId == versionId, cancellationToken).ConfigureAwait(false))
+            {
+                throw new RuleViolationException($"MARR version {version.Number} is already retired.");
+            }
+            var retirement = new MarrVersionRetirement(versionId, reason.Trim(), actor.UserId, clock.GetUtcNow());
+            db.MarrVersionRetirements.Add(retirement);
+            await db.SaveChangesAsync(cancellationToken).ConfigureAwait(false);
+            await audit.AppendAsync(db, actor, "marr.version-retired", "marr_policy", version.Number.ToString(System.Globalization.CultureInfo.InvariantCulture),
+                null, new { Version = version.Number, Reason = retirement.Reason }, cancellationToken).ConfigureAwait(false);
+            return retirement;
+        }, cancellationToken);
+    }
+
+    /// <summary>The retirements, by the id of the version each retires.</summary>
+    public Task<IReadOnlyDictionary<int, MarrVersionRetirement>> RetirementsAsync(CancellationToken cancellationToken) =>
+        work.ReadAsync<IReadOnlyDictionary<int, MarrVersionRetirement>>(async db =>
+            await db.MarrVersionRetirements.AsNoTracking().ToDictionaryAsync(r => r.MarrPolicyVersionId, cancellationToken).ConfigureAwait(false), cancellationToken);
+
+    /// <summary>The newest version not retired: what a new cycle is offered first and what a new version starts from; null when there is none.</summary>
+    public Task<MarrPolicyVersion?> CurrentAsync(CancellationToken cancellationToken) =>
+        work.ReadAsync(db => db.MarrPolicyVersions.AsNoTracking()
+            .Where(m => !db.MarrVersionRetirements.Any(r => r.MarrPolicyVersionId == m.Id))
+            .OrderByDescending(m => m.Number).FirstOrDefaultAsync(cancellationToken), cancellationToken);
 
     public Task<IReadOnlyList<MarrPolicyVersion>> ListAsync(CancellationToken cancellationToken) =>
         work.ReadAsync<IReadOnlyList<MarrPolicyVersion>>(async db =>

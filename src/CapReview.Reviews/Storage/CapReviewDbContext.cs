@@ -37,6 +37,8 @@ public class CapReviewDbContext : DbContext
 
     public DbSet<MarrPolicyVersion> MarrPolicyVersions => Set<MarrPolicyVersion>();
 
+    public DbSet<MarrVersionRetirement> MarrVersionRetirements => Set<MarrVersionRetirement>();
+
     public DbSet<BudgetCycle> BudgetCycles => Set<BudgetCycle>();
 
     public DbSet<AuditEvent> AuditEvents => Set<AuditEvent>();
@@ -113,6 +115,15 @@ public class CapReviewDbContext : DbContext
             m.Property(x => x.Basis).HasConversion<string>().HasMaxLength(20);
             m.Property(x => x.SetBy).HasMaxLength(100);
             m.Property(x => x.Reason).HasMaxLength(1000);
+        });
+
+        modelBuilder.Entity<MarrVersionRetirement>(r =>
+        {
+            r.ToTable("marr_version_retirement");
+            r.HasIndex(x => x.MarrPolicyVersionId).IsUnique();
+            r.Property(x => x.Reason).HasMaxLength(1000);
+            r.Property(x => x.RetiredBy).HasMaxLength(100);
+            r.HasOne<MarrPolicyVersion>().WithMany().HasForeignKey(x => x.MarrPolicyVersionId).OnDelete(DeleteBehavior.Restrict);
         });
 
         modelBuilder.Entity<BudgetCycle>(c =>

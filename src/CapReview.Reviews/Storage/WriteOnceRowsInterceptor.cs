@@ -63,6 +63,8 @@ public sealed class WriteOnceRowsInterceptor : SaveChangesInterceptor
                     throw new RuleViolationException("The audit trail is append-only.");
                 case MarrPolicyVersion:
                     throw new RuleViolationException("A MARR policy version cannot be changed or deleted; add a new version.");
+                case MarrVersionRetirement:
+                    throw new RuleViolationException("A MARR version's retirement is written once and cannot be undone.");
                 case Decision or SignOff or ProposalComment:
                     throw new RuleViolationException("Decisions and sign-offs are written once: record a new decision instead.");
                 case ApprovalPacket:
