@@ -56,7 +56,8 @@ public sealed class ReviewsDatabase : IAsyncLifetime
     public async Task InitializeAsync()
     {
         _database = CapReview.TestSupport.TestDatabase.Create(Path.Combine(_folder, "reviews.db"));
-        _services = new ServiceCollection().AddReviews(_database.Settings).BuildServiceProvider();
+        _services = new ServiceCollection().AddReviews(_database.Settings)
+            .AddSingleton<Interchange.IPeopleDirectory>(new KnownPeople([Admin, Lead, OtherLead, Reviewer, SecondReviewer, Finance])).BuildServiceProvider();
         await _services.GetRequiredService<DatabaseInitializer>().InitializeAsync(
             new OrganisationProfile { Name = "Test organisation", CurrencyCode = "EUR", CultureName = "en-IE" }, CancellationToken.None);
     }

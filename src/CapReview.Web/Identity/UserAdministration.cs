@@ -65,6 +65,56 @@ public sealed class UserAdministration(IServiceScopeFactory scopes, ReviewWork w
         }, CancellationToken.None).ConfigureAwait(false);
     }
 
+    /// <summary>
+    /// Gives a person the roles chosen (at least one). Their sessions end (a new security stamp: the sign-in cookie
+    /// carries the roles it was issued with, so the person signs in again and works in the new roles) and their API
+    /// tokens answer in the new roles at once. The last administrator who can sign in keeps that role, so that someone
+    /// can always manage the installation. Audited with the roles before and after.
+    /// </summary>
+    public async Task<IReadOnlyList<string>> SetRolesAsync(Actor actor, string userId, IReadOnlyCollection<string> roles)
+    {
+        Require(actor);
+        ArgumentNullException.ThrowIfNull(roles);
+        if (roles.Count == 0 || roles.Any(r => !RoleNames.All.Contains(r)))
+        {
+            throw new RuleViolationException("roles: choose at least one of the roles.");
+        }
+        string[] wanted = [.. RoleNames.All.Where(roles.Contains)];
+        using IServiceScope scope = scopes.CreateScope();
+        var users = scope.ServiceProvider.GetRequiredService<UserManager<CapReviewUser>>();
+        CapReviewUser user = await users.FindByIdAsync(userId).ConfigureAwait(false) ?? throw new NotFoundException("There is no such user.");
+        string[] before = [.. RoleNames.All.Where((await users.GetRolesAsync(user).ConfigureAwait(false)).Contains)];
+        if (before.SequenceEqual(wanted))
+        {
+            throw new RuleViolationException($"roles: {user.DisplayName} has these roles already.");
+        }
+        if (before.Contains(RoleNames.Administrator) && !wanted.Contains(RoleNames.Administrator))
+        {
+            var administrators = await users.GetUsersInRoleAsync(RoleNames.Administrator).ConfigureAwait(false);
+            if (!administrators.Any(a => a.Id != user.Id && a.LockoutEnd != DateTimeOffset.MaxValue))
+            {
+                throw new RuleViolationException($"roles: {user.DisplayName} is the last administrator; make someone else an administrator first.");
+            }
+        }
+        IdentityResult result = await users.RemoveFromRolesAsync(user, before.Except(wanted)).ConfigureAwait(false);
+        if (result.Succeeded)
+        {
+            result = await users.AddToRolesAsync(user, wanted.Except(before)).ConfigureAwait(false);
+        }
+        if (!result.Succeeded)
+        {
+            throw new RuleViolationException(string.Join(" ", result.Errors.Select(e => e.Description)));
+        }
+        await users.UpdateSecurityStampAsync(user).ConfigureAwait(false);
+        tokens.Forget();
+        await work.RunAsync(async db =>
+        {
+            await audit.AppendAsync(db, actor, "user.roles-changed", "user", user.Id, new { Roles = before }, new { Roles = wanted }, CancellationToken.None).ConfigureAwait(false);
+            return true;
+        }, CancellationToken.None).ConfigureAwait(false);
+        return wanted;
+    }
+
     /// <summary>For a lost phone: two-step sign-in off and a new key; the person sets the app up again at their next sign-in.</summary>
     public async Task ResetTwoStepAsync(Actor actor, string userId)
     {

@@ -359,6 +359,36 @@ namespace CapReview.Reviews.Storage.Migrations
                     b.ToTable("marr_policy_version", (string)null);
                 });
 
+            modelBuilder.Entity("CapReview.Reviews.Marr.MarrVersionRetirement", b =>
+                {
+                    b.Property<int>("Id")
+                        .ValueGeneratedOnAdd()
+                        .HasColumnType("INTEGER");
+
+                    b.Property<int>("MarrPolicyVersionId")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<string>("Reason")
+                        .IsRequired()
+                        .HasMaxLength(1000)
+                        .HasColumnType("TEXT");
+
+                    b.Property<DateTimeOffset>("RetiredAt")
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("RetiredBy")
+                        .IsRequired()
+                        .HasMaxLength(100)
+                        .HasColumnType("TEXT");
+
+                    b.HasKey("Id");
+
+                    b.HasIndex("MarrPolicyVersionId")
+                        .IsUnique();
+
+                    b.ToTable("marr_version_retirement", (string)null);
+                });
+
             modelBuilder.Entity("CapReview.Reviews.Organisation.OrganisationProfile", b =>
                 {
                     b.Property<int>("Id")
@@ -766,6 +796,15 @@ namespace CapReview.Reviews.Storage.Migrations
                     b.HasOne("CapReview.Reviews.Cycles.BudgetCycle", null)
                         .WithMany()
                         .HasForeignKey("BudgetCycleId")
+                        .OnDelete(DeleteBehavior.Restrict)
+                        .IsRequired();
+                });
+
+            modelBuilder.Entity("CapReview.Reviews.Marr.MarrVersionRetirement", b =>
+                {
+                    b.HasOne("CapReview.Reviews.Marr.MarrPolicyVersion", null)
+                        .WithMany()
+                        .HasForeignKey("MarrPolicyVersionId")
                         .OnDelete(DeleteBehavior.Restrict)
                         .IsRequired();
                 });

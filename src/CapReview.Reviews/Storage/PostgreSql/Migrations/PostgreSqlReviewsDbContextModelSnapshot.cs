@@ -379,6 +379,38 @@ namespace CapReview.Reviews.Storage.PostgreSql.Migrations
                     b.ToTable("marr_policy_version", (string)null);
                 });
 
+            modelBuilder.Entity("CapReview.Reviews.Marr.MarrVersionRetirement", b =>
+                {
+                    b.Property<int>("Id")
+                        .ValueGeneratedOnAdd()
+                        .HasColumnType("integer");
+
+                    NpgsqlPropertyBuilderExtensions.UseIdentityByDefaultColumn(b.Property<int>("Id"));
+
+                    b.Property<int>("MarrPolicyVersionId")
+                        .HasColumnType("integer");
+
+                    b.Property<string>("Reason")
+                        .IsRequired()
+                        .HasMaxLength(1000)
+                        .HasColumnType("character varying(1000)");
+
+                    b.Property<DateTimeOffset>("RetiredAt")
+                        .HasColumnType("timestamp with time zone");
+
+                    b.Property<string>("RetiredBy")
+                        .IsRequired()
+                        .HasMaxLength(100)
+                        .HasColumnType("character varying(100)");
+
+                    b.HasKey("Id");
+
+                    b.HasIndex("MarrPolicyVersionId")
+                        .IsUnique();
+
+                    b.ToTable("marr_version_retirement", (string)null);
+                });
+
             modelBuilder.Entity("CapReview.Reviews.Organisation.OrganisationProfile", b =>
                 {
                     b.Property<int>("Id")
@@ -800,6 +832,15 @@ namespace CapReview.Reviews.Storage.PostgreSql.Migrations
                     b.HasOne("CapReview.Reviews.Cycles.BudgetCycle", null)
                         .WithMany()
                         .HasForeignKey("BudgetCycleId")
+                        .OnDelete(DeleteBehavior.Restrict)
+                        .IsRequired();
+                });
+
+            modelBuilder.Entity("CapReview.Reviews.Marr.MarrVersionRetirement", b =>
+                {
+                    b.HasOne("CapReview.Reviews.Marr.MarrPolicyVersion", null)
+                        .WithMany()
+                        .HasForeignKey("MarrPolicyVersionId")
                         .OnDelete(DeleteBehavior.Restrict)
                         .IsRequired();
                 });
