@@ -15,15 +15,16 @@ public sealed record CycleStatusRequest(CycleStatus? Status, int? Revision);
 public sealed record NewMarrPolicyRequest(double? Rate, RateBasis? Basis, int? CompoundingsPerYear, DateOnly? EffectiveFrom, string? Reason,
     double? LowRiskPremium, double? StandardRiskPremium, double? HighRiskPremium, double? InflationRate, bool? RealMarr, double? AfterTaxRate);
 
-/// <summary>A MARR policy version as stored; rates as fractions.</summary>
+/// <summary>A MARR policy version as stored; rates as fractions. A retired version (entered by mistake) says so, and why.</summary>
 public sealed record MarrPolicyResponse(int Id, int Number, double Rate, RateBasis Basis, int CompoundingsPerYear, double EffectiveAnnualRate, DateOnly EffectiveFrom,
-    double LowRiskPremium, double StandardRiskPremium, double HighRiskPremium, double InflationRate, bool RealMarr, double? AfterTaxRate, string Reason, DateTimeOffset CreatedAt)
+    double LowRiskPremium, double StandardRiskPremium, double HighRiskPremium, double InflationRate, bool RealMarr, double? AfterTaxRate, string Reason, DateTimeOffset CreatedAt,
+    bool Retired = false, string? RetiredBecause = null)
 {
-    public static MarrPolicyResponse From(MarrPolicyVersion m)
+    public static MarrPolicyResponse From(MarrPolicyVersion m, MarrVersionRetirement? retirement = null)
     {
         ArgumentNullException.ThrowIfNull(m);
         return new(m.Id, m.Number, m.Rate, m.Basis, m.CompoundingsPerYear, m.BaseRate().EffectiveAnnual(), m.EffectiveFrom, m.LowRiskPremium, m.StandardRiskPremium,
-            m.HighRiskPremium, m.InflationRate, m.RealMarr, m.AfterTaxRate, m.Reason, m.CreatedAt);
+            m.HighRiskPremium, m.InflationRate, m.RealMarr, m.AfterTaxRate, m.Reason, m.CreatedAt, retirement is not null, retirement?.Reason);
     }
 }
 

@@ -63,8 +63,11 @@ public static class AdministrationEndpoints
 
     private static Actor Caller(HttpContext context) => ActorFactory.From(context.User)!;
 
-    private static async Task<IResult> PoliciesAsync(MarrPolicyService policies, CancellationToken cancellationToken) =>
-        Results.Ok((await policies.ListAsync(cancellationToken).ConfigureAwait(false)).Select(MarrPolicyResponse.From).ToList());
+    private static async Task<IResult> PoliciesAsync(MarrPolicyService policies, CancellationToken cancellationToken)
+    {
+        var retired = await policies.RetirementsAsync(cancellationToken).ConfigureAwait(false);
+        return Results.Ok((await policies.ListAsync(cancellationToken).ConfigureAwait(false)).Select(m => MarrPolicyResponse.From(m, retired.GetValueOrDefault(m.Id))).ToList());
+    }
 
     private static async Task<IResult> AddPolicyAsync(HttpRequest request, MarrPolicyService policies, CancellationToken cancellationToken)
     {
@@ -86,7 +89,7 @@ public static class AdministrationEndpoints
         return await ApiProblems.RunAsync(async () =>
         {
             MarrPolicyVersion added = await policies.AddVersionAsync(Caller(request.HttpContext), policy, cancellationToken).ConfigureAwait(false);
-            return Results.Created($"/api/v1/marr-policies", MarrPolicyResponse.From(added));
+            return Results.Created($"/api/v1/marr-policies", MarrPolicyResponse.From(added, null));
         }).ConfigureAwait(false);
     }
 

@@ -193,6 +193,8 @@ public static partial class CapReviewHosting
         app.MapProposalWorkflowEndpoints();
         app.MapBoardEndpoints();
         app.MapAdministrationEndpoints();
+        app.MapAdministrationCorrectionEndpoints();
+        app.MapAuditEndpoints();
         app.MapCycleDocumentEndpoints();
         app.MapAccountEndpoints();
         app.MapExportEndpoints();
