@@ -112,6 +112,13 @@ public sealed partial class AuthorizationMatrix(MatrixApp app) : IClassFixture<M
         ["/api/v1/cycles/{id:int}"] = new("GET", "/api/v1/cycles/{cycle}", ["401", "200", "200", "200", "200"]),
         // Closing with revision 0: refused before the cycle is decided, a stale revision once it may be closed.
         ["/api/v1/cycles/{id:int}/status"] = new("PUT", "/api/v1/cycles/{cycle}/status", ["401", "403", "403", "403", "400"], Decided: ["401", "403", "403", "403", "409"]),
+        // Administrators' corrections, sent what changes nothing: a version that is not there, a limit of zero, a person who is not there.
+        ["/api/v1/marr-policies/{id:int}/retirement"] = new("POST", "/api/v1/marr-policies/999999/retirement", ["401", "403", "403", "403", "404"]),
+        ["/api/v1/cycles/{id:int}/terms"] = new("PUT", "/api/v1/cycles/{cycle}/terms", ["401", "403", "403", "403", "400"]),
+        ["/api/v1/users"] = new("GET", "/api/v1/users", ["401", "403", "403", "403", "200"]),
+        ["/api/v1/users/{id}/roles"] = new("PUT", "/api/v1/users/nobody-here/roles", ["401", "403", "403", "403", "404"]),
+        ["/api/v1/audit-events"] = new("GET", "/api/v1/audit-events?from=2027-01-01", ["401", "403", "403", "403", "200"]),
+        ["/api/v1/audit-events/csv"] = new("GET", "/api/v1/audit-events/csv", ["401", "403", "403", "403", "200"]),
         ["/api/v1/cycles/{id:int}/portfolio-rules"] = new("GET", "/api/v1/cycles/{cycle}/portfolio-rules", ["401", "403", "200", "403", "200"], Decided: ["401", "403", "200", "200", "200"]),
         ["/api/v1/cycles/{id:int}/plan"] = new("PUT", "/api/v1/cycles/{cycle}/plan", ["401", "403", "400", "403", "400"]),
         ["/api/v1/cycles/{id:int}/groups"] = new("POST", "/api/v1/cycles/{cycle}/groups", ["401", "403", "400", "403", "400"]),
@@ -137,6 +144,9 @@ public sealed partial class AuthorizationMatrix(MatrixApp app) : IClassFixture<M
         ["/api/v1/marr-policies"] = """{"rate":-5,"effectiveFrom":"2027-01-01","reason":"Matrix"}""",
         ["/api/v1/cycles"] = """{"name":"","capitalLimit":1,"marrPolicyVersionId":1,"opensOn":"2027-01-01","closesOn":"2027-01-02"}""",
         ["/api/v1/cycles/{cycle}/status"] = """{"status":"closed","revision":0}""",
+        ["/api/v1/marr-policies/999999/retirement"] = """{"reason":"Matrix"}""",
+        ["/api/v1/cycles/{cycle}/terms"] = """{"capitalLimit":0,"opensOn":"2027-01-01","closesOn":"2027-01-02","revision":0}""",
+        ["/api/v1/users/nobody-here/roles"] = """{"roles":["finance"]}""",
         ["/api/v1/cycles/{cycle}/plan"] = """{"studyPeriodYears":0,"revision":0}""",
         ["/api/v1/cycles/{cycle}/groups"] = """{"name":""}""",
         ["/api/v1/cycles/{cycle}/contingencies"] = """{"dependentProposalId":{proposal},"prerequisiteProposalId":{proposal}}""",

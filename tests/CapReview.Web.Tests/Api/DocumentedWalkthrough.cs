@@ -63,7 +63,7 @@ public sealed partial class DocumentedWalkthrough(ApiFactory factory) : IClassFi
                 foreach (string keep in step.Groups["keeps"].Value.Split(',', StringSplitOptions.TrimEntries))
                 {
                     string[] pair = keep.Split('=');
-                    kept[pair[0]] = last.GetProperty(pair[1]).GetRawText();
+                    kept[pair[0]] = At(last, pair[1]).GetRawText();
                 }
             }
         }
@@ -84,7 +84,7 @@ public sealed partial class DocumentedWalkthrough(ApiFactory factory) : IClassFi
             .Where(a => !a.StartsWith("token.", StringComparison.Ordinal) && !a.StartsWith("user.", StringComparison.Ordinal))];
         Assert.Equal(
         [
-            "marr.version-added", "cycle.created", "proposal.created", "proposal.edited", "proposal.submitted", "decision.recorded",
+            "marr.version-added", "marr.version-added", "marr.version-retired", "cycle.created", "cycle.corrected", "proposal.created", "proposal.edited", "proposal.submitted", "decision.recorded",
             "proposal.edited", "proposal.submitted", "decision.recorded", "cycle.signed-off", "cycle.signed-off", "packet.stored", "packet.stored",
             "packet.downloaded", "packet.downloaded",
         ], acts);
@@ -106,10 +106,37 @@ public sealed partial class DocumentedWalkthrough(ApiFactory factory) : IClassFi
         return ((int)answer.StatusCode, text.Length == 0 ? default : JsonDocument.Parse(text).RootElement.Clone());
     }
 
-    private static string Fill(string text, Dictionary<string, string> kept) =>
-        Placeholder().Replace(text, m => kept.TryGetValue(m.Groups[1].Value, out string? value) ? value : m.Value);
+    /// <summary>
+    /// The request or response with each <c>{name}</c> an earlier answer kept: as JSON in a body, and in the request
+    /// line (a query string) a kept text without its quotes.
+    /// </summary>
+    private static string Fill(string text, Dictionary<string, string> kept)
+    {
+        int lineEnd = text.IndexOf('\n', StringComparison.Ordinal);
+        string first = lineEnd < 0 ? text : text[..lineEnd];
+        if (first.StartsWith("GET ", StringComparison.Ordinal) || first.StartsWith("PUT ", StringComparison.Ordinal)
+            || first.StartsWith("POST ", StringComparison.Ordinal) || first.StartsWith("DELETE ", StringComparison.Ordinal))
+        {
+            string line = Placeholder().Replace(first, m => kept.TryGetValue(m.Groups[1].Value, out string? value)
+                ? Uri.EscapeDataString(value.StartsWith('"') ? JsonDocument.Parse(value).RootElement.GetString()! : value) : m.Value);
+            return line + (lineEnd < 0 ? "" : Placeholder().Replace(text[lineEnd..], m => kept.TryGetValue(m.Groups[1].Value, out string? value) ? value : m.Value));
+        }
+        // In a documented response a kept text may stand inside a string ("{reference} Heat recovery"): without its quotes there.
+        return Placeholder().Replace(text, m => kept.TryGetValue(m.Groups[1].Value, out string? value)
+            ? (value.StartsWith('"') && m.Index > 0 && text[m.Index - 1] != ' ' && text[m.Index - 1] != ':' ? value[1..^1] : value) : m.Value);
+    }
 
-    [GeneratedRegex(@"<!-- step: (?<name>[\w-]+) as (?<who>[\w-]+)(?: \(answers (?<status>\d{3})\))?(?<waits> waits)?(?: keeps (?<keeps>[\w=, ]+))? -->")]
+    /// <summary>A kept value's place in an answer: a property name, or a path such as <c>0.id</c> (the first item's id).</summary>
+    private static JsonElement At(JsonElement answer, string path)
+    {
+        foreach (string part in path.Split('.'))
+        {
+            answer = int.TryParse(part, NumberStyles.None, CultureInfo.InvariantCulture, out int index) ? answer[index] : answer.GetProperty(part);
+        }
+        return answer;
+    }
+
+    [GeneratedRegex(@"<!-- step: (?<name>[\w-]+) as (?<who>[\w-]+)(?: \(answers (?<status>\d{3})\))?(?<waits> waits)?(?: keeps (?<keeps>[\w=,. ]+))? -->")]
     private static partial Regex StepMarker();
 
     [GeneratedRegex(@"\{(\w+)\}")]
