@@ -109,7 +109,7 @@ public sealed class AdministrationApiTests(ApiFactory factory) : IClassFixture<A
         Assert.Equal("Event,When (UTC),Who,What,Item,Proposal,Before,After,Hash", lines[0]);
         Assert.Equal(3, lines.Length);
         Assert.DoesNotContain(lines, l => l.StartsWith('#'));
-        Assert.Contains($",Cycle Lead,proposal.created,{proposal.Reference} Trail press,{proposal.Reference},", lines[2], StringComparison.Ordinal);
+        Assert.Contains($",cycle-lead,proposal.created,{proposal.Reference} Trail press,{proposal.Reference},", lines[2], StringComparison.Ordinal);
 
         using var badDay = await admin.GetAsync("/api/v1/audit-events?from=2027-13-01");
         Assert.Equal(HttpStatusCode.BadRequest, badDay.StatusCode);

@@ -22,7 +22,12 @@ public sealed class AdminFormTests(ApiFactory factory) : IClassFixture<ApiFactor
     {
         var context = new BunitContext();
         context.JSInterop.Mode = JSRuntimeMode.Loose;
-        context.Services.AddFallbackServiceProvider(factory.Services);
+        // The app's own services (so the forms save to a real database), not its whole provider: the renderer's are bUnit's.
+        context.Services.AddSingleton(factory.Services.GetRequiredService<MarrPolicyService>());
+        context.Services.AddSingleton(factory.Services.GetRequiredService<CycleService>());
+        context.Services.AddSingleton(factory.Services.GetRequiredService<CapReview.Web.Identity.UserAdministration>());
+        context.Services.AddSingleton(factory.Services.GetRequiredService<CapReview.Web.Formatting.DisplayFormat>());
+        context.Services.AddSingleton(factory.Services.GetRequiredService<CapReview.Reviews.Interchange.CycleImporter>());
         var auth = context.AddAuthorization();
         auth.SetAuthorized("Form Admin");
         auth.SetRoles(nameof(Role.Administrator));
