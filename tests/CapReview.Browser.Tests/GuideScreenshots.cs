@@ -110,6 +110,8 @@ public sealed class GuideScreenshots(BrowserFixture browser) : IClassFixture<Bro
 
         // Administrator: the MARR policy, the cycles, the audit trail, the users.
         IPage admin = await AsAsync("ines.varga@tarnby.example", "admin/marr");
+        await Assertions.Expect(admin.GetByTestId("marr-prefill")).ToContainTextAsync("Filled in from version");
+        await Assertions.Expect(admin.GetByRole(AriaRole.Button, new() { Name = "Retire version 1, entered by mistake" })).ToBeVisibleAsync();
         await ShotAsync(admin, "admin-marr");
         await GoAsync(admin, "admin/cycles");
         await Assertions.Expect(admin.GetByText("Import a cycle")).ToBeVisibleAsync();
@@ -117,6 +119,10 @@ public sealed class GuideScreenshots(BrowserFixture browser) : IClassFixture<Bro
         await GoAsync(admin, "admin/audit");
         await admin.GetByRole(AriaRole.Button, new() { Name = "Verify the chain" }).ClickAsync();
         await Assertions.Expect(admin.GetByTestId("audit-verification")).ToContainTextAsync("intact");
+        await admin.GetByLabel("Person").SelectOptionAsync(new SelectOptionValue { Label = "Ines Varga" });
+        await admin.GetByRole(AriaRole.Button, new() { Name = "Show", Exact = true }).ClickAsync();
+        await Assertions.Expect(admin.GetByTestId("audit-csv")).ToHaveAttributeAsync("href", new System.Text.RegularExpressions.Regex("person="));
+        await Assertions.Expect(admin.GetByTestId("audit-events").Locator("tbody tr").First).ToContainTextAsync("Ines Varga");
         await ShotAsync(admin, "admin-audit");
         await GoAsync(admin, "admin/users");
         await Assertions.Expect(admin.GetByRole(AriaRole.Button, new() { Name = "Give Oskar Lind a new first password" })).ToBeVisibleAsync();
