@@ -90,6 +90,9 @@ public sealed class AdministrationCorrectionTests(ReviewsDatabase db) : IClassFi
         var zero = await Assert.ThrowsAsync<RuleViolationException>(() =>
             db.Cycles.CorrectAsync(Admin, cycle.Id, new CycleCorrection(0m, cycle.OpensOn, cycle.ClosesOn), cycle.Revision, None));
         Assert.Contains("capital limit", zero.Message);
+        var huge = await Assert.ThrowsAsync<RuleViolationException>(() =>
+            db.Cycles.CorrectAsync(Admin, cycle.Id, new CycleCorrection(10_000_000_000_000_000m, cycle.OpensOn, cycle.ClosesOn), cycle.Revision, None));
+        Assert.StartsWith("capitalLimit: the capital limit must be less than", huge.Message, StringComparison.Ordinal);
         await Assert.ThrowsAsync<RuleViolationException>(() =>
             db.Cycles.CorrectAsync(Admin, cycle.Id, new CycleCorrection(500_000m, new DateOnly(2027, 5, 1), new DateOnly(2027, 4, 1)), cycle.Revision, None));
         await Assert.ThrowsAsync<AccessDeniedException>(() =>

@@ -57,6 +57,11 @@ public sealed class BudgetCycle
         {
             throw new RuleViolationException("capitalLimit: the capital limit must be above zero.");
         }
+        // The column holds 16 digits before the point (numeric(18, 2)); PostgreSQL would refuse a larger limit with an error.
+        if (terms.CapitalLimit >= 10_000_000_000_000_000m)
+        {
+            throw new RuleViolationException("capitalLimit: the capital limit must be less than 10,000,000,000,000,000.");
+        }
         if (terms.ClosesOn < terms.OpensOn)
         {
             throw new RuleViolationException("closesOn: the cycle closes before it opens.");
