@@ -21,6 +21,10 @@ public sealed class PortfolioApprovalService(PortfolioService portfolios, Decisi
             throw new AccessDeniedException("Only a board member can decide and sign off.");
         }
         PortfolioResult result = await portfolios.SelectAsync(actor, cycleId, new PortfolioQuery(), cancellationToken).ConfigureAwait(false);
+        if (result.Ranking.Cycle.Status is not (Cycles.CycleStatus.Open or Cycles.CycleStatus.InReview))
+        {
+            throw new RuleViolationException($"The cycle {result.Ranking.Cycle.Name} is already decided.");
+        }
         if (!result.Optimal.Feasible)
         {
             throw new RuleViolationException("No set of the cycle's proposals meets its capital limits and rules, so there is no selected portfolio to approve: decide each proposal on its own.");
@@ -41,13 +45,15 @@ public sealed class PortfolioApprovalService(PortfolioService portfolios, Decisi
     {
         ArgumentNullException.ThrowIfNull(confirmed);
         var plan = await PlanAsync(actor, cycleId, cancellationToken).ConfigureAwait(false);
+        if (!plan.Select(p => p.ProposalId).ToHashSet().SetEquals(confirmed))
+        {
+            throw new ConcurrencyConflictException(plan.Count == 0
+                ? "Every proposal of the selected portfolio is already approved: nothing was recorded."
+                : $"The selected portfolio now asks to approve {string.Join(", ", plan.Select(p => p.Reference))}, not what was confirmed. Look at it again and confirm.");
+        }
         if (plan.Count == 0)
         {
             throw new RuleViolationException("Every proposal of the selected portfolio is already approved.");
-        }
-        if (!plan.Select(p => p.ProposalId).ToHashSet().SetEquals(confirmed))
-        {
-            throw new ConcurrencyConflictException($"The selected portfolio now asks to approve {string.Join(", ", plan.Select(p => p.Reference))}, not what was confirmed. Look at it again and confirm.");
         }
         var requests = plan.Select(p => new DecisionRequest(p.ProposalId, DecisionOutcome.Approve, "", cycleId, p.Version, null)).ToList();
         return await decisions.DecideAllAsync(actor, cycleId, requests, overrideRules, overrideReason, cancellationToken).ConfigureAwait(false);
