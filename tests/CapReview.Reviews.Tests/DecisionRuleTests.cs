@@ -146,6 +146,9 @@ public sealed class DecisionRuleTests(ReviewsDatabase db) : IClassFixture<Review
         var same = await Assert.ThrowsAsync<RuleViolationException>(() => DecideAsync(pump, DecisionOutcome.Approve));
         Assert.Contains("already approved", same.Message, StringComparison.Ordinal);
 
+        var returned = await Assert.ThrowsAsync<RuleViolationException>(() => DecideAsync(pump, DecisionOutcome.ReturnForChanges));
+        Assert.Contains("not to a return for changes", returned.Message, StringComparison.Ordinal);
+
         var second = await DecideAsync(pump, DecisionOutcome.Reject);
         Assert.Equal(ProposalStatus.Rejected, (await db.Proposals.GetAsync(Reviewer, pump.Id, None)).Status);
         var stored = await DecisionsOfAsync(pump.Id);

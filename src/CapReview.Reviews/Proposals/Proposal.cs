@@ -227,6 +227,10 @@ public sealed class Proposal
             DecisionOutcome.ReturnForChanges => ProposalStatus.ReturnedForChanges,
             _ => throw new RuleViolationException("Choose approve, return for changes or reject."),
         };
+        if (from is ProposalStatus.Approved or ProposalStatus.Rejected && to == ProposalStatus.ReturnedForChanges)
+        {
+            throw new RuleViolationException($"{Reference} is {ProposalStatusWords.Describe(from)}: a decision can be changed between approve and reject, not to a return for changes.");
+        }
         if (from == to)
         {
             throw new RuleViolationException($"{Reference} is already {ProposalStatusWords.Describe(to)}: choose another outcome to change the decision.");
