@@ -51,6 +51,7 @@ public static class ReviewsServiceCollectionExtensions
         services.AddSingleton<CycleService>();
         services.AddSingleton<CycleOverviewService>();
         services.AddSingleton<DecisionService>();
+        services.AddSingleton<PortfolioApprovalService>();
         services.AddSingleton<CommentService>();
         services.AddSingleton<PortfolioRulesService>();
         services.AddSingleton<CycleRankingService>();

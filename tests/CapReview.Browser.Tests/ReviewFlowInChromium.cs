@@ -54,10 +54,26 @@ public sealed class ReviewFlowInChromium(BrowserFixture browser) : IClassFixture
         await Assertions.Expect(row).ToContainTextAsync("Submitted");
         // PW = −60,000 + 14,000 (P/A, 10%, 8) = 14,689 (Microsoft.VisualBasic.Financial.PV gives 74,689.05 for the series).
         await Assertions.Expect(row).ToContainTextAsync("14,689");
+        // No decision is preselected: nothing can be recorded until the member chooses one.
+        await Assertions.Expect(row.GetByRole(AriaRole.Combobox)).ToHaveValueAsync("");
+        await Assertions.Expect(row.GetByRole(AriaRole.Button, new() { Name = "Record" })).ToBeDisabledAsync();
+        await Assertions.Expect(board.GetByTestId("budget-year")).ToContainTextAsync("500,000");
+        await row.GetByRole(AriaRole.Combobox).SelectOptionAsync("Approve");
         await row.GetByRole(AriaRole.Textbox).FillAsync("Install during the August shutdown");
         await row.GetByRole(AriaRole.Button, new() { Name = "Record" }).ClickAsync();
+        // Recording asks first; "Not yet" records nothing.
+        await Assertions.Expect(board.GetByTestId("confirm-decision")).ToContainTextAsync("Record an approval on");
+        await board.GetByRole(AriaRole.Button, new() { Name = "Not yet" }).ClickAsync();
+        await Assertions.Expect(board.GetByTestId("confirm-decision")).ToHaveCountAsync(0);
+        await Assertions.Expect(row).ToContainTextAsync("Submitted");
+        await row.GetByRole(AriaRole.Button, new() { Name = "Record" }).ClickAsync();
+        await board.GetByRole(AriaRole.Button, new() { Name = "Yes, record" }).ClickAsync();
         await Assertions.Expect(board.GetByTestId("cycle-message")).ToContainTextAsync("recorded");
         await Assertions.Expect(row).ToContainTextAsync("Approved");
+        // The approval's 60,000 counts against the cycle's 500,000.
+        await Assertions.Expect(board.GetByTestId("budget-year")).ToContainTextAsync("60,000");
+        await Assertions.Expect(board.GetByTestId("budget-year")).ToContainTextAsync("440,000");
+        await BrowserFixture.ScreenshotAsync(board, "decision-recorded");
         await board.GetByRole(AriaRole.Button, new() { Name = "Sign off the cycle's decisions" }).ClickAsync();
         // A sign-off cannot be taken back, so it asks first; "Not yet" leaves the cycle as it was.
         await Assertions.Expect(board.Locator(".confirm")).ToContainTextAsync("cannot be taken back");
@@ -66,6 +82,9 @@ public sealed class ReviewFlowInChromium(BrowserFixture browser) : IClassFixture
         await board.GetByRole(AriaRole.Button, new() { Name = "Sign off the cycle's decisions" }).ClickAsync();
         await board.GetByRole(AriaRole.Button, new() { Name = "Yes, sign off" }).ClickAsync();
         await Assertions.Expect(board.GetByTestId("cycle-status")).ToContainTextAsync("sign-offs 1 of 2");
+        // A member who has signed the decisions as they stand has no sign-off button left.
+        await Assertions.Expect(board.GetByTestId("signed-by-you")).ToBeVisibleAsync();
+        await Assertions.Expect(board.GetByRole(AriaRole.Button, new() { Name = "Sign off the cycle's decisions" })).ToHaveCountAsync(0);
 
         IPage second = await browser.SignedInPageAsync("jon.board@tarnby.example", "Jon Board", RoleNames.Reviewer);
         await second.GotoAsync(browser.App.BaseAddress + $"cycles/{cycleId}");

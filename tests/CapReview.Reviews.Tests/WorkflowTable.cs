@@ -22,6 +22,9 @@ internal static class WorkflowTable
         (ProposalStatus.InReview, ProposalStatus.ReturnedForChanges, Role.Reviewer),
         (ProposalStatus.InReview, ProposalStatus.Approved, Role.Reviewer),
         (ProposalStatus.InReview, ProposalStatus.Rejected, Role.Reviewer),
+        // A decision changed before the cycle is signed off (issue 17).
+        (ProposalStatus.Approved, ProposalStatus.Rejected, Role.Reviewer),
+        (ProposalStatus.Rejected, ProposalStatus.Approved, Role.Reviewer),
     ];
 
     /// <summary>The role the agreed table names for a move, or null when the move is not in it.</summary>

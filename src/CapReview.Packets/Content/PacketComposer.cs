@@ -86,6 +86,13 @@ internal static class PacketComposer
                 d.Decision.VersionNumber.ToString(f.Culture),
                 d.Decision.AssumptionsHash[..16] + "…",
             ])));
+        // A decision recorded against the board's own rules says so in the record, with the member's reason.
+        foreach (var (proposal, decision) in data.Decided.Where(d => d.Decision.Overrides).OrderBy(d => d.Proposal.Reference, StringComparer.Ordinal))
+        {
+            flow.Note($"Override: {proposal.Reference}",
+                $"{ProposalSections.OutcomeText(decision.Outcome)} on {f.Time(decision.DecidedAt)} although it breaks the board's rules: {decision.OverriddenRules}. Reason given: {decision.OverrideReason}",
+                PacketStyle.Amber);
+        }
         if (data.Portfolio is { } portfolio)
         {
             CycleSections.RankingAndPortfolio(flow, portfolio, data, f);

@@ -15,4 +15,11 @@ namespace CapReview.Reviews.Cycles;
 /// <param name="CanSignOff">Whether the actor may sign off the cycle now.</param>
 /// <param name="Import">Where the cycle was imported from; null for a cycle opened here.</param>
 public sealed record CycleOverview(BudgetCycle Cycle, MarrPolicyVersion Marr, IReadOnlyList<CycleProposalRow> Rows, CycleSignOffs SignOffs,
-    IReadOnlyList<PacketSummary> Packets, bool PacketsMissing, PacketJobView? PacketJob, bool CanSignOff, Interchange.CycleImport? Import = null);
+    IReadOnlyList<PacketSummary> Packets, bool PacketsMissing, PacketJobView? PacketJob, bool CanSignOff, Interchange.CycleImport? Import = null)
+{
+    /// <summary>The decisions against the board's rules and every budget year's limit; null for those who do not see the proposals yet.</summary>
+    public DecisionStanding? Standing { get; init; }
+
+    /// <summary>How many packets a decided cycle gets: one per decided proposal and the cycle's own; 0 before it is decided.</summary>
+    public int PacketsExpected { get; init; }
+}

@@ -3,7 +3,10 @@ namespace CapReview.Reviews.Decisions;
 /// <summary>
 /// The board's decision on one version of a proposal, with its conditions, the hash of the assumptions it rests on and
 /// the MARR policy version it was judged at. Written once (nothing here changes it after construction); a later
-/// decision on a later version is a new row. The service makes one through <see cref="Proposals.Proposal.Decide"/>.
+/// decision on a later version is a new row, and so is a changed decision before the cycle is signed off: the latest
+/// decision of a proposal is the one that stands, the earlier ones stay as they were. The service makes one through
+/// <see cref="Proposals.Proposal.Decide"/>. A decision that breaks the board's portfolio rules carries the rules it
+/// overrode and the member's reason (<see cref="RecordOverride"/>).
 /// </summary>
 public sealed class Decision
 {
@@ -44,4 +47,25 @@ public sealed class Decision
     public string DecidedBy { get; private set; } = "";
 
     public DateTimeOffset DecidedAt { get; private set; }
+
+    /// <summary>The board's rules this decision was recorded against, in words; empty when it broke none.</summary>
+    public string OverriddenRules { get; private set; } = "";
+
+    /// <summary>Why the member recorded it all the same; empty when it broke no rule.</summary>
+    public string OverrideReason { get; private set; } = "";
+
+    public bool Overrides => OverriddenRules.Length > 0;
+
+    /// <summary>Records, before the decision is stored, which rules it breaks and why it is recorded all the same.</summary>
+    public void RecordOverride(string rules, string reason)
+    {
+        ArgumentException.ThrowIfNullOrWhiteSpace(rules);
+        ArgumentException.ThrowIfNullOrWhiteSpace(reason);
+        if (Id != 0 || Overrides)
+        {
+            throw new InvalidOperationException("A stored decision is never changed.");
+        }
+        OverriddenRules = rules.Length > 4000 ? rules[..4000] : rules;
+        OverrideReason = reason.Trim();
+    }
 }

@@ -21,47 +21,158 @@ public sealed class DecisionService(ReviewWork work, AuditTrail audit, TimeProvi
     /// <summary>
     /// Records the board's decision on a proposal. Where the request names the cycle and the version the member
     /// judged, a proposal of another cycle is not found and a later submitted version is a conflict: the member
-    /// decides on what they saw, or not at all.
+    /// decides on what they saw, or not at all. A decision that breaks the board's portfolio rules (a capital limit,
+    /// an exclusive or mandatory group, a prerequisite) more than the decisions before it did is refused, unless the
+    /// request overrides them with a reason; the decision, its audit event and the cycle packet then record both.
+    /// An approval or rejection can be changed until the cycle is signed off: the new decision supersedes the old.
     /// </summary>
     public Task<Decision> DecideAsync(Actor actor, DecisionRequest request, CancellationToken cancellationToken)
     {
+        Check(actor, request);
+        return work.RunAsync(async db =>
+        {
+            CycleDecisions cycle = await CycleDecisions.ForProposalAsync(db, request.ProposalId, request.CycleId, cancellationToken).ConfigureAwait(false);
+            if (request.ExpectedRevision is int revision)
+            {
+                db.Entry(cycle.Proposal(request.ProposalId)).Property(p => p.Revision).OriginalValue = revision;
+            }
+            DecisionStanding before = cycle.Standing();
+            Decision decision = await RecordAsync(db, actor, cycle, request, cancellationToken).ConfigureAwait(false);
+            Answer(decision, cycle.Standing().BrokenSince(before), request);
+            await db.SaveChangesAsync(cancellationToken).ConfigureAwait(false);
+            await AuditAsync(db, actor, cycle, decision, cancellationToken).ConfigureAwait(false);
+            return decision;
+        }, cancellationToken);
+    }
+
+    /// <summary>
+    /// The rules a decision would break as the request stands, recording nothing: what the page shows before the member
+    /// confirms, so that an override is asked for with the rule named. Refuses what <see cref="DecideAsync(Actor, DecisionRequest, CancellationToken)"/> would refuse for any other reason.
+    /// </summary>
+    public Task<IReadOnlyList<RuleStanding>> PreviewAsync(Actor actor, DecisionRequest request, CancellationToken cancellationToken)
+    {
+        Check(actor, request);
+        return work.ReadAsync<IReadOnlyList<RuleStanding>>(async db =>
+        {
+            CycleDecisions cycle = await CycleDecisions.ForProposalAsync(db, request.ProposalId, request.CycleId, cancellationToken).ConfigureAwait(false);
+            DecisionStanding before = cycle.Standing();
+            // Decided in memory only: nothing here is saved.
+            cycle.Proposal(request.ProposalId).Decide(actor, request.Outcome, request.Conditions, cycle.Cycle, clock.GetUtcNow(), request.Version);
+            return cycle.Standing().BrokenSince(before);
+        }, cancellationToken);
+    }
+
+    /// <summary>The cycle's decisions as they stand against the board's rules: every budget year's approved first cost against its limit, and each rule.</summary>
+    public Task<DecisionStanding> StandingAsync(Actor actor, int cycleId, CancellationToken cancellationToken)
+    {
+        ArgumentNullException.ThrowIfNull(actor);
+        if (!(actor.Has(Role.Reviewer) || actor.Has(Role.Finance) || actor.Has(Role.Administrator)))
+        {
+            throw new AccessDeniedException("Only the board, finance and administrators see how a cycle's decisions stand.");
+        }
+        return work.ReadAsync(async db =>
+        {
+            CycleDecisions cycle = await CycleDecisions.ForCycleAsync(db, cycleId, cancellationToken).ConfigureAwait(false);
+            ProposalAccess.RequireProposalsOf(actor, cycle.Cycle, "how the decisions stand");
+            return cycle.Standing();
+        }, cancellationToken);
+    }
+
+    /// <summary>
+    /// Records several decisions in one transaction (the selected portfolio's approvals): all or none, the rules checked
+    /// on the set they make together.
+    /// </summary>
+    internal Task<IReadOnlyList<Decision>> DecideAllAsync(Actor actor, int cycleId, IReadOnlyList<DecisionRequest> requests, bool overrideRules, string? overrideReason,
+        CancellationToken cancellationToken)
+    {
+        foreach (DecisionRequest request in requests)
+        {
+            Check(actor, request);
+        }
+        return work.RunAsync<IReadOnlyList<Decision>>(async db =>
+        {
+            CycleDecisions cycle = await CycleDecisions.ForCycleAsync(db, cycleId, cancellationToken).ConfigureAwait(false);
+            DecisionStanding before = cycle.Standing();
+            var decisions = new List<Decision>();
+            foreach (DecisionRequest request in requests)
+            {
+                decisions.Add(await RecordAsync(db, actor, cycle, request, cancellationToken).ConfigureAwait(false));
+            }
+            var broken = cycle.Standing().BrokenSince(before);
+            foreach (Decision decision in decisions)
+            {
+                Answer(decision, broken, new DecisionRequest(decision.ProposalId, decision.Outcome, null, cycleId, null, null, overrideRules, overrideReason));
+            }
+            await db.SaveChangesAsync(cancellationToken).ConfigureAwait(false);
+            foreach (Decision decision in decisions)
+            {
+                await AuditAsync(db, actor, cycle, decision, cancellationToken).ConfigureAwait(false);
+            }
+            return decisions;
+        }, cancellationToken);
+    }
+
+    private static void Check(Actor actor, DecisionRequest request)
+    {
         ArgumentNullException.ThrowIfNull(request);
         ArgumentNullException.ThrowIfNull(actor);
-        var (proposalId, outcome, conditions, expectedCycle, expectedVersion, expectedRevision) = request;
         RequireBoard(actor);
-        if (!Enum.IsDefined(outcome))
+        if (!Enum.IsDefined(request.Outcome))
         {
             throw new RuleViolationException("Choose approve, return for changes or reject.");
         }
-        if ((conditions ?? "").Length > 2000)
+        if ((request.Conditions ?? "").Length > 2000)
         {
             throw new RuleViolationException("The conditions are longer than 2,000 characters.");
         }
-        return work.RunAsync(async db =>
+        if ((request.OverrideReason ?? "").Length > 2000)
         {
-            Proposal proposal = await db.Proposals.Include(p => p.Versions).SingleOrDefaultAsync(p => p.Id == proposalId, cancellationToken).ConfigureAwait(false)
-                ?? throw new NotFoundException("There is no such proposal.");
-            if (expectedCycle is int named && named != proposal.BudgetCycleId)
+            throw new RuleViolationException("The reason for the override is longer than 2,000 characters.");
+        }
+    }
+
+    /// <summary>Decides the proposal in the cycle's context and adds the decision; saves nothing.</summary>
+    private async Task<Decision> RecordAsync(CapReviewDbContext db, Actor actor, CycleDecisions cycle, DecisionRequest request, CancellationToken cancellationToken)
+    {
+        Proposal proposal = cycle.Proposal(request.ProposalId);
+        cycle.RememberBefore(proposal, await db.Decisions.Where(d => d.ProposalId == proposal.Id).OrderByDescending(d => d.Id)
+            .Select(d => (int?)d.Id).FirstOrDefaultAsync(cancellationToken).ConfigureAwait(false));
+        Decision decision = proposal.Decide(actor, request.Outcome, request.Conditions, cycle.Cycle, clock.GetUtcNow(), request.Version);
+        db.Decisions.Add(decision);
+        return decision;
+    }
+
+    /// <summary>Refuses a decision that breaks the rules without an override and its reason; records the override on one that has both.</summary>
+    private static void Answer(Decision decision, IReadOnlyList<RuleStanding> broken, DecisionRequest request)
+    {
+        if (broken.Count == 0)
+        {
+            return;
+        }
+        string rules = string.Join("; ", broken.Select(b => b.Words));
+        if (!request.Override)
+        {
+            throw new RuleViolationException($"This decision breaks the board's rules: {rules}. Decide otherwise, or record it with an override and the reason for it.");
+        }
+        if (string.IsNullOrWhiteSpace(request.OverrideReason))
+        {
+            throw new RuleViolationException($"Reason for the override: say why the decision stands although it breaks the board's rules ({rules}).");
+        }
+        decision.RecordOverride(rules, request.OverrideReason);
+    }
+
+    private async Task AuditAsync(CapReviewDbContext db, Actor actor, CycleDecisions cycle, Decision decision, CancellationToken cancellationToken)
+    {
+        Proposal proposal = cycle.Proposal(decision.ProposalId);
+        var (status, supersedes) = cycle.Before(proposal);
+        await audit.AppendAsync(db, actor, "decision.recorded", "proposal", proposal.Reference,
+            new { proposal.Reference, Status = status.ToString() },
+            new
             {
-                throw new NotFoundException("There is no such proposal in this cycle.");
-            }
-            // The cycle it was submitted to, if any: the proposal refuses a decision without one.
-            BudgetCycle? cycle = proposal.BudgetCycleId is int cycleId
-                ? await db.BudgetCycles.SingleAsync(c => c.Id == cycleId, cancellationToken).ConfigureAwait(false)
-                : null;
-            object before = new { proposal.Reference, Status = proposal.Status.ToString() };
-            if (expectedRevision is int revision)
-            {
-                db.Entry(proposal).Property(p => p.Revision).OriginalValue = revision;
-            }
-            Decision decision = proposal.Decide(actor, outcome, conditions, cycle, clock.GetUtcNow(), expectedVersion);
-            db.Decisions.Add(decision);
-            await db.SaveChangesAsync(cancellationToken).ConfigureAwait(false);
-            await audit.AppendAsync(db, actor, "decision.recorded", "proposal", proposal.Reference, before,
-                new { proposal.Reference, Status = proposal.Status.ToString(), decision.VersionNumber, decision.AssumptionsHash, Outcome = outcome.ToString(), decision.Conditions },
-                cancellationToken).ConfigureAwait(false);
-            return decision;
-        }, cancellationToken);
+                proposal.Reference, Status = proposal.Status.ToString(), decision.VersionNumber, decision.AssumptionsHash, Outcome = decision.Outcome.ToString(), decision.Conditions,
+                Supersedes = supersedes, decision.OverriddenRules, decision.OverrideReason,
+            },
+            cancellationToken).ConfigureAwait(false);
     }
 
     /// <summary>
@@ -113,7 +224,9 @@ public sealed class DecisionService(ReviewWork work, AuditTrail audit, TimeProvi
             var proposals = await db.Proposals.Where(p => p.BudgetCycleId == cycleId).ToListAsync(cancellationToken).ConfigureAwait(false);
             var visible = proposals.Where(p => ProposalAccess.CanSee(actor, p, cycle.Status)).ToDictionary(p => p.Id, p => p.Reference);
             var decisions = await db.Decisions.Where(d => d.BudgetCycleId == cycleId).OrderBy(d => d.Id).ToListAsync(cancellationToken).ConfigureAwait(false);
-            return [.. decisions.Where(d => visible.ContainsKey(d.ProposalId)).Select(d => DecisionView.Of(d, visible[d.ProposalId]))];
+            // Each decision with the next one on its proposal, which supersedes it.
+            int? Next(Decision d) => decisions.Where(e => e.ProposalId == d.ProposalId && e.Id > d.Id).Select(e => (int?)e.Id).FirstOrDefault();
+            return [.. decisions.Where(d => visible.ContainsKey(d.ProposalId)).Select(d => DecisionView.Of(d, visible[d.ProposalId], Next(d)))];
         }, cancellationToken);
     }
 

@@ -189,7 +189,7 @@ public sealed class Proposal
 
     /// <summary>
     /// The board's decision on the latest frozen version, at <paramref name="cycle"/>'s MARR; a proposal not yet in review
-    /// passes through review. Returns the decision to store. Given the version the member judged, a later submitted
+    /// passes through review, and an approval or rejection may be changed to the other while the cycle is undecided. Returns the decision to store. Given the version the member judged, a later submitted
     /// version is a conflict, so a decision is never recorded on a version nobody looked at.
     /// </summary>
     public Decision Decide(Actor board, DecisionOutcome outcome, string? conditions, BudgetCycle? cycle, DateTimeOffset at, int? judgedVersion = null)
@@ -199,7 +199,9 @@ public sealed class Proposal
         {
             throw new AccessDeniedException("Only a board member can decide and sign off.");
         }
-        if (Status is not (ProposalStatus.Submitted or ProposalStatus.InReview) || BudgetCycleId is not int cycleId || cycle is null || cycle.Id != cycleId)
+        // An approval or a rejection may be changed until the cycle is signed off; the new decision supersedes it.
+        if (Status is not (ProposalStatus.Submitted or ProposalStatus.InReview or ProposalStatus.Approved or ProposalStatus.Rejected)
+            || BudgetCycleId is not int cycleId || cycle is null || cycle.Id != cycleId)
         {
             throw new RuleViolationException("Only a submitted proposal can be decided.");
         }
@@ -225,6 +227,14 @@ public sealed class Proposal
             DecisionOutcome.ReturnForChanges => ProposalStatus.ReturnedForChanges,
             _ => throw new RuleViolationException("Choose approve, return for changes or reject."),
         };
+        if (from is ProposalStatus.Approved or ProposalStatus.Rejected && to == ProposalStatus.ReturnedForChanges)
+        {
+            throw new RuleViolationException($"{Reference} is {ProposalStatusWords.Describe(from)}: a decision can be changed between approve and reject, not to a return for changes.");
+        }
+        if (from == to)
+        {
+            throw new RuleViolationException($"{Reference} is already {ProposalStatusWords.Describe(to)}: choose another outcome to change the decision.");
+        }
         if (ProposalWorkflow.RoleFor(from, to) != Role.Reviewer)
         {
             throw new RuleViolationException("The workflow does not allow this decision now.");

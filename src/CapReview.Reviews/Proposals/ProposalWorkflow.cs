@@ -20,6 +20,9 @@ public static class ProposalWorkflow
         (ProposalStatus.InReview, ProposalStatus.ReturnedForChanges, Role.Reviewer),
         (ProposalStatus.InReview, ProposalStatus.Approved, Role.Reviewer),
         (ProposalStatus.InReview, ProposalStatus.Rejected, Role.Reviewer),
+        // A decision changed before the cycle is signed off: a new decision supersedes the old one.
+        (ProposalStatus.Approved, ProposalStatus.Rejected, Role.Reviewer),
+        (ProposalStatus.Rejected, ProposalStatus.Approved, Role.Reviewer),
     ];
 
     /// <summary>The role a transition needs, or null when the transition does not exist.</summary>

@@ -147,6 +147,8 @@ public class CapReviewDbContext : DbContext
             d.Property(x => x.Outcome).HasConversion<string>().HasMaxLength(20);
             d.Property(x => x.Conditions).HasMaxLength(2000);
             d.Property(x => x.DecidedBy).HasMaxLength(100);
+            d.Property(x => x.OverriddenRules).HasMaxLength(4000).HasDefaultValue("");
+            d.Property(x => x.OverrideReason).HasMaxLength(2000).HasDefaultValue("");
             d.HasOne<Proposal>().WithMany().HasForeignKey(x => x.ProposalId).OnDelete(DeleteBehavior.Restrict);
             d.HasOne<BudgetCycle>().WithMany().HasForeignKey(x => x.BudgetCycleId).OnDelete(DeleteBehavior.Restrict);
         });

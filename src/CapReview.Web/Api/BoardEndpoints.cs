@@ -22,9 +22,31 @@ public static class BoardEndpoints
         routes.MapPost("/api/v1/cycles/{id:int}/decisions", DecideAsync)
             .WithName("RecordDecision")
             .WithSummary("Record a board member's decision on the version they judged")
-            .WithDescription("Body: proposalId, outcome (approve, returnForChanges, reject), conditions, version (the version judged), optionally revision. A later submitted version answers 409.")
+            .WithDescription("Body: proposalId, outcome (approve, returnForChanges, reject), conditions, version (the version judged), optionally revision. A later submitted version answers 409. " +
+                "An approval or rejection can be changed until the cycle is signed off: the new decision supersedes the old. A decision that breaks the board's portfolio rules (a capital limit, " +
+                "an exclusive or mandatory group, a prerequisite) answers 400 naming the rule, unless override is true with an overrideReason.")
             .Accepts<DecisionApiRequest>("application/json")
             .Produces<DecisionResponse>(StatusCodes.Status201Created)
+            .ProducesValidationProblem()
+            .ProducesProblem(StatusCodes.Status403Forbidden)
+            .ProducesProblem(StatusCodes.Status404NotFound)
+            .ProducesProblem(StatusCodes.Status409Conflict)
+            .RequireAuthorization(IdentityRegistration.Api)
+            .DisableAntiforgery();
+        routes.MapGet("/api/v1/cycles/{id:int}/decisions/portfolio", PortfolioPlanAsync)
+            .WithName("ListPortfolioApprovals")
+            .WithSummary("The approvals the selected portfolio still needs, for a board member to confirm")
+            .Produces<IReadOnlyList<PortfolioApprovalResponse>>()
+            .ProducesValidationProblem()
+            .ProducesProblem(StatusCodes.Status403Forbidden)
+            .ProducesProblem(StatusCodes.Status404NotFound)
+            .RequireAuthorization(IdentityRegistration.Api);
+        routes.MapPost("/api/v1/cycles/{id:int}/decisions/portfolio", ApprovePortfolioAsync)
+            .WithName("ApprovePortfolio")
+            .WithSummary("Approve the selected portfolio in one step: the confirmed proposals, exactly as the selection lists them")
+            .WithDescription("Body: proposalIds (as GET lists them), optionally override and overrideReason. A selection that changed since answers 409 and records nothing.")
+            .Accepts<PortfolioApprovalRequest>("application/json")
+            .Produces<IReadOnlyList<DecisionResponse>>(StatusCodes.Status201Created)
             .ProducesValidationProblem()
             .ProducesProblem(StatusCodes.Status403Forbidden)
             .ProducesProblem(StatusCodes.Status404NotFound)
@@ -94,9 +116,35 @@ public static class BoardEndpoints
         Actor caller = Caller(request.HttpContext);
         return await ApiProblems.RunAsync(async () =>
         {
-            Decision recorded = await decisions.DecideAsync(caller, new DecisionRequest(proposalId, outcome, body.Conditions, id, version, body.Revision), cancellationToken).ConfigureAwait(false);
+            Decision recorded = await decisions.DecideAsync(caller,
+                new DecisionRequest(proposalId, outcome, body.Conditions, id, version, body.Revision, body.Override == true, body.OverrideReason), cancellationToken).ConfigureAwait(false);
             DecisionView view = (await decisions.DecisionsAsync(caller, id, cancellationToken).ConfigureAwait(false)).Single(d => d.Id == recorded.Id);
             return Results.Created($"/api/v1/cycles/{id}/decisions", DecisionResponse.From(view));
+        }).ConfigureAwait(false);
+    }
+
+    private static Task<IResult> PortfolioPlanAsync(int id, HttpContext context, PortfolioApprovalService approvals, CancellationToken cancellationToken) =>
+        ApiProblems.RunAsync(async () => Results.Ok((await approvals.PlanAsync(Caller(context), id, cancellationToken).ConfigureAwait(false))
+            .Select(PortfolioApprovalResponse.From).ToList()));
+
+    private static async Task<IResult> ApprovePortfolioAsync(int id, HttpRequest request, PortfolioApprovalService approvals, DecisionService decisions, CancellationToken cancellationToken)
+    {
+        var (body, problem) = await ApiBody.ReadAsync<PortfolioApprovalRequest>(request, "the approvals", cancellationToken).ConfigureAwait(false);
+        if (body is null)
+        {
+            return problem!;
+        }
+        if (body.ProposalIds is not { Count: > 0 } confirmed)
+        {
+            return ApiProblems.Invalid("proposalIds", "List the proposals you confirm (their ids, as the selected portfolio lists them).");
+        }
+        Actor caller = Caller(request.HttpContext);
+        return await ApiProblems.RunAsync(async () =>
+        {
+            var recorded = await approvals.ApproveAsync(caller, id, [.. confirmed], body.Override == true, body.OverrideReason, cancellationToken).ConfigureAwait(false);
+            var ids = recorded.Select(d => d.Id).ToHashSet();
+            var views = (await decisions.DecisionsAsync(caller, id, cancellationToken).ConfigureAwait(false)).Where(d => ids.Contains(d.Id));
+            return Results.Created($"/api/v1/cycles/{id}/decisions", views.Select(DecisionResponse.From).ToList());
         }).ConfigureAwait(false);
     }
 

@@ -17,17 +17,37 @@ public sealed record SubmissionRequest(int? CycleId, int? Revision);
 /// <summary>A withdrawal of the lead's proposal.</summary>
 public sealed record WithdrawalRequest(int? Revision);
 
-/// <summary>A board member's decision on the version they judged; <c>revision</c> is optional.</summary>
-public sealed record DecisionApiRequest(int? ProposalId, DecisionOutcome? Outcome, string? Conditions, int? Version, int? Revision);
+/// <summary>
+/// A board member's decision on the version they judged; <c>revision</c> is optional. A decision that breaks the
+/// board's portfolio rules needs <c>override</c> true and <c>overrideReason</c>.
+/// </summary>
+public sealed record DecisionApiRequest(int? ProposalId, DecisionOutcome? Outcome, string? Conditions, int? Version, int? Revision, bool? Override = null, string? OverrideReason = null);
 
-/// <summary>A recorded decision.</summary>
+/// <summary>The approvals of the selected portfolio a member confirms, by proposal id, with an override if the set breaks a rule.</summary>
+public sealed record PortfolioApprovalRequest(IReadOnlyList<int>? ProposalIds, bool? Override = null, string? OverrideReason = null);
+
+/// <summary>One approval the selected portfolio needs: the proposal, the version it would be approved on, and its first cost.</summary>
+public sealed record PortfolioApprovalResponse(int ProposalId, string Reference, string Title, int Version, double FirstCost)
+{
+    public static PortfolioApprovalResponse From(PortfolioApproval a)
+    {
+        ArgumentNullException.ThrowIfNull(a);
+        return new(a.ProposalId, a.Reference, a.Title, a.Version, a.FirstCost);
+    }
+}
+
+/// <summary>
+/// A recorded decision; <c>overriddenRules</c> and <c>overrideReason</c> are empty unless it was recorded against the
+/// board's rules; <c>supersededBy</c> names the later decision on the same proposal that replaced it, if any.
+/// </summary>
 public sealed record DecisionResponse(int Id, int ProposalId, string Reference, int CycleId, int Version, string AssumptionsHash, int MarrPolicyVersionId,
-    DecisionOutcome Outcome, string Conditions, string DecidedBy, DateTimeOffset DecidedAt, bool Imported)
+    DecisionOutcome Outcome, string Conditions, string DecidedBy, DateTimeOffset DecidedAt, bool Imported, string OverriddenRules, string OverrideReason, int? SupersededBy)
 {
     public static DecisionResponse From(DecisionView d)
     {
         ArgumentNullException.ThrowIfNull(d);
-        return new(d.Id, d.ProposalId, d.Reference, d.CycleId, d.VersionNumber, d.AssumptionsHash, d.MarrPolicyVersionId, d.Outcome, d.Conditions, d.DecidedBy, d.DecidedAt, d.Imported);
+        return new(d.Id, d.ProposalId, d.Reference, d.CycleId, d.VersionNumber, d.AssumptionsHash, d.MarrPolicyVersionId, d.Outcome, d.Conditions, d.DecidedBy, d.DecidedAt, d.Imported,
+            d.OverriddenRules, d.OverrideReason, d.SupersededBy);
     }
 }
 

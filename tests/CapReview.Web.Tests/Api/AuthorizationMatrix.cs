@@ -100,7 +100,11 @@ public sealed partial class AuthorizationMatrix(MatrixApp app) : IClassFixture<M
         ["/api/v1/proposals/{id:int}/comments#POST"] = new("POST", "/api/v1/proposals/{proposal}/comments", ["401", "404", "201", "404", "403"], Decided: ["401", "404", "201", "403", "403"]),
         ["/api/v1/cycles/{id:int}/decisions"] = new("GET", "/api/v1/cycles/{cycle}/decisions", ["401", "200", "200", "200", "200"]),
         // A decision on version 99: a conflict while the proposal awaits its decision, refused once it is decided.
-        ["/api/v1/cycles/{id:int}/decisions#POST"] = new("POST", "/api/v1/cycles/{cycle}/decisions", ["401", "403", "409", "403", "403"], InReview: ["401", "403", "400", "403", "403"]),
+        // Approved while in review, a decision can still be changed: the version judged (99) is then the conflict.
+        ["/api/v1/cycles/{id:int}/decisions#POST"] = new("POST", "/api/v1/cycles/{cycle}/decisions", ["401", "403", "409", "403", "403"], Decided: ["401", "403", "400", "403", "403"]),
+        ["/api/v1/cycles/{id:int}/decisions/portfolio"] = new("GET", "/api/v1/cycles/{cycle}/decisions/portfolio", ["401", "403", "200", "403", "403"], Decided: ["401", "403", "400", "403", "403"]),
+        // The matrix confirms a proposal the selection does not list: a conflict that records nothing.
+        ["/api/v1/cycles/{id:int}/decisions/portfolio#POST"] = new("POST", "/api/v1/cycles/{cycle}/decisions/portfolio", ["401", "403", "409", "403", "403"], Decided: ["401", "403", "400", "403", "403"]),
         // Refused in every state: proposals still open, then the cycle already decided.
         ["/api/v1/cycles/{id:int}/sign-offs"] = new("GET", "/api/v1/cycles/{cycle}/sign-offs", ["401", "403", "200", "200", "200"]),
         ["/api/v1/cycles/{id:int}/sign-offs#POST"] = new("POST", "/api/v1/cycles/{cycle}/sign-offs", ["401", "403", "400", "403", "403"]),
@@ -141,6 +145,7 @@ public sealed partial class AuthorizationMatrix(MatrixApp app) : IClassFixture<M
         ["/api/v1/proposals/{proposal}/withdrawals"] = """{"revision":0}""",
         ["/api/v1/proposals/{proposal}/comments"] = """{"text":"Matrix comment"}""",
         ["/api/v1/cycles/{cycle}/decisions"] = """{"proposalId":{proposal},"outcome":"approve","version":99}""",
+        ["/api/v1/cycles/{cycle}/decisions/portfolio"] = """{"proposalIds":[999999]}""",
         ["/api/v1/marr-policies"] = """{"rate":-5,"effectiveFrom":"2027-01-01","reason":"Matrix"}""",
         ["/api/v1/cycles"] = """{"name":"","capitalLimit":1,"marrPolicyVersionId":1,"opensOn":"2027-01-01","closesOn":"2027-01-02"}""",
         ["/api/v1/cycles/{cycle}/status"] = """{"status":"closed","revision":0}""",
