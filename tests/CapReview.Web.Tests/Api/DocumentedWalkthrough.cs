@@ -85,7 +85,7 @@ public sealed partial class DocumentedWalkthrough(ApiFactory factory) : IClassFi
         Assert.Equal(
         [
             "marr.version-added", "cycle.created", "proposal.created", "proposal.edited", "proposal.submitted", "decision.recorded",
-            "proposal.edited", "proposal.submitted", "decision.recorded", "cycle.signed-off", "cycle.signed-off", "packet.stored", "packet.stored",
+            "proposal.edited", "proposal.submitted", "proposal.revision-started", "decision.recorded", "cycle.signed-off", "cycle.signed-off", "packet.stored", "packet.stored",
             "packet.downloaded", "packet.downloaded",
         ], acts);
     }
