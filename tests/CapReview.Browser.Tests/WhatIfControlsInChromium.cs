@@ -110,14 +110,14 @@ public sealed class WhatIfControlsInChromium(BrowserFixture browser) : IClassFix
         using (var scope = browser.App.Services.CreateScope())
         {
             var maren = await scope.ServiceProvider.GetRequiredService<IdentityStore>().FindByEmailAsync("maren.holt@tarnby.example");
-            var lead = Actor.Of(maren!.Id, "Maren Holt", Role.ProjectLead);
+            var owner = Actor.Of(maren!.Id, "Maren Holt", Role.ProjectLead);
             var proposals = scope.ServiceProvider.GetRequiredService<ProposalService>();
-            ProposalView paint = (await proposals.ListOwnAsync(lead, CancellationToken.None)).Single(p => p.Title == "Paint shop extraction with carbon filters");
+            ProposalView paint = (await proposals.ListOwnAsync(owner, CancellationToken.None)).Single(p => p.Title == "Paint shop extraction with carbon filters");
             proposalId = paint.Id;
             var model = paint.Latest.Assumptions.Model;
             var first = model.Elements![0]!;
             var changed = paint.Latest.Assumptions with { Model = model with { Elements = [first with { Amount = first.Amount - 5_000 }, .. model.Elements.Skip(1)] } };
-            await proposals.ReviseAsync(lead, paint.Id, paint.Revision, changed, "Filter housing quote came in higher", CancellationToken.None);
+            await proposals.ReviseAsync(owner, paint.Id, paint.Revision, changed, "Filter housing quote came in higher", CancellationToken.None);
         }
 
         IPage board = await BoardPageAsync($"cycles/{cycle}");

@@ -17,7 +17,8 @@ public static class PageNotFound
                 : result;
         });
 
-    /// <summary>A browser's navigation asks for HTML first; HttpClient and scripts send no such Accept.</summary>
+    /// <summary>A browser's navigation asks for HTML and sends no API token; HttpClient and scripts do neither.</summary>
     private static bool AsksForAPage(HttpRequest request) =>
-        request.Headers.Accept.Any(a => a is not null && a.Contains("text/html", StringComparison.OrdinalIgnoreCase));
+        !Identity.IdentityRegistration.IsMachineReadable(request.HttpContext)
+        && request.Headers.Accept.Any(a => a is not null && a.Contains("text/html", StringComparison.OrdinalIgnoreCase));
 }

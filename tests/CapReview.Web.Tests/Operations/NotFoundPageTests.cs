@@ -69,7 +69,7 @@ public sealed class NotFoundPageTests(ApiFactory factory) : IClassFixture<ApiFac
         var (client, _) = await factory.TokenClientAsync("not-found.board@tarnby.example", RoleNames.Reviewer);
         using (client)
         {
-            using HttpResponseMessage response = await client.GetAsync("/packets/99999");
+            using HttpResponseMessage response = await client.GetAsync("/proposals/99999/versions/1/xlsx");
             Assert.Equal(HttpStatusCode.NotFound, response.StatusCode);
             Assert.Equal("application/problem+json", response.Content.Headers.ContentType?.MediaType);
         }
