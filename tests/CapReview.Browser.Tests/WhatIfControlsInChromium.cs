@@ -60,6 +60,10 @@ public sealed class WhatIfControlsInChromium(BrowserFixture browser) : IClassFix
         await page.Locator("#marr-shift").SelectOptionAsync("2");
         await Assertions.Expect(page.GetByTestId("ranking-basis")).ToContainTextAsync("raised by 2 points");
         await Assertions.Expect(page.GetByTestId("swap-result")).ToContainTextAsync("With every MARR raised by 2.0 points");
+        // The lists show the two proposals the answer is about, though the what-if reordered the ranking under them.
+        string chosenFirst = await page.Locator("#swap-first").InputValueAsync();
+        string chosenSecond = await page.Locator("#swap-second").InputValueAsync();
+        await Assertions.Expect(page.GetByTestId("swap-result")).ToContainTextAsync($"{chosenFirst} and {chosenSecond} ");
         await BrowserFixture.ScreenshotAsync(page, "ranking-tax-switch");
     }
 
@@ -121,7 +125,7 @@ public sealed class WhatIfControlsInChromium(BrowserFixture browser) : IClassFix
         }
 
         IPage board = await BoardPageAsync($"cycles/{cycle}");
-        await Assertions.Expect(board.GetByTestId("revision-pending")).ToContainTextAsync("revision pending");
+        await Assertions.Expect(board.GetByTestId("revision-pending")).ToContainTextAsync("Revision pending: the lead is preparing version 2");
         await BrowserFixture.ScreenshotAsync(board, "cycle-revision-pending");
 
         IPage lead = await browser.SignedInPageAsync("maren.holt@tarnby.example", "Maren Holt", RoleNames.ProjectLead, DemoScenario.Password);
@@ -133,6 +137,9 @@ public sealed class WhatIfControlsInChromium(BrowserFixture browser) : IClassFix
         await Assertions.Expect(lead.GetByTestId("revision-pending")).ToHaveCountAsync(0);
 
         await board.ReloadAsync();
-        await Assertions.Expect(board.Locator("[data-testid=cycle-row]").Filter(new() { HasText = "Paint shop extraction" })).ToContainTextAsync("v2");
+        await board.Locator("[data-testid=interactive]").WaitForAsync(new() { State = WaitForSelectorState.Attached });
+        await BrowserFixture.ScreenshotAsync(board, "cycle-after-resubmission");
+        await Assertions.Expect(board.GetByTestId("revision-pending")).ToHaveCountAsync(0);
+        await Assertions.Expect(board.GetByTestId("cycle-proposals")).ToContainTextAsync("Paint shop extraction with carbon filters v2");
     }
 }
