@@ -19,6 +19,23 @@ public sealed class ProposalPacketTests
     }
 
     [Fact]
+    public void A_pert_parameter_is_named_PERT_in_the_risk_table()
+    {
+        var risk = new Engine.Specifications.RiskSpec
+        {
+            Seed = 7,
+            Trials = 200,
+            Parameters =
+            [
+                new Engine.Specifications.ParameterSpec { Name = "Labour saved", Target = "elements[1].amount", Low = 100_000, MostLikely = 137_000, High = 150_000, Distribution = Engine.Risk.DistributionKind.Pert },
+            ],
+        };
+        string text = Text(PacketRenderer.Proposal(PacketSamples.ProposalData(risk: risk), PacketSamples.Certificate));
+        Assert.Contains("PERT", text, StringComparison.Ordinal);
+        Assert.DoesNotContain("Pert", text, StringComparison.Ordinal);
+    }
+
+    [Fact]
     public void The_packet_states_the_decision_the_hashes_the_sign_offs_and_the_cautions()
     {
         string text = Text(Packet);

@@ -84,7 +84,8 @@ public sealed class ProposalTransitionTests
         {
             foreach (ProposalStatus to in Enum.GetValues<ProposalStatus>())
             {
-                if (from != to)
+                // Submitted to submitted is the resubmission of a revision: a move of its own.
+                if (from != to || from == ProposalStatus.Submitted)
                 {
                     data.Add(from, to);
                 }
@@ -103,6 +104,11 @@ public sealed class ProposalTransitionTests
             BudgetCycle cycle = OpenCycle();
             Proposal proposal = ProposalIn(from, cycle);
             Assert.Equal(from, proposal.Status);
+            if (to == ProposalStatus.Submitted && ProposalWorkflow.IsBeforeTheBoard(from))
+            {
+                // A resubmission needs the lead's revision to put in place of the version under review.
+                proposal.EditDraft(Lead, Draft(firstCost: -150_000, reason: "Revised quote"), At, cycle.Status);
+            }
             int revision = proposal.Revision;
             if (WorkflowTable.Permits(from, to, actor, Lead.UserId))
             {
@@ -145,13 +151,10 @@ public sealed class ProposalTransitionTests
     }
 
     [Fact]
-    public void A_submitted_proposal_cannot_be_edited_and_a_returned_one_is_revised_with_a_reason()
+    public void A_returned_proposal_is_revised_with_a_reason()
     {
         BudgetCycle cycle = OpenCycle();
         Proposal proposal = ProposalIn(ProposalStatus.Submitted, cycle);
-        var edit = Assert.Throws<RuleViolationException>(() => proposal.EditDraft(Lead, Draft(firstCost: -1), At));
-        Assert.Equal("A proposal that is submitted cannot be edited.", edit.Message);
-
         proposal.Return(Reviewer);
         var noReason = Assert.Throws<RuleViolationException>(() => proposal.EditDraft(Lead, Draft(firstCost: -130_000), At));
         Assert.StartsWith("Say why the assumptions changed", noReason.Message);
@@ -240,5 +243,81 @@ public sealed class ProposalTransitionTests
         var error = Assert.Throws<RuleViolationException>(() => proposal.AssignReference("P-0008"));
         Assert.Equal("P-0007 keeps its reference: decisions and packets quote it.", error.Message);
         Assert.Equal("P-0007", proposal.Reference);
+    }
+
+    [Theory]
+    [InlineData(ProposalStatus.Submitted, CycleStatus.Open)]
+    [InlineData(ProposalStatus.InReview, CycleStatus.Open)]
+    [InlineData(ProposalStatus.InReview, CycleStatus.InReview)]
+    [InlineData(ProposalStatus.Approved, CycleStatus.InReview)]
+    [InlineData(ProposalStatus.Rejected, CycleStatus.Open)]
+    public void A_proposal_before_the_board_is_revised_beside_the_version_under_review_and_resubmitted_in_its_place(ProposalStatus status, CycleStatus cycleStatus)
+    {
+        BudgetCycle cycle = OpenCycle();
+        Proposal proposal = ProposalIn(status, cycle);
+        if (cycleStatus == CycleStatus.InReview)
+        {
+            cycle.StartReview(Admin);
+        }
+        Assert.Null(proposal.PendingRevision);
+        var noReason = Assert.Throws<RuleViolationException>(() => proposal.EditDraft(Lead, Draft(firstCost: -150_000), At, cycle.Status));
+        Assert.StartsWith("Say why the assumptions changed", noReason.Message);
+        Assert.Throws<AccessDeniedException>(() => proposal.EditDraft(OtherLead, Draft(firstCost: -150_000, reason: "Theirs"), At, cycle.Status));
+        var retitled = Assert.Throws<RuleViolationException>(() => proposal.EditDraft(Lead, Draft(title: "Another title", firstCost: -150_000, reason: "Quote"), At, cycle.Status));
+        Assert.StartsWith("The board reviews the title, description, category and risk class as submitted", retitled.Message);
+        Assert.Single(proposal.Versions);
+
+        proposal.EditDraft(Lead, Draft(firstCost: -150_000, reason: "Supplier quote came in higher"), At, cycle.Status);
+        // The board keeps its status and its version; the revision waits beside it.
+        Assert.Equal(status, proposal.Status);
+        Assert.Equal(2, proposal.PendingRevision?.Number);
+        Assert.True(proposal.Versions[0].IsFrozen);
+        // Edited again in place while pending: still one revision.
+        proposal.EditDraft(Lead, Draft(firstCost: -155_000), At, cycle.Status);
+        Assert.Equal([1, 2], proposal.Versions.Select(v => v.Number));
+
+        proposal.Submit(Lead, cycle, At.AddHours(1));
+        Assert.Equal(ProposalStatus.Submitted, proposal.Status);
+        Assert.Null(proposal.PendingRevision);
+        Assert.All(proposal.Versions, v => Assert.True(v.IsFrozen));
+        // The board now decides version 2, never version 1 again.
+        Decision decision = proposal.Decide(Reviewer, DecisionOutcome.Approve, "", cycle, At.AddHours(2));
+        Assert.Equal(2, decision.VersionNumber);
+        Assert.Equal(-155_000, AssumptionsDocument.Deserialize(proposal.Versions[1].AssumptionsJson).Model.Elements![0]!.Amount);
+    }
+
+    [Fact]
+    public void A_resubmission_without_a_revision_is_refused_and_the_version_under_review_stays()
+    {
+        BudgetCycle cycle = OpenCycle();
+        Proposal proposal = ProposalIn(ProposalStatus.InReview, cycle);
+        var error = Assert.Throws<RuleViolationException>(() => proposal.Submit(Lead, cycle, At));
+        Assert.Equal("There is no revision to submit: version 1 is the one the board has. Change the assumptions first.", error.Message);
+        Assert.Equal(ProposalStatus.InReview, proposal.Status);
+    }
+
+    [Fact]
+    public void Once_the_cycle_is_decided_a_decided_proposal_is_neither_revised_nor_resubmitted()
+    {
+        BudgetCycle cycle = OpenCycle();
+        Proposal proposal = ProposalIn(ProposalStatus.Approved, cycle);
+        proposal.EditDraft(Lead, Draft(firstCost: -150_000, reason: "Late quote"), At, cycle.Status);
+        cycle.MarkDecided(cycle.RequiredSignOffs);
+        var edit = Assert.Throws<RuleViolationException>(() => proposal.EditDraft(Lead, Draft(firstCost: -160_000), At, cycle.Status));
+        Assert.Equal("A proposal that is approved in a decided cycle cannot be edited.", edit.Message);
+        var submit = Assert.Throws<RuleViolationException>(() => proposal.Submit(Lead, cycle, At));
+        Assert.Equal("cycleId: the cycle Capital plan 2027 no longer takes proposals.", submit.Message);
+        Assert.Equal(ProposalStatus.Approved, proposal.Status);
+        Assert.False(proposal.Latest.IsFrozen);
+    }
+
+    [Fact]
+    public void A_withdrawn_proposal_is_never_revised()
+    {
+        BudgetCycle cycle = OpenCycle();
+        Proposal proposal = ProposalIn(ProposalStatus.Submitted, cycle);
+        proposal.Withdraw(Lead);
+        var edit = Assert.Throws<RuleViolationException>(() => proposal.EditDraft(Lead, Draft(firstCost: -150_000, reason: "Quote"), At, cycle.Status));
+        Assert.Equal("A proposal that is withdrawn cannot be edited.", edit.Message);
     }
 }

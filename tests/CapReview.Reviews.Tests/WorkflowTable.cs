@@ -14,6 +14,11 @@ internal static class WorkflowTable
     [
         (ProposalStatus.Draft, ProposalStatus.Submitted, Role.ProjectLead),
         (ProposalStatus.ReturnedForChanges, ProposalStatus.Submitted, Role.ProjectLead),
+        // Issue 17: a revision made while the board has the proposal is resubmitted in place of the version under review.
+        (ProposalStatus.Submitted, ProposalStatus.Submitted, Role.ProjectLead),
+        (ProposalStatus.InReview, ProposalStatus.Submitted, Role.ProjectLead),
+        (ProposalStatus.Approved, ProposalStatus.Submitted, Role.ProjectLead),
+        (ProposalStatus.Rejected, ProposalStatus.Submitted, Role.ProjectLead),
         (ProposalStatus.Draft, ProposalStatus.Withdrawn, Role.ProjectLead),
         (ProposalStatus.Submitted, ProposalStatus.Withdrawn, Role.ProjectLead),
         (ProposalStatus.ReturnedForChanges, ProposalStatus.Withdrawn, Role.ProjectLead),

@@ -66,8 +66,9 @@ public static class ModelEvaluator
         double? externalRate = external is double x
             ? Measure(x, UnavailableMeasures.ExternalRate, UnavailableMeasures.BeyondRange, unavailable)
             : Missing(UnavailableMeasures.ExternalRate, UnavailableMeasures.ExternalRateNeedsBoth, unavailable);
-        double? simple = Payback.Simple(flows) ?? Missing(UnavailableMeasures.SimplePayback, UnavailableMeasures.NeverRecovered, unavailable);
-        double? discounted = Payback.Discounted(flows, i) ?? Missing(UnavailableMeasures.DiscountedPayback, UnavailableMeasures.NeverRecovered, unavailable);
+        string noPayback = flows.All(f => f == 0.0) ? UnavailableMeasures.NoFlows : UnavailableMeasures.NeverRecovered;
+        double? simple = Payback.Simple(flows) ?? Missing(UnavailableMeasures.SimplePayback, noPayback, unavailable);
+        double? discounted = Payback.Discounted(flows, i) ?? Missing(UnavailableMeasures.DiscountedPayback, noPayback, unavailable);
         BenefitCostRatio ratio = BenefitCostRatio.Compute(model, i);
         if (ratio.Conventional is null)
         {

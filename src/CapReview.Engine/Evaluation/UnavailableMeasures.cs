@@ -16,6 +16,8 @@ public static class UnavailableMeasures
 
     public const string NeverRecovered = "the investment is not recovered within the horizon";
 
+    public const string NoFlows = "the model has no flows: there is nothing to recover";
+
     public const string DenominatorNotPositive = "the costs in its denominator are not more than zero";
 
     public const string FutureWorth = "futureWorth";

@@ -7,10 +7,10 @@ namespace CapReview.Engine.Measures;
 /// </summary>
 public static class Payback
 {
-    /// <summary>Periods until the undiscounted cumulative flow is recovered; null when never.</summary>
+    /// <summary>Periods until the undiscounted cumulative flow is recovered; null when never, and when there is no flow at all (nothing to recover, nothing recovered).</summary>
     public static double? Simple(IReadOnlyList<double> netFlows) => Recovery(netFlows, 0.0);
 
-    /// <summary>Periods until the cumulative flow discounted at <paramref name="ratePerPeriod"/> is recovered; null when never.</summary>
+    /// <summary>Periods until the cumulative flow discounted at <paramref name="ratePerPeriod"/> is recovered; null when never, and when there is no flow at all.</summary>
     public static double? Discounted(IReadOnlyList<double> netFlows, double ratePerPeriod) => Recovery(netFlows, ratePerPeriod);
 
     /// <summary>
@@ -43,6 +43,7 @@ public static class Payback
                 return t - 1 + (-before / flow);
             }
         }
-        return invested ? null : 0.0;
+        // Flows that never dip below zero pay back at once; a model with no flow at all has no payback to speak of.
+        return invested || netFlows.All(f => f == 0.0) ? null : 0.0;
     }
 }

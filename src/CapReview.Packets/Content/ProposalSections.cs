@@ -111,8 +111,8 @@ internal static class ProposalSections
             ("Future worth", e.FutureWorth is double fw ? $"{f.Money(fw)} {f.CurrencyCode} at the end of the life" : "not stated"),
             ("Rate of return", rate),
             ("External rate of return", f.Percent(e.ExternalRate, "none")),
-            ("Simple payback", e.SimplePaybackYears is double sp ? $"{f.Number(sp, 2)} years" : "not within the life"),
-            ("Discounted payback", e.DiscountedPaybackYears is double dp ? $"{f.Number(dp, 2)} years" : "not within the life"),
+            ("Simple payback", PaybackText(e, e.SimplePaybackYears, UnavailableMeasures.SimplePayback, f)),
+            ("Discounted payback", PaybackText(e, e.DiscountedPaybackYears, UnavailableMeasures.DiscountedPayback, f)),
             ("Benefit-cost ratio", e.BenefitCost.Conventional is double bc ? $"{f.Number(bc, 2)} (modified {(e.BenefitCost.Modified is double m ? f.Number(m, 2) : "–")})" : "not defined"),
         ]);
         flow.Gap(4);
@@ -135,7 +135,9 @@ internal static class ProposalSections
         };
         string payback = e.DiscountedPaybackYears is double dp
             ? $" It recovers its first cost with interest at the MARR after {f.Number(dp, 1)} years."
-            : " It does not recover its first cost with interest at the MARR within its life.";
+            : e.Unavailable.GetValueOrDefault(UnavailableMeasures.DiscountedPayback) == UnavailableMeasures.NoFlows
+                ? " It has no flows, so there is nothing to recover."
+                : " It does not recover its first cost with interest at the MARR within its life.";
         return worth + rate + payback + $" The board's decision: {OutcomeText(data.Decision.Outcome).ToLowerInvariant()}.";
     }
 
@@ -223,6 +225,10 @@ internal static class ProposalSections
         flow.Text($"Amounts in {f.CurrencyCode}. A negative tax is a saving against the organisation's other income.", PacketStyle.Small, PacketStyle.SoftBrush);
     }
 
+    /// <summary>A payback in years; "—" for a model with no flows (nothing to recover, as on the pages), else "not within the life".</summary>
+    private static string PaybackText(Evaluation e, double? years, string name, PacketFormat f) => years is double y ? $"{f.Number(y, 2)} years"
+        : e.Unavailable.GetValueOrDefault(name) == UnavailableMeasures.NoFlows ? "—" : "not within the life";
+
     private static void Risk(PageFlow flow, Outcome<RiskStudy> study, SensitivityResult? sensitivity, SimulationSummary? simulation, PacketFormat f)
     {
         flow.Heading("Sensitivity and risk", PacketStyle.Heading1);
@@ -234,7 +240,7 @@ internal static class ProposalSections
         var settings = prepared.Settings;
         var (bars, basis) = (sensitivity.Tornado, sensitivity.Basis);
         TableWriter.Draw(flow, [new("Parameter", 2.4), new("Input", 1.8), new("Low", 1.1, true), new("Most likely", 1.1, true), new("High", 1.1, true), new("Distribution", 1.2)],
-            settings.Parameters.Select(p => new TableRow([p.Name, RiskInputs.Label(p.Target, prepared.Proposal.Model, prepared.Proposal.Tax), Value(p.Low), Value(p.MostLikely), Value(p.High), p.Distribution.ToString()])));
+            settings.Parameters.Select(p => new TableRow([p.Name, RiskInputs.Label(p.Target, prepared.Proposal.Model, prepared.Proposal.Tax), Value(p.Low), Value(p.MostLikely), Value(p.High), DistributionWords.Name(p.Distribution)])));
         flow.Figure(Math.Max(90, 34 + 26 * bars.Count), (g, area) => Charts.TornadoDrawing.Draw(g, area, bars, basis, f),
             $"Tornado: present worth with each parameter at its low (red-brown) and high (green) value, the others at most likely ({f.Money(basis)} {f.CurrencyCode}).");
         var result = simulation.Detail;

@@ -255,7 +255,10 @@ public sealed class DecisionService(ReviewWork work, AuditTrail audit, TimeProvi
         var ids = proposals.Select(p => p.Id).ToList();
         var decisions = await db.Decisions.Where(d => ids.Contains(d.ProposalId)).ToListAsync(cancellationToken).ConfigureAwait(false);
         var signOffs = await db.SignOffs.Where(s => s.BudgetCycleId == cycleId).OrderBy(s => s.Id).ToListAsync(cancellationToken).ConfigureAwait(false);
-        return CycleSignOffs.Of(signOffs, SignedDecision.SetOf(proposals, decisions));
+        var frozen = await db.ProposalVersions.Where(v => ids.Contains(v.ProposalId) && v.IsFrozen)
+            .Select(v => new { v.ProposalId, v.Number }).ToListAsync(cancellationToken).ConfigureAwait(false);
+        var underReview = frozen.GroupBy(v => v.ProposalId).ToDictionary(g => g.Key, g => g.Max(v => v.Number));
+        return CycleSignOffs.Of(signOffs, SignedDecision.SetOf(proposals, decisions, underReview));
     }
 
     private static void RequireBoard(Actor actor)

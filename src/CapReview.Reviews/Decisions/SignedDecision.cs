@@ -9,11 +9,16 @@ namespace CapReview.Reviews.Decisions;
 /// </summary>
 public sealed record SignedDecision(string Proposal, int Version, string AssumptionsHash, string Outcome)
 {
-    /// <summary>The set a sign-off given now would cover: each proposal's latest decision, by reference.</summary>
-    internal static IReadOnlyList<SignedDecision> SetOf(IEnumerable<Proposal> proposals, IEnumerable<Decision> decisions)
+    /// <summary>
+    /// The set a sign-off given now would cover: each proposal's latest decision, by reference, when it was made on the
+    /// version the board has now (<paramref name="underReview"/>: the last frozen version of each proposal). A revision
+    /// resubmitted after a decision leaves that decision standing for nothing, so the set changes and the sign-offs of
+    /// the earlier set are superseded.
+    /// </summary>
+    internal static IReadOnlyList<SignedDecision> SetOf(IEnumerable<Proposal> proposals, IEnumerable<Decision> decisions, IReadOnlyDictionary<int, int> underReview)
     {
         var references = proposals.ToDictionary(p => p.Id, p => p.Reference);
-        return [.. decisions.Where(d => references.ContainsKey(d.ProposalId))
+        return [.. decisions.Where(d => references.ContainsKey(d.ProposalId) && underReview.TryGetValue(d.ProposalId, out int version) && version == d.VersionNumber)
             .GroupBy(d => d.ProposalId)
             .Select(g => g.OrderBy(d => d.Id).Last())
             .Select(d => new SignedDecision(references[d.ProposalId], d.VersionNumber, d.AssumptionsHash, d.Outcome.ToString()))

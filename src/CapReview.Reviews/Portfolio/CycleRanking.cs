@@ -39,4 +39,15 @@ public sealed record CycleRanking(BudgetCycle Cycle, MarrPolicyVersion Marr, dou
         RankingRow a = Rows.Single(r => r.Proposal.Reference == first), b = Rows.Single(r => r.Proposal.Reference == second);
         return MarrWhatIf.SwapRates(a.Ranked.Evaluation.Model, b.Ranked.Evaluation.Model, 0.0, 0.40);
     }
+
+    /// <summary>
+    /// Where two ranked proposals change places (<see cref="SwapRates"/>), against this ranking's what-if: their MARRs
+    /// in it and which of them it ranks ahead, so the answer moves with the what-if as the ranking does.
+    /// </summary>
+    public SwapAnswer Swap(string first, string second)
+    {
+        RankingRow a = Rows.Single(r => r.Proposal.Reference == first), b = Rows.Single(r => r.Proposal.Reference == second);
+        string ahead = a.Ranked.Rank <= b.Ranked.Rank ? first : second;
+        return new SwapAnswer(first, second, SwapRates(first, second), MarrShift, a.Marr.EffectiveAnnual(), b.Marr.EffectiveAnnual(), ahead);
+    }
 }

@@ -48,6 +48,12 @@ public sealed class Proposal
     /// <summary>The newest version: the draft being edited, or the last one frozen.</summary>
     public ProposalVersion Latest => _versions.MaxBy(v => v.Number) ?? throw new InvalidOperationException("A proposal always has a version.");
 
+    /// <summary>
+    /// The lead's working copy made while the board has the proposal (<see cref="ProposalWorkflow.IsBeforeTheBoard"/>):
+    /// the board still reviews and decides the last frozen version until this one is resubmitted.
+    /// </summary>
+    public ProposalVersion? PendingRevision => ProposalWorkflow.IsBeforeTheBoard(Status) && !Latest.IsFrozen ? Latest : null;
+
     /// <summary>A lead's new proposal: a draft with its first version.</summary>
     public static Proposal Start(Actor lead, ProposalDraft draft, DateTimeOffset at)
     {
@@ -95,13 +101,19 @@ public sealed class Proposal
 
     /// <summary>
     /// The lead's edits: in place while the latest version is a draft, as a new version (see <see cref="Revise"/>) once
-    /// it is frozen and the assumptions changed. Only a draft or a proposal returned for changes can be edited.
+    /// it is frozen and the assumptions changed. <paramref name="cycleStatus"/> is the status of the proposal's cycle, if
+    /// any: a proposal before the board can be revised only while it is open or in review
+    /// (<see cref="ProposalWorkflow.IsEditable"/>), and then only its assumptions, since the board reviews the rest as it is.
     /// </summary>
-    public void EditDraft(Actor lead, ProposalDraft draft, DateTimeOffset at)
+    public void EditDraft(Actor lead, ProposalDraft draft, DateTimeOffset at, CycleStatus? cycleStatus = null)
     {
         ArgumentNullException.ThrowIfNull(lead);
         ArgumentNullException.ThrowIfNull(draft);
-        RequireEditableBy(lead);
+        RequireEditableBy(lead, cycleStatus);
+        if (ProposalWorkflow.IsBeforeTheBoard(Status) && DetailsDifferFrom(draft))
+        {
+            throw new RuleViolationException("The board reviews the title, description, category and risk class as submitted: while it has the proposal, a revision changes the assumptions only.");
+        }
         string json = Stamped(draft.Assumptions);
         ProposalVersion latest = Latest;
         if (!latest.IsFrozen)
@@ -119,11 +131,11 @@ public sealed class Proposal
     /// <summary>
     /// A new draft version after a frozen one, with the reason for the change: the submitted version stays as it was.
     /// </summary>
-    public void Revise(Actor lead, string? reason, ProposalAssumptions assumptions, DateTimeOffset at)
+    public void Revise(Actor lead, string? reason, ProposalAssumptions assumptions, DateTimeOffset at, CycleStatus? cycleStatus = null)
     {
         ArgumentNullException.ThrowIfNull(lead);
         ArgumentNullException.ThrowIfNull(assumptions);
-        RequireEditableBy(lead);
+        RequireEditableBy(lead, cycleStatus);
         AddRevision(lead, reason, Stamped(assumptions), at);
         Revision++;
     }
@@ -149,11 +161,19 @@ public sealed class Proposal
         _versions.Add(ProposalVersion.Draft(latest.Number + 1, lead.UserId, at, reason.Trim(), assumptionsJson));
     }
 
-    /// <summary>Submits the latest version to <paramref name="cycle"/> and freezes it; the model must be valid.</summary>
+    /// <summary>
+    /// Submits the latest version to <paramref name="cycle"/> and freezes it; the model must be valid. A revision made
+    /// while the board has the proposal replaces the version under review: the proposal is submitted again, and a
+    /// decision recorded on the earlier version no longer stands for it (the board decides the new version).
+    /// </summary>
     public void Submit(Actor lead, BudgetCycle cycle, DateTimeOffset at)
     {
         ArgumentNullException.ThrowIfNull(cycle);
         EnsureMayBecome(lead, ProposalStatus.Submitted);
+        if (ProposalWorkflow.IsBeforeTheBoard(Status) && PendingRevision is null)
+        {
+            throw new RuleViolationException($"There is no revision to submit: version {Latest.Number} is the one the board has. Change the assumptions first.");
+        }
         if (BudgetCycleId is int earlier && earlier != cycle.Id)
         {
             throw new RuleViolationException("A proposal returned for changes goes back to the cycle it came from.");
@@ -271,17 +291,22 @@ public sealed class Proposal
         Revision++;
     }
 
-    private void RequireEditableBy(Actor lead)
+    private void RequireEditableBy(Actor lead, CycleStatus? cycleStatus)
     {
         if (OwnerId != lead.UserId)
         {
             throw new AccessDeniedException("Only the proposal's project lead can change it.");
         }
-        if (Status is not (ProposalStatus.Draft or ProposalStatus.ReturnedForChanges))
+        if (!ProposalWorkflow.IsEditable(Status, cycleStatus))
         {
-            throw new RuleViolationException($"A proposal that is {ProposalStatusWords.Describe(Status)} cannot be edited.");
+            throw new RuleViolationException(ProposalWorkflow.IsBeforeTheBoard(Status) && cycleStatus is CycleStatus.Decided or CycleStatus.Closed
+                ? $"A proposal that is {ProposalStatusWords.Describe(Status)} in a decided cycle cannot be edited."
+                : $"A proposal that is {ProposalStatusWords.Describe(Status)} cannot be edited.");
         }
     }
+
+    private bool DetailsDifferFrom(ProposalDraft draft) =>
+        Title != draft.Title.Trim() || Description != draft.Description.Trim() || Category != draft.Category || RiskClass != draft.RiskClass;
 
     private void TakeDetails(ProposalDraft draft)
     {

@@ -44,9 +44,12 @@ public sealed class ProposalService(ReviewWork work, AuditTrail audit, TimeProvi
             Proposal proposal = await LoadOwnAsync(db, actor, proposalId, cancellationToken).ConfigureAwait(false);
             object before = Summary(proposal);
             ExpectRevision(db, proposal, expectedRevision);
-            proposal.EditDraft(actor, draft, clock.GetUtcNow());
+            bool pendingBefore = proposal.PendingRevision is not null;
+            proposal.EditDraft(actor, draft, clock.GetUtcNow(), await CycleStatusAsync(db, proposal, cancellationToken).ConfigureAwait(false));
             await db.SaveChangesAsync(cancellationToken).ConfigureAwait(false);
-            await audit.AppendAsync(db, actor, "proposal.edited", "proposal", proposal.Reference, before, Summary(proposal), cancellationToken).ConfigureAwait(false);
+            // A revision started while the board has the proposal is its own event: the board is told one is pending.
+            string action = !pendingBefore && proposal.PendingRevision is not null ? "proposal.revision-started" : "proposal.edited";
+            await audit.AppendAsync(db, actor, action, "proposal", proposal.Reference, before, Summary(proposal), cancellationToken).ConfigureAwait(false);
             return ProposalView.Of(proposal);
         }, cancellationToken);
     }
@@ -68,8 +71,9 @@ public sealed class ProposalService(ReviewWork work, AuditTrail audit, TimeProvi
     }
 
     /// <summary>
-    /// Starts a new draft version after a frozen one (a proposal returned for changes), from new assumptions and the
-    /// reason for the change. The frozen version stays as it was.
+    /// Starts a new draft version after a frozen one (a proposal returned for changes, or one the board has while its
+    /// cycle is undecided: then a pending revision, <see cref="ProposalView.PendingRevision"/>), from new assumptions and
+    /// the reason for the change. The frozen version stays as it was.
     /// </summary>
     public async Task<ProposalView> ReviseAsync(Actor actor, int proposalId, int expectedRevision, ProposalAssumptions assumptions, string reason, CancellationToken cancellationToken)
     {
@@ -127,9 +131,23 @@ public sealed class ProposalService(ReviewWork work, AuditTrail audit, TimeProvi
                 ?? throw new NotFoundException("There is no such budget cycle.");
             object before = Summary(proposal);
             ExpectRevision(db, proposal, expectedRevision);
+            ProposalStatus statusBefore = proposal.Status;
+            int? replaced = proposal.Versions.Where(v => v.IsFrozen).Select(v => (int?)v.Number).Max();
             proposal.Submit(actor, cycle, clock.GetUtcNow());
             await db.SaveChangesAsync(cancellationToken).ConfigureAwait(false);
-            await audit.AppendAsync(db, actor, "proposal.submitted", "proposal", proposal.Reference, before, Summary(proposal), cancellationToken).ConfigureAwait(false);
+            if (ProposalWorkflow.IsBeforeTheBoard(statusBefore) && replaced is int version)
+            {
+                // The decisions on the replaced version stay in the record but no longer stand: the board decides again.
+                var decisions = await db.Decisions.Where(d => d.ProposalId == proposal.Id && d.VersionNumber == version)
+                    .OrderBy(d => d.Id).ToListAsync(cancellationToken).ConfigureAwait(false);
+                var superseded = decisions.Select(d => new { Decision = d.Id, Version = d.VersionNumber, Outcome = d.Outcome.ToString() }).ToArray();
+                await audit.AppendAsync(db, actor, "proposal.resubmitted", "proposal", proposal.Reference, before,
+                    new { After = Summary(proposal), ReplacesVersion = version, SupersededDecisions = superseded }, cancellationToken).ConfigureAwait(false);
+            }
+            else
+            {
+                await audit.AppendAsync(db, actor, "proposal.submitted", "proposal", proposal.Reference, before, Summary(proposal), cancellationToken).ConfigureAwait(false);
+            }
             return ProposalView.Of(proposal);
         }, cancellationToken);
     }
@@ -223,6 +241,11 @@ public sealed class ProposalService(ReviewWork work, AuditTrail audit, TimeProvi
         }
         return proposal;
     }
+
+    private static Task<CycleStatus?> CycleStatusAsync(CapReviewDbContext db, Proposal proposal, CancellationToken cancellationToken) =>
+        proposal.BudgetCycleId is int cycleId
+            ? db.BudgetCycles.Where(c => c.Id == cycleId).Select(c => (CycleStatus?)c.Status).SingleOrDefaultAsync(cancellationToken)
+            : Task.FromResult<CycleStatus?>(null);
 
     /// <summary>Makes the save fail with a conflict when the row is no longer at the revision the user started from.</summary>
     private static void ExpectRevision(CapReviewDbContext db, Proposal proposal, int expectedRevision) =>

@@ -17,6 +17,14 @@ public sealed record ProposalView(
     [System.Text.Json.Serialization.JsonIgnore]
     public VersionView Latest => Versions[^1];
 
+    /// <summary>The version the board reviews and decides: the last one submitted (frozen), if any.</summary>
+    [System.Text.Json.Serialization.JsonIgnore]
+    public VersionView? UnderReview => Versions.LastOrDefault(v => v.IsFrozen);
+
+    /// <summary>The lead's revision waiting beside the version under review (<see cref="Proposal.PendingRevision"/>), if any.</summary>
+    [System.Text.Json.Serialization.JsonIgnore]
+    public VersionView? PendingRevision => ProposalWorkflow.IsBeforeTheBoard(Status) && !Latest.IsFrozen ? Latest : null;
+
     /// <summary>The version with this number; a missing one is not found, like a proposal the caller may not see.</summary>
     public VersionView Version(int number) =>
         Versions.FirstOrDefault(v => v.Number == number) ?? throw new Common.NotFoundException($"{Reference} has no version {number}.");

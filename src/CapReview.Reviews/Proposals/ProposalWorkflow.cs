@@ -1,10 +1,13 @@
 using CapReview.Reviews.Access;
+using CapReview.Reviews.Cycles;
 
 namespace CapReview.Reviews.Proposals;
 
 /// <summary>
 /// The allowed transitions of a proposal and the role each needs; everything else is refused. A project lead acts only on
-/// their own proposals (checked by the service).
+/// their own proposals (checked by the service). The moves back to submitted from submitted, in review, approved and
+/// rejected are a lead's resubmission of a revision made while the cycle is undecided (<see cref="Proposal.Submit"/>
+/// refuses them once the cycle is decided, and without a revision to submit).
 /// </summary>
 public static class ProposalWorkflow
 {
@@ -12,6 +15,11 @@ public static class ProposalWorkflow
     [
         (ProposalStatus.Draft, ProposalStatus.Submitted, Role.ProjectLead),
         (ProposalStatus.ReturnedForChanges, ProposalStatus.Submitted, Role.ProjectLead),
+        // A revision made while the board reviews replaces the version under review: back to submitted, decided afresh.
+        (ProposalStatus.Submitted, ProposalStatus.Submitted, Role.ProjectLead),
+        (ProposalStatus.InReview, ProposalStatus.Submitted, Role.ProjectLead),
+        (ProposalStatus.Approved, ProposalStatus.Submitted, Role.ProjectLead),
+        (ProposalStatus.Rejected, ProposalStatus.Submitted, Role.ProjectLead),
         (ProposalStatus.Draft, ProposalStatus.Withdrawn, Role.ProjectLead),
         (ProposalStatus.Submitted, ProposalStatus.Withdrawn, Role.ProjectLead),
         (ProposalStatus.ReturnedForChanges, ProposalStatus.Withdrawn, Role.ProjectLead),
@@ -37,4 +45,22 @@ public static class ProposalWorkflow
         }
         return null;
     }
+
+    /// <summary>
+    /// Whether the lead may change the proposal's assumptions: a draft or a proposal returned for changes always; a
+    /// submitted one (in review, or decided while its cycle is not) while its cycle is open or in review, as a revision
+    /// that waits beside the version under review until it is resubmitted. A withdrawn proposal, or one whose cycle is
+    /// decided, never.
+    /// </summary>
+    public static bool IsEditable(ProposalStatus status, CycleStatus? cycleStatus) => status switch
+    {
+        ProposalStatus.Draft or ProposalStatus.ReturnedForChanges => true,
+        ProposalStatus.Submitted or ProposalStatus.InReview or ProposalStatus.Approved or ProposalStatus.Rejected =>
+            cycleStatus is CycleStatus.Open or CycleStatus.InReview,
+        _ => false,
+    };
+
+    /// <summary>Whether the board has the proposal before it: submitted, in review, or decided in a cycle not yet signed off.</summary>
+    public static bool IsBeforeTheBoard(ProposalStatus status) =>
+        status is ProposalStatus.Submitted or ProposalStatus.InReview or ProposalStatus.Approved or ProposalStatus.Rejected;
 }

@@ -3,15 +3,20 @@ using CapReview.Reviews.Records;
 
 namespace CapReview.Web.Api;
 
-/// <summary>A proposal as the API lists it, with a summary of each version.</summary>
+/// <summary>
+/// A proposal as the API lists it, with a summary of each version: <c>versionUnderReview</c> is the last submitted one
+/// (the one the board decides), <c>pendingRevision</c> the lead's revision waiting beside it while the board has the
+/// proposal (null when there is none).
+/// </summary>
 public sealed record ProposalResponse(int Id, string Reference, string Title, string Description, ProposalCategory Category, RiskClass RiskClass,
-    ProposalStatus Status, int? CycleId, int Revision, IReadOnlyList<VersionSummaryResponse> Versions)
+    ProposalStatus Status, int? CycleId, int Revision, IReadOnlyList<VersionSummaryResponse> Versions, int? VersionUnderReview, int? PendingRevision)
 {
     public static ProposalResponse From(ProposalView p)
     {
         ArgumentNullException.ThrowIfNull(p);
         return new(p.Id, p.Reference, p.Title, p.Description, p.Category, p.RiskClass, p.Status, p.BudgetCycleId, p.Revision,
-            [.. p.Versions.Select(v => new VersionSummaryResponse(v.Number, v.CreatedAt, v.Reason, v.IsFrozen, v.FrozenAt, v.AssumptionsHash))]);
+            [.. p.Versions.Select(v => new VersionSummaryResponse(v.Number, v.CreatedAt, v.Reason, v.IsFrozen, v.FrozenAt, v.AssumptionsHash))],
+            p.UnderReview?.Number, p.PendingRevision?.Number);
     }
 }
 

@@ -27,7 +27,7 @@ public static class ProposalWorkflowEndpoints
             .DisableAntiforgery();
         routes.MapPost("/api/v1/proposals/{id:int}/versions", ReviseAsync)
             .WithName("ReviseProposal")
-            .WithSummary("Start a new draft version after a frozen one (its lead, once returned for changes)")
+            .WithSummary("Start a new draft version after a frozen one (its lead: once returned for changes, or as a pending revision while the board has it and the cycle is undecided)")
             .Accepts<RevisionRequest>("application/json")
             .Produces<ProposalResponse>(StatusCodes.Status201Created)
             .ProducesValidationProblem()

@@ -6,6 +6,7 @@ using CapReview.Reviews.Portfolio;
 using CapReview.Web.Api;
 using CapReview.Web.Formatting;
 using CapReview.Web.Identity;
+using CapReview.Web.Operations;
 
 namespace CapReview.Web.Exports;
 
@@ -19,11 +20,11 @@ public static class ExportEndpoints
     public static IEndpointRouteBuilder MapExportEndpoints(this IEndpointRouteBuilder routes)
     {
         // The board, finance and administrators, in a browser or with an API token.
-        var group = routes.MapGroup("/cycles/{id:int}").RequireAuthorization(IdentityRegistration.BoardDownloads).ExcludeFromDescription();
+        var group = routes.MapGroup("/cycles/{id:int}").RequireAuthorization(IdentityRegistration.BoardDownloads).ExcludeFromDescription().ShowsThePageWhenMissing();
         group.MapGet("/ranking/{format:regex(^(csv|xlsx)$)}", RankingAsync);
         group.MapGet("/portfolio/{format:regex(^(csv|xlsx)$)}", PortfolioAsync);
         // A version is for whoever may read the proposal (its lead, the board, finance once decided, administrators), in a browser or with an API token.
-        var version = routes.MapGroup("/proposals/{id:int}/versions/{number:int}").RequireAuthorization(IdentityRegistration.Api).ExcludeFromDescription();
+        var version = routes.MapGroup("/proposals/{id:int}/versions/{number:int}").RequireAuthorization(IdentityRegistration.Api).ExcludeFromDescription().ShowsThePageWhenMissing();
         version.MapGet("/xlsx", VersionWorkbookAsync);
         version.MapGet("/csv/{table}", VersionTableAsync);
         return routes;

@@ -175,6 +175,9 @@ public static partial class CapReviewHosting
         // Pages show the not-found page; the API answers its bare status codes with problem details instead.
         app.UseWhen(IsApi, api => api.UseStatusCodePages());
         app.UseWhen(context => !IsApi(context), pages => pages.UseStatusCodePagesWithReExecute("/not-found", createScopeForStatusCodePages: true));
+        // Routing after the status-code pages, so the re-executed request for /not-found is routed to its page (with
+        // the implicit routing at the start of the pipeline it found no endpoint and answered an empty 404).
+        app.UseRouting();
         app.UseSecurityLog();
         app.UseAuthentication();
         app.UseAccountSetupRequirement(app.Configuration);

@@ -1,6 +1,7 @@
 using CapReview.Reviews.Common;
 using CapReview.Reviews.Records;
 using CapReview.Web.Identity;
+using CapReview.Web.Operations;
 
 namespace CapReview.Web.Packets;
 
@@ -12,7 +13,7 @@ public static class PacketEndpoints
 {
     public static IEndpointRouteBuilder MapPacketEndpoints(this IEndpointRouteBuilder routes)
     {
-        routes.MapGet("/packets/{id:int}", DownloadAsync).RequireAuthorization(IdentityRegistration.SignedIn).ExcludeFromDescription();
+        routes.MapGet("/packets/{id:int}", DownloadAsync).RequireAuthorization(IdentityRegistration.SignedIn).ExcludeFromDescription().ShowsThePageWhenMissing();
         routes.MapGet("/api/v1/packets/{id:int}", DownloadAsync)
             .WithName("DownloadPacket")
             .WithSummary("A signed approval packet (PDF), unchanged since it was made")

@@ -59,6 +59,15 @@ public class PaybackTests
     [Fact]
     public void Nothing_to_recover_is_zero() => Assert.Equal(0.0, Payback.Simple([0, 10, 10])!.Value);
 
+    // Issue 17: a model with no flow at all (the empty model of a new proposal) has no payback, not "0.00 years".
+    // Common practice, no source: payback is the time to recover an investment, and there is none.
+    [Fact]
+    public void No_flow_at_all_has_no_payback()
+    {
+        Assert.Null(Payback.Simple([0, 0, 0]));
+        Assert.Null(Payback.Discounted([0, 0, 0], 0.10));
+    }
+
     [Fact]
     public void A_later_investment_starts_the_clock_when_it_is_made() =>
         Assert.Equal(3.5, Payback.Simple([0, -100, 40, 40, 40])!.Value, 12);

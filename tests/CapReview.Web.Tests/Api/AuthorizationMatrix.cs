@@ -52,7 +52,8 @@ public sealed partial class AuthorizationMatrix(MatrixApp app) : IClassFixture<M
         ["/evaluate"] = new("GET", "/evaluate", ["signin", "200", "200", "200", "200"]),
         ["/proposals"] = new("GET", "/proposals", ["signin", "200", "denied", "denied", "denied"]),
         ["/proposals/new"] = new("GET", "/proposals/new", ["signin", "200", "200", "200", "200"]),
-        ["/proposals/{Id:int}"] = new("GET", "/proposals/{proposal}", ["signin", "200", "200", "200", "200"]),
+        // Issue 17: a proposal not the visitor's to see is the app's not-found page, with its 404.
+        ["/proposals/{Id:int}"] = new("GET", "/proposals/{proposal}", ["signin", "404", "200", "404", "200"], Decided: ["signin", "404", "200", "200", "200"]),
         ["/cycles"] = new("GET", "/cycles", ["signin", "denied", "200", "200", "200"]),
         ["/cycles/{Id:int}"] = new("GET", "/cycles/{cycle}", ["signin", "denied", "200", "not-yet", "200"], Decided: ["signin", "denied", "200", "200", "200"]),
         ["/cycles/{Id:int}/ranking"] = new("GET", "/cycles/{cycle}/ranking", ["signin", "denied", "200", "not-yet", "200"], Decided: ["signin", "denied", "200", "200", "200"]),
@@ -62,7 +63,7 @@ public sealed partial class AuthorizationMatrix(MatrixApp app) : IClassFixture<M
         ["/packets/{id:int}"] = new("GET", "/packets/{packet}", ["signin", "404", "404", "404", "404"], Decided: ["signin", "404", "200", "200", "200"]),
         ["/proposals/{id:int}/versions/{number:int}/xlsx"] = new("GET", "/proposals/{proposal}/versions/1/xlsx", ["signin", "404", "200", "404", "200"], Decided: ["signin", "404", "200", "200", "200"]),
         ["/proposals/{id:int}/versions/{number:int}/csv/{table}"] = new("GET", "/proposals/{proposal}/versions/1/csv/elements", ["signin", "404", "200", "404", "200"], Decided: ["signin", "404", "200", "200", "200"]),
-        ["/proposals/{Id:int}/replacement"] = new("GET", "/proposals/{proposal}/replacement", ["signin", "200", "200", "200", "200"]),
+        ["/proposals/{Id:int}/replacement"] = new("GET", "/proposals/{proposal}/replacement", ["signin", "404", "200", "404", "200"], Decided: ["signin", "404", "200", "200", "200"]),
         ["/admin/users"] = new("GET", "/admin/users", ["signin", "denied", "denied", "denied", "200"]),
         ["/admin/marr"] = new("GET", "/admin/marr", ["signin", "denied", "denied", "denied", "200"]),
         ["/admin/cycles"] = new("GET", "/admin/cycles", ["signin", "denied", "denied", "denied", "200"]),

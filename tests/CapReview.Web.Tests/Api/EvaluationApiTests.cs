@@ -30,6 +30,20 @@ public sealed class EvaluationApiTests(ApiFactory factory) : IClassFixture<ApiFa
     }
 
     [Fact]
+    public async Task The_empty_model_has_no_payback()
+    {
+        var (status, body, _) = await PostAsync("""
+            {"periodsPerYear": 1, "horizon": 5, "rate": {"value": 0.10, "basis": "effective"},
+             "elements": [ {"type": "single", "label": "First cost", "category": "capital", "period": 0, "amount": 0} ]}
+            """);
+        Assert.Equal(HttpStatusCode.OK, status);
+        JsonElement payback = body.GetProperty("payback");
+        Assert.Equal(JsonValueKind.Null, payback.GetProperty("simpleYears").ValueKind);
+        Assert.Equal(JsonValueKind.Null, payback.GetProperty("discountedYears").ValueKind);
+        Assert.Equal(JsonValueKind.Null, payback.GetProperty("simple").ValueKind);
+    }
+
+    [Fact]
     public async Task Evaluates_a_model_and_matches_VisualBasic_Financial()
     {
         var (status, body, _) = await PostAsync(Example);

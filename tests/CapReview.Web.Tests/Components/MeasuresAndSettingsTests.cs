@@ -21,6 +21,18 @@ public sealed class MeasuresAndSettingsTests : IDisposable
     }
 
     [Fact]
+    public void The_empty_model_shows_no_payback()
+    {
+        var state = ComponentTestContext.Example();
+        state.Draft.Elements.Clear();
+        state.Draft.Elements.Add(new CapReview.Web.QuickEvaluation.ElementDraft { Type = Engine.Specifications.ElementKind.Single, Label = "First cost", Period = "0", Amount = "0" });
+        state.Recalculate();
+        var panel = _context.Render<MeasuresPanel>(p => p.Add(c => c.State, state));
+        Assert.Equal("—", panel.Find("[data-testid=simple-payback]").TextContent);
+        Assert.Equal("—", panel.Find("[data-testid=discounted-payback]").TextContent);
+    }
+
+    [Fact]
     public void Invalid_input_lists_what_needs_attention_instead_of_measures()
     {
         var state = ComponentTestContext.Example();
