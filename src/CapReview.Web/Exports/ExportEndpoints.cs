@@ -75,7 +75,7 @@ public static class ExportEndpoints
             }
             var found = tables.FirstOrDefault(t => t.Name == table).Table;
             return found is null
-                ? Results.Problem($"Version {number} has no table “{table}”; it has {string.Join(", ", tables.Select(t => t.Name))} and their notes.", statusCode: StatusCodes.Status404NotFound)
+                ? Results.Problem($"Version {number} has no table “{table}”; it has {string.Join(", ", tables.Select(t => t.Name))}.", statusCode: StatusCodes.Status404NotFound)
                 : Results.File(CsvExport.Write(found), "text/csv; charset=utf-8", $"{proposal.Reference.ToLowerInvariant()}-v{number}-{table}.csv");
         });
 
