@@ -179,6 +179,10 @@ public static partial class FieldWording
         "valueAtStudyEnd" => "value at the end of the study period",
         "marrOverride" => "the proposal's own MARR",
         "capitalLimit" => "capital limit",
+        "highRiskPremium" => "high-risk premium",
+        "lowRiskPremium" => "low-risk premium",
+        "standardRiskPremium" => "standard-risk premium",
+        "assumptionsSha256" => "assumptions SHA-256",
         "opensOn" => "opening date",
         "closesOn" => "closing date",
         "requiredSignOffs" => "sign-offs required",
@@ -222,10 +226,10 @@ public static partial class FieldWording
 
     private static string Capital(string words) => words.Length == 0 ? words : char.ToUpperInvariant(words[0]) + words[1..];
 
-    [GeneratedRegex(@"^([A-Za-z]+)(?:\[(#?[\w-]+)\])?$", RegexOptions.CultureInvariant)]
+    [GeneratedRegex(@"^([A-Za-z][A-Za-z0-9]*)(?:\[(#?[\w-]+)\])?$", RegexOptions.CultureInvariant)]
     private static partial Regex Segment();
 
     // A path is one or more names without spaces, with optional [index]: "capitalLimit", "model.elements[1].amount".
-    [GeneratedRegex(@"^([a-z][A-Za-z]*(?:\[#?[\w-]+\])?(?:\.[A-Za-z]+(?:\[#?[\w-]+\])?)*): ", RegexOptions.CultureInvariant)]
+    [GeneratedRegex(@"^([a-z][A-Za-z0-9]*(?:\[#?[\w-]+\])?(?:\.[A-Za-z][A-Za-z0-9]*(?:\[#?[\w-]+\])?)*): ", RegexOptions.CultureInvariant)]
     private static partial Regex LeadingPath();
 }
