@@ -51,6 +51,7 @@ public static partial class FieldWording
             [("rate", null), .. var rest] => new("MARR", Rest(rest) is { } p && p != "rate" ? p : null),
             [("marrOverride", null), .. var rest] => new("The proposal's own MARR", Rest(rest.Where(s => s.Name != "rate" || rest.Count == 1).ToList())),
             [("inflation", null), ("rate", null)] => new("General inflation", null),
+            [("laterYearLimits", { } index)] => new($"Capital limit of budget year {Number(index)}", null),
             [("tax", null), ("depreciation", { } index), .. var rest] => Numbered("Depreciation", index, rest, null),
             [("tax", null), ("credits", { } index), .. var rest] => Numbered("Tax credit", index, rest, null),
             [("replacement", null), (var side and ("defender" or "challenger"), { } index), .. var rest] =>
@@ -179,6 +180,9 @@ public static partial class FieldWording
         "valueAtStudyEnd" => "value at the end of the study period",
         "marrOverride" => "the proposal's own MARR",
         "capitalLimit" => "capital limit",
+        "cycleId" => "cycle",
+        "proposalIds" => "proposals",
+        "proposalId" => "proposal",
         "highRiskPremium" => "high-risk premium",
         "lowRiskPremium" => "low-risk premium",
         "standardRiskPremium" => "standard-risk premium",
