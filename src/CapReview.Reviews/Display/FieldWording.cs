@@ -51,6 +51,7 @@ public static partial class FieldWording
             [("rate", null), .. var rest] => new("MARR", Rest(rest) is { } p && p != "rate" ? p : null),
             [("marrOverride", null), .. var rest] => new("The proposal's own MARR", Rest(rest.Where(s => s.Name != "rate" || rest.Count == 1).ToList())),
             [("inflation", null), ("rate", null)] => new("General inflation", null),
+            [("tax", null), (var name, null)] => new(Capital(Word(name)), null),
             [("laterYearLimits", { } index)] => new($"Capital limit of budget year {Number(index)}", null),
             [("tax", null), ("depreciation", { } index), .. var rest] => Numbered("Depreciation", index, rest, null),
             [("tax", null), ("credits", { } index), .. var rest] => Numbered("Tax credit", index, rest, null),

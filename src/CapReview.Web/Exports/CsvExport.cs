@@ -5,7 +5,7 @@ namespace CapReview.Web.Exports;
 /// <summary>
 /// Writes an <see cref="ExportTable"/> as RFC 4180 CSV (UTF-8 with a byte-order mark, so spreadsheets read the
 /// currency's characters): a plain table, the header on the first line and one row per record, numbers in invariant
-/// form, so that a spreadsheet opens it as a table (no title or note lines above the header: decision 0xx, the notes
+/// form, so that a spreadsheet opens it as a table (no title or note lines above the header: decision 010, the notes
 /// are their own table, <see cref="WriteNotes"/>, and the workbook's Notes sheet). Every text goes through the same
 /// field writer, headers included (they carry names people typed: cycles, proposals, elements): quoted where it holds a
 /// comma, a quote or a line break, and escaped with a leading apostrophe where a spreadsheet would run it as a formula

@@ -31,7 +31,7 @@ public sealed class FieldWordingTests
     [InlineData("risk.trials", "Trials")]
     [InlineData("capitalLimit", "Capital limit")]
     [InlineData("rate.value", "MARR")]
-    [InlineData("tax.incomeTaxRate", "Tax settings, income-tax rate")]
+    [InlineData("tax.incomeTaxRate", "Income-tax rate")]
     [InlineData("replacement.defender[1].marketValue", "Asset in service, year 2, market value")]
     [InlineData("proposals[1].versions[0].assumptionsSha256", "Proposal 2, version 1, assumptions SHA-256")]
     public void A_field_path_reads_as_people_count_and_name_it(string path, string words) =>
