@@ -52,7 +52,27 @@ public sealed class ProposalPacketTests
         Assert.Contains("Development signature", text);
         Assert.Contains(Cautions.Estimates[..60], text.Replace("\n", " ", StringComparison.Ordinal));
         Assert.Contains("Changes from version 1 to version 2", text);
-        Assert.Contains("model.elements[1].amount", text);
+    }
+
+    [Fact]
+    public void The_version_changes_read_in_words_in_the_editors_numbering_with_their_effect_on_present_worth_and_no_field_path()
+    {
+        string text = Text(Packet);
+        string flat = text.Replace("\n", " ", StringComparison.Ordinal);
+        // Version 2 raised the geometric saving (element 2, growing 2 % a year over 12 years) from 127,000 to 137,000.
+        Assert.Contains("Element 2, ‘Labour and scrap saved’", flat);
+        Assert.Contains("first amount", flat);
+        Assert.Contains("127,000", flat);
+        Assert.Contains("137,000", flat);
+        // Its effect at the 9 % MARR: 10,000 × (1 − (1.02 / 1.09)¹²) / (0.09 − 0.02), the geometric-gradient
+        // present-worth factor (common practice, no source).
+        double effect = 10_000 * (1 - Math.Pow(1.02 / 1.09, 12)) / (0.09 - 0.02);
+        Assert.Contains(new PacketFormat(PacketSamples.Organisation.Culture, "EUR").Money(effect), flat);
+        Assert.Contains("every other change held", flat);
+        foreach (string machine in new[] { "elements[", "model.", "risk.parameters", "CostReduction" })
+        {
+            Assert.DoesNotContain(machine, text, StringComparison.Ordinal);
+        }
     }
 
     [Fact]

@@ -34,7 +34,7 @@ public sealed class UnevaluablePacketTests
         var data = new ProposalPacketData(PacketSamples.Organisation, PacketSamples.Cycle, PacketSamples.Marr, proposal, decision,
             PacketSamples.Figures(proposal, decision), PacketSamples.SignOffs, PacketSamples.Now, new SigningNotice("", "", true), Layout.PaperSize.A4);
         string text = Text(PacketRenderer.Proposal(data, PacketSamples.Certificate)).Replace("\n", " ", StringComparison.Ordinal);
-        Assert.Contains("No measure of this version can be stated: rate.value: The rate must be at least −40% a year", text, StringComparison.Ordinal);
+        Assert.Contains("No measure of this version can be stated: MARR: The rate must be at least −40% a year", text, StringComparison.Ordinal);
     }
 
     [Fact]

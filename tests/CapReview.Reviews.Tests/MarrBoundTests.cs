@@ -14,7 +14,8 @@ public sealed class MarrBoundTests(ReviewsDatabase db) : IClassFixture<ReviewsDa
     public async Task A_policy_below_minus_40_percent_is_refused_naming_the_rate()
     {
         var refused = await Assert.ThrowsAsync<RuleViolationException>(() => db.Marr.AddVersionAsync(Admin, Policy(-0.41), CancellationToken.None));
-        Assert.StartsWith("rate.value: The rate must be at least −40% a year", refused.Message, StringComparison.Ordinal);
+        Assert.StartsWith("MARR: The rate must be at least −40% a year", refused.Message, StringComparison.Ordinal);
+        Assert.Equal("rate.value", refused.Field);
         Assert.Equal(-0.4, (await db.Marr.AddVersionAsync(Admin, Policy(-0.4), CancellationToken.None)).Rate);
     }
 
@@ -22,6 +23,6 @@ public sealed class MarrBoundTests(ReviewsDatabase db) : IClassFixture<ReviewsDa
     public async Task A_premium_that_takes_a_class_below_the_bound_is_refused_naming_it()
     {
         var refused = await Assert.ThrowsAsync<RuleViolationException>(() => db.Marr.AddVersionAsync(Admin, Policy(-0.3, highPremium: -0.2), CancellationToken.None));
-        Assert.StartsWith("highRiskPremium: with this premium the MARR of high-risk proposals would be -50 %", refused.Message, StringComparison.Ordinal);
+        Assert.StartsWith("High-risk premium: with this premium the MARR of high-risk proposals would be -50 %", refused.Message, StringComparison.Ordinal);
     }
 }

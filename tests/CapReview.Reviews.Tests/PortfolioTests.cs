@@ -95,21 +95,22 @@ public sealed class PortfolioTests(ReviewsDatabase db) : IClassFixture<ReviewsDa
         var (cycle, a, b, c, d) = await CycleOfFourAsync("Rules 2027", 2_000_000m);
         var inTwo = await Assert.ThrowsAsync<RuleViolationException>(() =>
             db.PortfolioRules.SaveGroupAsync(Reviewer, cycle.Id, new GroupDraft("Cell", false, [b.Id, c.Id]), None));
-        Assert.StartsWith("proposalIds: a proposal can be in one group only", inTwo.Message);
+        Assert.StartsWith("Proposals: a proposal can be in one group only", inTwo.Message);
         var excluding = await Assert.ThrowsAsync<RuleViolationException>(() =>
             db.PortfolioRules.SaveGroupAsync(Reviewer, cycle.Id, new GroupDraft("Cell", false, [c.Id, d.Id]), None));
-        Assert.StartsWith("proposalIds: a proposal and its prerequisite", excluding.Message);
+        Assert.StartsWith("Proposals: a proposal and its prerequisite", excluding.Message);
         var circle = await Assert.ThrowsAsync<RuleViolationException>(() => db.PortfolioRules.AddContingencyAsync(Reviewer, cycle.Id, c.Id, d.Id, None));
-        Assert.StartsWith("prerequisite: the contingencies would go round", circle.Message);
+        Assert.StartsWith("Prerequisite: the contingencies would go round", circle.Message);
         await Assert.ThrowsAsync<RuleViolationException>(() => db.PortfolioRules.AddContingencyAsync(Reviewer, cycle.Id, a.Id, b.Id, None));
         var alone = await Assert.ThrowsAsync<RuleViolationException>(() =>
             db.PortfolioRules.SaveGroupAsync(Reviewer, cycle.Id, new GroupDraft("Solo", false, [c.Id]), None));
-        Assert.StartsWith("proposalIds: a group of alternatives needs at least two", alone.Message);
+        Assert.StartsWith("Proposals: a group of alternatives needs at least two", alone.Message);
         await Assert.ThrowsAsync<AccessDeniedException>(() => db.PortfolioRules.AddContingencyAsync(Finance, cycle.Id, a.Id, c.Id, None));
         await Assert.ThrowsAsync<AccessDeniedException>(() => db.PortfolioRules.SaveGroupAsync(Lead, cycle.Id, new GroupDraft("X", true, [c.Id]), None));
         var negative = await Assert.ThrowsAsync<RuleViolationException>(() =>
             db.PortfolioRules.SetPlanAsync(Admin, cycle.Id, new CyclePlan(null, [100m, -1m], SelectionObjective.PresentWorth), cycle.Revision, None));
-        Assert.StartsWith("laterYearLimits[1]:", negative.Message);
+        Assert.StartsWith("Capital limit of budget year 2: the limit of budget year 2 cannot be negative.", negative.Message);
+        Assert.Equal("laterYearLimits[1]", negative.Field);
 
         var rules = await db.PortfolioRules.GetAsync(cycle.Id, None);
         Assert.Equal(["Paint line"], rules.Groups.Select(g => g.Name));
@@ -146,9 +147,9 @@ public sealed class PortfolioTests(ReviewsDatabase db) : IClassFixture<ReviewsDa
 
         var bad = plain with { Assumptions = plain.Assumptions with { Replacement = estimates with { Defender = [new(6_000, 9_000), new(-1, 12_000)] } } };
         var error = await Assert.ThrowsAsync<RuleViolationException>(() => db.Proposals.CreateDraftAsync(Lead, bad, None));
-        Assert.Equal("replacement.defender[1].marketValue: Year 2: the market value must be a number, zero or more.", error.Message);
+        Assert.Equal("Asset in service, year 2, market value: Year 2: the market value must be a number, zero or more.", error.Message);
         var none = plain with { Assumptions = plain.Assumptions with { Replacement = estimates with { Challenger = [] } } };
-        Assert.StartsWith("replacement.challenger:", (await Assert.ThrowsAsync<RuleViolationException>(() => db.Proposals.CreateDraftAsync(Lead, none, None))).Message);
+        Assert.StartsWith("Replacement, proposed asset:", (await Assert.ThrowsAsync<RuleViolationException>(() => db.Proposals.CreateDraftAsync(Lead, none, None))).Message);
     }
 
     [Fact]

@@ -213,7 +213,7 @@ public sealed class ProposalTransitionTests
         cycle.StartReview(Admin);
         Proposal proposal = ProposalIn(ProposalStatus.Draft, cycle);
         var error = Assert.Throws<RuleViolationException>(() => proposal.Submit(Lead, cycle, At));
-        Assert.Equal("cycleId: the cycle Capital plan 2027 no longer takes proposals.", error.Message);
+        Assert.Equal("Cycle: the cycle Capital plan 2027 no longer takes proposals.", error.Message);
         Assert.Equal(ProposalStatus.Draft, proposal.Status);
         Assert.False(proposal.Latest.IsFrozen);
     }

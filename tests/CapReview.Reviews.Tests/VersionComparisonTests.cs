@@ -21,6 +21,10 @@ public sealed class VersionComparisonTests(ReviewsDatabase db) : IClassFixture<R
         var change = Assert.Single(difference.Fields);
         Assert.Equal("model.elements[0].amount", change.Path);
         Assert.Equal(("-120000", "-130000"), (change.Before, change.After));
+        // The same change in words, numbered as the editor numbers, with its effect on present worth: exactly −10,000 at period 0.
+        var format = new CapReview.Reviews.Display.NumberDisplay(System.Globalization.CultureInfo.GetCultureInfo("en-IE"), "EUR");
+        Assert.Equal("Element 1, ‘Chiller’: amount −120,000 → −130,000", change.Sentence(format));
+        Assert.Equal(-10_000, change.PresentWorthEffect!.Value, 6);
         // The first cost is at period 0, so present worth falls by exactly 10,000 and annual worth by 10,000 (A/P, 8%, 10):
         // Microsoft.VisualBasic.Financial.Pmt gives the capital-recovery factor.
         var pw = difference.Measures.Single(m => m.Measure == "Present worth");

@@ -2,6 +2,7 @@ using CapReview.Packets.Layout;
 using CapReview.Reviews.Audit;
 using CapReview.Reviews.Common;
 using CapReview.Reviews.Decisions;
+using CapReview.Reviews.Display;
 using CapReview.Reviews.Interchange;
 using CapReview.Reviews.Marr;
 using PdfSharp.Drawing;
@@ -27,7 +28,7 @@ internal static class PacketComposer
         flow.Pairs(
         [
             ("Proposal", $"{data.Proposal.Reference} {data.Proposal.Title}"),
-            ("Category and risk", $"{data.Proposal.Category}, risk class {data.Proposal.RiskClass}"),
+            ("Category and risk", $"{EnumWording.Of(data.Proposal.Category)}, risk class {EnumWording.Of(data.Proposal.RiskClass).ToLowerInvariant()}"),
             ("Budget cycle", $"{data.Cycle.Name} ({f.Date(data.Cycle.OpensOn)} to {f.Date(data.Cycle.ClosesOn)})"),
             ("Decision", $"{ProposalSections.OutcomeText(data.Decision.Outcome)}, {f.Time(data.Decision.DecidedAt)}"),
             ("Version", data.Version.Number.ToString(f.Culture)),

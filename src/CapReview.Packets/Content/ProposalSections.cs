@@ -7,6 +7,7 @@ using CapReview.Packets.Charts;
 using CapReview.Packets.Layout;
 using CapReview.Reviews.Common;
 using CapReview.Reviews.Decisions;
+using CapReview.Reviews.Display;
 using CapReview.Reviews.Marr;
 using CapReview.Reviews.Proposals;
 using CapReview.Reviews.Risk;
@@ -170,7 +171,7 @@ internal static class ProposalSections
                 Engine.Specifications.ElementKind.Geometric => $"{f.Money(entered.Amount ?? 0)}, then {f.Percent(entered.Growth ?? 0)} a period",
                 _ => f.Money(entered.Amount ?? 0),
             };
-            rows.Add(new TableRow([entered.Label ?? "", entered.Type?.ToString() ?? "", entered.Category?.ToString() ?? "", periods, shape, f.Money(pw)]));
+            rows.Add(new TableRow([entered.Label ?? "", entered.Type is { } kind ? EnumWording.Of(kind) : "", entered.Category is { } category ? EnumWording.Of(category) : "", periods, shape, f.Money(pw)]));
         }
         rows.Add(new TableRow(["Present worth", "", "", "", "", f.Money(e.PresentWorth)], Bold: true));
         TableWriter.Draw(flow, [new("Element", 2.6), new("Shape", 1.1), new("Category", 1.1), new("Periods", 1.1), new("Amount", 2.2, true), new("PW at MARR", 1.4, true)], rows);
@@ -183,7 +184,7 @@ internal static class ProposalSections
             + "entered with this version, not tax advice; the organisation's tax advisers decide how the investment is treated.", PacketStyle.Amber);
         if (outcome.Value is not { } r || schedule is null)
         {
-            flow.Text("The tax settings of this version are not complete: " + string.Join("; ", outcome.Errors.Select(e => $"{e.Field}: {e.Message}")), PacketStyle.Body);
+            flow.Text("The tax settings of this version are not complete: " + string.Join("; ", outcome.Errors.Select(e => FieldWording.Message(e))), PacketStyle.Body);
             return;
         }
         string Rate(Evaluation e) => e.RatesOfReturn.Count switch { 0 => "none", 1 => f.Percent(e.RatesOfReturn[0]) + " (unique)", _ => "several" };
@@ -234,13 +235,13 @@ internal static class ProposalSections
         flow.Heading("Sensitivity and risk", PacketStyle.Heading1);
         if (study.Value is not { } prepared || sensitivity is null || simulation is null)
         {
-            flow.Text("The risk settings of this version are not complete: " + string.Join("; ", study.Errors.Select(e => $"{e.Field}: {e.Message}")), PacketStyle.Body);
+            flow.Text("The risk settings of this version are not complete: " + string.Join("; ", study.Errors.Select(e => FieldWording.Message(e))), PacketStyle.Body);
             return;
         }
         var settings = prepared.Settings;
         var (bars, basis) = (sensitivity.Tornado, sensitivity.Basis);
         TableWriter.Draw(flow, [new("Parameter", 2.4), new("Input", 1.8), new("Low", 1.1, true), new("Most likely", 1.1, true), new("High", 1.1, true), new("Distribution", 1.2)],
-            settings.Parameters.Select(p => new TableRow([p.Name, RiskInputs.Label(p.Target, prepared.Proposal.Model, prepared.Proposal.Tax), Value(p.Low), Value(p.MostLikely), Value(p.High), DistributionWords.Name(p.Distribution)])));
+            settings.Parameters.Select(p => new TableRow([p.Name, RiskInputs.Label(p.Target, prepared.Proposal.Model, prepared.Proposal.Tax), Value(p.Low), Value(p.MostLikely), Value(p.High), EnumWording.Of(p.Distribution)])));
         flow.Figure(Math.Max(90, 34 + 26 * bars.Count), (g, area) => Charts.TornadoDrawing.Draw(g, area, bars, basis, f),
             $"Tornado: present worth with each parameter at its low (red-brown) and high (green) value, the others at most likely ({f.Money(basis)} {f.CurrencyCode}).");
         var result = simulation.Detail;
@@ -266,8 +267,14 @@ internal static class ProposalSections
         foreach (VersionDifference difference in changes)
         {
             flow.Heading($"Changes from version {difference.From} to version {difference.To}", PacketStyle.Heading2);
-            TableWriter.Draw(flow, [new("Field", 3), new("Before", 2, true), new("After", 2, true)],
-                difference.Fields.Count == 0 ? [new TableRow(["no field changed", "", ""])] : difference.Fields.Select(c => new TableRow([c.Path, c.Before ?? "–", c.After ?? "–"])));
+            TableWriter.Draw(flow, [new("Where", 2.6), new("What", 1.4), new("Before", 1.6, true), new("After", 1.6, true), new("Effect on PW", 1.4, true)],
+                difference.Fields.Count == 0 ? [new TableRow(["no field changed", "", "", "", ""])]
+                    : difference.Fields.Select(c => new TableRow([c.Subject, c.What, c.BeforeValue.Show(f), c.AfterValue.Show(f), c.PresentWorthEffect is double e ? f.Money(e) : "–"])));
+        }
+        if (changes.Count > 0)
+        {
+            flow.Text("Elements are numbered as in the editor. Effect on PW: the later version's present worth less the same with that one change undone, "
+                + "every other change held, at the later version's MARR.", PacketStyle.Small, PacketStyle.SoftBrush);
         }
         if (versions.Count == 1)
         {

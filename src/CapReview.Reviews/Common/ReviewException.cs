@@ -13,4 +13,12 @@ public sealed class NotFoundException(string message) : ReviewException(message)
 public sealed class ConcurrencyConflictException(string message) : ReviewException(message);
 
 /// <summary>A business rule forbids this: a transition not allowed from the current status, a frozen version, invalid input.</summary>
-public sealed class RuleViolationException(string message) : ReviewException(message);
+/// <remarks>
+/// A message may start with the field it concerns as a path ("capitalLimit: …"): the path is kept in <see cref="Field"/>
+/// for the API's machine answer and put in words in the message, which is what every reader sees.
+/// </remarks>
+public sealed class RuleViolationException(string message) : ReviewException(Display.FieldWording.InWords(message))
+{
+    /// <summary>The field path the refusal concerns, or null when it concerns the request as a whole.</summary>
+    public string? Field { get; } = Display.FieldWording.FieldOf(message);
+}

@@ -205,7 +205,7 @@ public sealed class CycleImporter(ReviewWork work, AuditTrail audit, IPeopleDire
 
 /// <summary>An import refused before anything was written, with every problem by its path in the document.</summary>
 public sealed class ImportRefusedException(IReadOnlyList<InputError> problems)
-    : ReviewException($"The cycle was not imported: {problems.Count} problem(s), the first {problems[0].Field}: {problems[0].Message}")
+    : ReviewException($"The cycle was not imported: {problems.Count} problem(s), the first {Display.FieldWording.Message(problems[0])}")
 {
     public IReadOnlyList<InputError> Problems { get; } = problems;
 }

@@ -57,7 +57,7 @@ public sealed class ReplacementService(ProposalService proposals, CycleService c
         if (!read.IsValid)
         {
             var error = read.Errors[0];
-            throw new RuleViolationException($"The model is not complete: {error.Field}: {error.Message}");
+            throw new RuleViolationException($"The model is not complete: {Display.FieldWording.Message(error)}");
         }
         double firstCost = Math.Max(0.0, -read.Value!.Model.NetFlows[0]);
         var advice = ReplacementStudy.Advise(estimates.DefenderValueNow, estimates.Defender, firstCost, estimates.Challenger, marr.EffectiveAnnual());

@@ -72,7 +72,7 @@ public sealed record VersionFigures(
         return new VersionFigures(evaluation, evaluation is null ? [] : EvaluationProfile.Of(evaluation), evaluation is null ? [] : PeriodTable.Of(evaluation), evaluation is null ? [] : PeriodTable.ElementWorths(evaluation),
             study, afterTax, depreciation, changes, risk, sensitivity, simulation)
         {
-            WhyNoMeasures = evaluated.Errors is [var first, ..] ? $"{first.Field}: {first.Message}" : null,
+            WhyNoMeasures = evaluated.Errors is [var first, ..] ? Display.FieldWording.Message(first, version.Assumptions) : null,
         };
     }
 }

@@ -1,12 +1,26 @@
+using CapReview.Engine.Validation;
 using CapReview.Reviews.Common;
+using CapReview.Reviews.Display;
 
 namespace CapReview.Web.Api;
 
 /// <summary>The API's answers when a request cannot be served: problem details, with the field named where there is one.</summary>
 public static class ApiProblems
 {
-    public static IResult Invalid(string field, string message) =>
-        Results.ValidationProblem(new Dictionary<string, string[]> { [field] = [message] }, title: "The request could not be served.");
+    public static IResult Invalid(string field, string message, string title = "The request could not be served.") => Invalid([new InputError(field, message)], title);
+
+    /// <summary>
+    /// A 400 whose <c>errors</c> keep each field's path for programs and whose <c>detail</c> says the same in words
+    /// for people ("Element 1, last period: The last period is after the horizon (6).").
+    /// </summary>
+    public static IResult Invalid(IReadOnlyList<InputError> errors, string title)
+    {
+        ArgumentNullException.ThrowIfNull(errors);
+        return Results.ValidationProblem(
+            errors.GroupBy(e => e.Field).ToDictionary(g => g.Key, g => g.Select(e => e.Message).ToArray()),
+            detail: string.Join(" ", errors.Select(InWords)),
+            title: title);
+    }
 
     /// <summary>Runs <paramref name="action"/>, turning the domain's refusals into 400, 403, 404, 409 and (a run limit) 429.</summary>
     public static async Task<IResult> RunAsync(Func<Task<IResult>> action)
@@ -30,7 +44,7 @@ public static class ApiProblems
         }
         catch (RuleViolationException ex)
         {
-            return Invalid(FieldOf(ex.Message), ex.Message);
+            return Invalid(ex.Field ?? "body", ex.Message);
         }
         catch (Reviews.Runs.RunLimitReachedException ex)
         {
@@ -38,10 +52,10 @@ public static class ApiProblems
         }
     }
 
-    /// <summary>The field a domain message names ("title: …" or "elements[2].amount: …"), else "body".</summary>
-    private static string FieldOf(string message)
+    private static string InWords(InputError error)
     {
-        int colon = message.IndexOf(": ", StringComparison.Ordinal);
-        return colon > 0 && !message[..colon].Contains(' ', StringComparison.Ordinal) ? message[..colon] : "body";
+        string message = FieldWording.InWords(error.Message);
+        return error.Field == "body" || message.StartsWith(FieldWording.Describe(error.Field) + ":", StringComparison.Ordinal)
+            ? message : $"{FieldWording.Describe(error.Field)}: {message}";
     }
 }

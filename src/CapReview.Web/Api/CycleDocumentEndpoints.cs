@@ -84,8 +84,7 @@ public static class CycleDocumentEndpoints
             }
             catch (ImportRefusedException ex)
             {
-                return Results.ValidationProblem(ex.Problems.GroupBy(p => p.Field).ToDictionary(g => g.Key, g => g.Select(p => p.Message).ToArray()),
-                    title: "The cycle was not imported; nothing was changed.");
+                return ApiProblems.Invalid(ex.Problems, "The cycle was not imported; nothing was changed.");
             }
         }).ConfigureAwait(false);
     }

@@ -77,15 +77,9 @@ public static class EvaluationEndpoints
             : Invalid(outcome.Errors);
     }
 
-    internal static IResult Invalid(IReadOnlyList<InputError> errors, string title = "The model has invalid input.") =>
-        Results.ValidationProblem(
-            errors.GroupBy(e => e.Field).ToDictionary(g => g.Key, g => g.Select(e => e.Message).ToArray()),
-            title: title);
+    internal static IResult Invalid(IReadOnlyList<InputError> errors, string title = "The model has invalid input.") => ApiProblems.Invalid(errors, title);
 
-    private static IResult Problem(string field, string message) =>
-        Results.ValidationProblem(
-            new Dictionary<string, string[]> { [field] = [message] },
-            title: "The request could not be read.");
+    private static IResult Problem(string field, string message) => ApiProblems.Invalid(field, message, "The request could not be read.");
 
     /// <summary>"$.elements[2].amount" → "elements[2].amount".</summary>
     internal static string FieldOf(string? jsonPath) =>

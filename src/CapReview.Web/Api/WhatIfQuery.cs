@@ -82,5 +82,5 @@ public static class WhatIfQuery
     }
 
     private static IResult Invalid(string field, string message) =>
-        Results.ValidationProblem(new Dictionary<string, string[]> { [field] = [message] }, title: "The request's settings could not be read.");
+        ApiProblems.Invalid(field, message, "The request's settings could not be read.");
 }

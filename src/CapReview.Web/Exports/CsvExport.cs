@@ -4,11 +4,12 @@ namespace CapReview.Web.Exports;
 
 /// <summary>
 /// Writes an <see cref="ExportTable"/> as RFC 4180 CSV (UTF-8 with a byte-order mark, so spreadsheets read the
-/// currency's characters): the title and each note on a line of its own in the first column, then the header and one
-/// row per record, numbers in invariant form. Every line is as wide as the table and every text goes through the same
-/// field writer, the title, notes and headers included (they carry names people typed: cycles, proposals, elements):
-/// quoted where it holds a comma, a quote or a line break, and escaped with a leading apostrophe where a spreadsheet
-/// would run it as a formula (= + - @, tab or CR first). Comment lines would be written as typed, with neither.
+/// currency's characters): a plain table, the header on the first line and one row per record, numbers in invariant
+/// form, so that a spreadsheet opens it as a table (no title or note lines above the header: decision 010, the notes
+/// are their own table, <see cref="WriteNotes"/>, and the workbook's Notes sheet). Every text goes through the same
+/// field writer, headers included (they carry names people typed: cycles, proposals, elements): quoted where it holds a
+/// comma, a quote or a line break, and escaped with a leading apostrophe where a spreadsheet would run it as a formula
+/// (= + - @, tab or CR first).
 /// </summary>
 public static class CsvExport
 {
@@ -27,15 +28,6 @@ public static class CsvExport
         using var stream = new MemoryStream();
         using (CsvWriter csv = CsvWriter.Create(stream, Options, true))
         {
-            foreach (string line in table.Notes.Prepend(table.Title))
-            {
-                csv.WriteField(line);
-                for (int k = 1; k < table.Columns.Count; k++)
-                {
-                    csv.WriteField("");
-                }
-                csv.EndRecord();
-            }
             foreach (ExportColumn column in table.Columns)
             {
                 csv.WriteField(column.Header);
@@ -69,4 +61,7 @@ public static class CsvExport
         }
         return stream.ToArray();
     }
+
+    /// <summary>The notes and cautions of <paramref name="tables"/> as a table of their own: one row per note, beside the title of its table.</summary>
+    public static byte[] WriteNotes(params IReadOnlyList<ExportTable> tables) => Write(ExportNotes.Of(tables));
 }

@@ -13,7 +13,9 @@ namespace CapReview.Web.Exports;
 /// <summary>
 /// Downloads of a proposal version (one workbook, or one CSV per table), and of a cycle's ranking and funded
 /// portfolio as CSV or XLSX, for the board, finance and administrators (a browser's cookie or an API token), with the same what-if settings as the pages: <c>shift</c> (MARR points), <c>limit</c> (capital now),
-/// <c>objective</c> (presentWorth or annualWorth) and <c>basis</c> (beforeTax or afterTax).
+/// <c>objective</c> (presentWorth or annualWorth) and <c>basis</c> (beforeTax or afterTax). A CSV is a plain table;
+/// its notes and cautions are a table of their own: <c>?table=notes</c> on a cycle's CSV, the table <c>notes</c> of a
+/// version (decision 010), and the last sheet of every workbook.
 /// </summary>
 public static class ExportEndpoints
 {
@@ -39,7 +41,7 @@ public static class ExportEndpoints
         return await ApiProblems.RunAsync(async () =>
         {
             var ranking = await rankings.RankAsync(ActorFactory.From(context.User)!, id, query.MarrShift, cancellationToken, query.AfterTax).ConfigureAwait(false);
-            return File(RankingExport.Table(ranking, display.CurrencyCode), format);
+            return File(RankingExport.Table(ranking, display.CurrencyCode), format, NotesAsked(context));
         }).ConfigureAwait(false);
     }
 
@@ -52,7 +54,7 @@ public static class ExportEndpoints
         return await ApiProblems.RunAsync(async () =>
         {
             var result = await portfolio.SelectAsync(ActorFactory.From(context.User)!, id, query, cancellationToken).ConfigureAwait(false);
-            return File(PortfolioExport.Table(result, display.CurrencyCode), format);
+            return File(PortfolioExport.Table(result, display.CurrencyCode), format, NotesAsked(context));
         }).ConfigureAwait(false);
     }
 
@@ -68,6 +70,10 @@ public static class ExportEndpoints
         ApiProblems.RunAsync(async () =>
         {
             var (proposal, tables) = await VersionTablesAsync(id, number, context, proposals, cycles, policies, display, cancellationToken).ConfigureAwait(false);
+            if (table == "notes")
+            {
+                return Results.File(CsvExport.WriteNotes([.. tables.Select(t => t.Table)]), "text/csv; charset=utf-8", $"{proposal.Reference.ToLowerInvariant()}-v{number}-notes.csv");
+            }
             var found = tables.FirstOrDefault(t => t.Name == table).Table;
             return found is null
                 ? Results.Problem($"Version {number} has no table “{table}”; it has {string.Join(", ", tables.Select(t => t.Name))}.", statusCode: StatusCodes.Status404NotFound)
@@ -84,8 +90,13 @@ public static class ExportEndpoints
         return (proposal, VersionExport.Tables(proposal, version, policy, display.CurrencyCode));
     }
 
-    private static IResult File(ExportTable table, string format) => format == "csv"
-        ? Results.File(CsvExport.Write(table), "text/csv; charset=utf-8", table.FileStem + ".csv")
-        : Results.File(XlsxExport.Write(table), "application/vnd.openxmlformats-officedocument.spreadsheetml.sheet", table.FileStem + ".xlsx");
+    private static bool NotesAsked(HttpContext context) => context.Request.Query["table"] == "notes";
+
+    private static IResult File(ExportTable table, string format, bool notes) => (format, notes) switch
+    {
+        ("csv", true) => Results.File(CsvExport.WriteNotes(table), "text/csv; charset=utf-8", table.FileStem + "-notes.csv"),
+        ("csv", false) => Results.File(CsvExport.Write(table), "text/csv; charset=utf-8", table.FileStem + ".csv"),
+        _ => Results.File(XlsxExport.Write(table), "application/vnd.openxmlformats-officedocument.spreadsheetml.sheet", table.FileStem + ".xlsx"),
+    };
 
 }

@@ -21,7 +21,7 @@ public static class RankingExport
         ];
         var rows = ranking.Rows.Select(r => (IReadOnlyList<object?>)
         [
-            r.Ranked.Rank, r.Proposal.Reference, r.Proposal.Title, r.Version.Number, r.Proposal.Category.ToString(), r.Proposal.RiskClass.ToString(),
+            r.Ranked.Rank, r.Proposal.Reference, r.Proposal.Title, r.Version.Number, Reviews.Display.EnumWording.Of(r.Proposal.Category), Reviews.Display.EnumWording.Of(r.Proposal.RiskClass),
             r.Marr.EffectiveAnnual(), r.Ranked.AnnualWorth, r.Ranked.PresentWorth,
             r.Ranked.Evaluation.UniqueRateOfReturn, RateNote(r.Ranked.Evaluation.RatesOfReturn.Count), r.Ranked.Evaluation.ExternalRate,
             r.Ranked.Evaluation.DiscountedPaybackYears, r.Ranked.Evaluation.BenefitCost.Conventional,
@@ -33,8 +33,8 @@ public static class RankingExport
         // download shows every proposal of the cycle the page shows.
         rows.AddRange(ranking.Unranked.Select(u => (IReadOnlyList<object?>)
         [
-            null, u.Proposal.Reference, u.Proposal.Title, u.Proposal.Versions.LastOrDefault(v => v.IsFrozen)?.Number, u.Proposal.Category.ToString(),
-            u.Proposal.RiskClass.ToString(), null, null, null, null, null, null, null, null, null, null, NotRanked + u.Reason, null, null,
+            null, u.Proposal.Reference, u.Proposal.Title, u.Proposal.Versions.LastOrDefault(v => v.IsFrozen)?.Number, Reviews.Display.EnumWording.Of(u.Proposal.Category),
+            Reviews.Display.EnumWording.Of(u.Proposal.RiskClass), null, null, null, null, null, null, null, null, null, null, NotRanked + u.Reason, null, null,
             u.Proposal.Versions.LastOrDefault(v => v.IsFrozen)?.AssumptionsHash,
         ]));
         return new ExportTable($"Ranking {ranking.Cycle.Name}", Notes(ranking), columns, rows);

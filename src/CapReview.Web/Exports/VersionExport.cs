@@ -52,8 +52,8 @@ public static class VersionExport
     {
         var rows = new List<IReadOnlyList<object?>>
         {
-            Row("Reference", proposal.Reference), Row("Title", proposal.Title), Row("Category", proposal.Category.ToString()),
-            Row("Risk class", proposal.RiskClass.ToString()), Row("Version", version.Number), Row("Reason", version.Reason),
+            Row("Reference", proposal.Reference), Row("Title", proposal.Title), Row("Category", Reviews.Display.EnumWording.Of(proposal.Category)),
+            Row("Risk class", Reviews.Display.EnumWording.Of(proposal.RiskClass)), Row("Version", version.Number), Row("Reason", version.Reason),
             Row("Assumptions SHA-256", version.AssumptionsHash),
         };
         if (e is null)

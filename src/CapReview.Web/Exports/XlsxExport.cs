@@ -6,8 +6,9 @@ using DocumentFormat.OpenXml.Spreadsheet;
 namespace CapReview.Web.Exports;
 
 /// <summary>
-/// Writes <see cref="ExportTable"/>s as worksheets with the Open XML SDK, each: the title in bold, the notes, a blank
-/// row, the bold header, then the rows with numbers stored as numbers under a money, percent or number format.
+/// Writes <see cref="ExportTable"/>s as worksheets with the Open XML SDK, each a plain table named by its title: the
+/// bold header on the first row, then the rows with numbers stored as numbers under a money, percent or number format.
+/// The tables' notes and cautions follow on a last sheet, Notes, one row per note beside its table's title.
 /// </summary>
 public static class XlsxExport
 {
@@ -16,10 +17,14 @@ public static class XlsxExport
 
     public static byte[] Write(ExportTable table) => Write([table]);
 
-    /// <summary>A workbook with one worksheet per table, in order, each named by its title.</summary>
+    /// <summary>A workbook with one worksheet per table, in order, each named by its title, then the Notes sheet when any table has notes.</summary>
     public static byte[] Write(IReadOnlyList<ExportTable> tables)
     {
         ArgumentNullException.ThrowIfNull(tables);
+        if (tables.Any(t => t.Notes.Count > 0))
+        {
+            tables = [.. tables, ExportNotes.Of(tables)];
+        }
         using var stream = new MemoryStream();
         using (var document = SpreadsheetDocument.Create(stream, SpreadsheetDocumentType.Workbook))
         {
@@ -49,12 +54,6 @@ public static class XlsxExport
         uint rowIndex = 0;
         Row NewRow() => data.AppendChild(new Row { RowIndex = ++rowIndex });
 
-        NewRow().Append(Text(table.Title, Bold));
-        foreach (string note in table.Notes)
-        {
-            NewRow().Append(Text(note, Plain));
-        }
-        NewRow();
         NewRow().Append(table.Columns.Select(c => Text(c.Header, Bold)));
         foreach (var values in table.Rows)
         {

@@ -1,4 +1,5 @@
 using System.Globalization;
+using System.Text.RegularExpressions;
 
 namespace CapReview.Web.Importing;
 
@@ -6,16 +7,31 @@ namespace CapReview.Web.Importing;
 /// Reads one cell as a number, a whole number or one of a set of words, adding a problem naming the row and column
 /// when it cannot. Text numbers are read in the culture the user chose for the file; stored numbers as they are.
 /// </summary>
-public sealed class CellReading(CultureInfo numbers, List<ImportProblem> problems)
+public sealed partial class CellReading(CultureInfo numbers, List<ImportProblem> problems)
 {
+    private readonly List<ParsedNumber> parsed = [];
+
     public CultureInfo Numbers { get; } = numbers;
 
     public IReadOnlyList<ImportProblem> Problems => problems;
+
+    /// <summary>Every number read from text, as written and as read, for the preview to show beside each other.</summary>
+    public IReadOnlyList<ParsedNumber> Parsed => parsed;
 
     public void Add(int row, string column, string reason) => problems.Add(new(row, column, reason));
 
     /// <summary>A number, or null (with a problem) when it is not one; null without a problem when blank and not <paramref name="required"/>.</summary>
     public double? Number(SheetRow row, int column, string name, bool required, string blankReason = "Give a number.")
+    {
+        double? value = Parse(row, column, name, required, blankReason);
+        if (value is double v && row[column].Number is null)
+        {
+            parsed.Add(new ParsedNumber(row.Number, name, row[column].Text.Trim(), v));
+        }
+        return value;
+    }
+
+    private double? Parse(SheetRow row, int column, string name, bool required, string blankReason)
     {
         SheetCell cell = row[column];
         if (cell.Number is double stored)
@@ -31,11 +47,12 @@ public sealed class CellReading(CultureInfo numbers, List<ImportProblem> problem
             }
             return null;
         }
-        if (double.TryParse(text, NumberStyles.Float | NumberStyles.AllowThousands, Numbers, out double value) && double.IsFinite(value))
+        // A group mark only between thousands: read leniently, "-480000,50" with a decimal point would be −48,000,050.
+        if (Grouped(text) && double.TryParse(text, NumberStyles.Float | NumberStyles.AllowThousands, Numbers, out double value) && double.IsFinite(value))
         {
             return value;
         }
-        Add(row.Number, name, $"“{cell.Text.Trim()}” is not a number (decimal mark “{Numbers.NumberFormat.NumberDecimalSeparator}”).");
+        Add(row.Number, name, $"“{cell.Text.Trim()}” is not a number written with the decimal mark “{Numbers.NumberFormat.NumberDecimalSeparator}” (thousands grouped by “{Numbers.NumberFormat.NumberGroupSeparator}”): check the file's decimal mark above.");
         return null;
     }
 
@@ -47,9 +64,18 @@ public sealed class CellReading(CultureInfo numbers, List<ImportProblem> problem
         if (cell.Number is null && text.EndsWith('%'))
         {
             var percent = new SheetRow(row.Number, [new SheetCell(text.TrimEnd('%').Trim(), null)]);
-            return Number(percent, 0, name, true) / 100.0;
+            double? share = Parse(percent, 0, name, true, "Give a number.") / 100.0;
+            if (share is double s)
+            {
+                parsed.Add(new ParsedNumber(row.Number, name, text, s, IsRate: true));
+            }
+            return share;
         }
-        double? value = Number(row, column, name, required);
+        double? value = Parse(row, column, name, required, "Give a number.");
+        if (value is double r && cell.Number is null)
+        {
+            parsed.Add(new ParsedNumber(row.Number, name, text, r, IsRate: true));
+        }
         if (value is double v && Math.Abs(v) > 1)
         {
             Add(row.Number, name, $"{v.ToString(Numbers)} is out of range: write a rate as a fraction (0.03) or as a percentage with its sign (3%).");
@@ -95,4 +121,21 @@ public sealed class CellReading(CultureInfo numbers, List<ImportProblem> problem
         Add(row.Number, name, $"“{text}” is not one of: {choices}.");
         return null;
     }
+
+    private bool Grouped(string text)
+    {
+        string group = Numbers.NumberFormat.NumberGroupSeparator;
+        if (!text.Contains(group, StringComparison.Ordinal))
+        {
+            return true;
+        }
+        string whole = text.Split(Numbers.NumberFormat.NumberDecimalSeparator)[0].TrimStart('+', '-');
+        return ThousandGroups().IsMatch(whole.Replace(group, ",", StringComparison.Ordinal));
+    }
+
+    [GeneratedRegex(@"^\d{1,3}(,\d{3})+$", RegexOptions.CultureInvariant)]
+    private static partial Regex ThousandGroups();
 }
+
+/// <summary>A number the import read from text: where, as written, and as read.</summary>
+public sealed record ParsedNumber(int Row, string Column, string Written, double Read, bool IsRate = false);

@@ -4,7 +4,7 @@ namespace CapReview.Web.Importing;
 
 /// <summary>
 /// Reads a CSV file with CsvHelper: the separator detected (comma, semicolon, tab or bar, so a file saved by a
-/// spreadsheet in a comma-decimal culture reads too), lines starting with # skipped (the notes of exports from earlier
+/// spreadsheet in a comma-decimal culture reads too, and the separator found kept for the preview), lines starting with # skipped (the notes of exports from earlier
 /// versions, and comments people add), each row numbered by its line in the file. Our exports' title and notes are now
 /// ordinary rows above the header, which the import passes over while it looks for the header.
 /// </summary>
@@ -22,9 +22,11 @@ public static class CsvSheetReader
             MalformedData = CsvMalformedDataHandling.Throw,
         };
         var rows = new List<SheetRow>();
+        char separator;
         try
         {
             using CsvReader reader = CsvReader.Create(bytes, options);
+            separator = reader.Separator;
             while (reader.Read())
             {
                 if (rows.Count == ImportLimits.MaxRows)
@@ -47,6 +49,6 @@ public static class CsvSheetReader
         {
             throw new UnreadableSheetException($"This is not a readable CSV file: {ex.Message}");
         }
-        return new SheetGrid(rows);
+        return new SheetGrid(rows) { Separator = separator };
     }
 }

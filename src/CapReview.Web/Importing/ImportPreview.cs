@@ -24,7 +24,25 @@ public sealed record ImportedElement(ElementSpec Spec, int Row);
 /// </summary>
 public sealed record ImportPreview(ImportShape Shape, IReadOnlyList<ImportedElement> Elements, int Horizon, IReadOnlyList<ImportProblem> Problems)
 {
-    public bool CanApply => Problems.Count == 0 && Elements.Count > 0;
+    public bool CanApply => Problems.Count == 0 && Elements.Count > 0 && !NeedsMarkChoice;
+
+    /// <summary>The field separator CsvHelper found in a CSV file; null for a workbook.</summary>
+    public char? Separator { get; init; }
+
+    /// <summary>What the file's own numbers say about its decimal mark.</summary>
+    public DecimalMarkGuess? Detected { get; init; }
+
+    /// <summary>The decimal mark the text numbers were read with; null when the caller gave a culture instead.</summary>
+    public DecimalMark? Mark { get; init; }
+
+    /// <summary>True when the person chose <see cref="Mark"/> rather than the file's numbers deciding it.</summary>
+    public bool MarkChosen { get; init; }
+
+    /// <summary>True when the file's numbers leave the mark open and nobody chose one: the preview asks before anything is applied.</summary>
+    public bool NeedsMarkChoice => Mark is not null && !MarkChosen && Detected is { Ambiguous: true };
+
+    /// <summary>Every number read from text, as written and as read.</summary>
+    public IReadOnlyList<ParsedNumber> Parsed { get; init; } = [];
 
     public static ImportPreview Failed(ImportShape shape, IReadOnlyList<ImportProblem> problems) => new(shape, [], 0, problems);
 }

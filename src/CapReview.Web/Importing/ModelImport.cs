@@ -13,7 +13,16 @@ namespace CapReview.Web.Importing;
 public static partial class ModelImport
 {
     /// <summary>Reads <paramref name="bytes"/>, named <paramref name="fileName"/>, with text numbers in <paramref name="numbers"/>.</summary>
-    public static ImportPreview Read(string fileName, byte[] bytes, CultureInfo numbers, int periodsPerYear = 1)
+    public static ImportPreview Read(string fileName, byte[] bytes, CultureInfo numbers, int periodsPerYear = 1) => Read(fileName, bytes, numbers, null, periodsPerYear);
+
+    /// <summary>
+    /// Reads <paramref name="bytes"/> with text numbers in <paramref name="mark"/>, or, when null, in the mark the file's
+    /// own numbers show (<see cref="DecimalMarkDetection"/>). A file whose numbers leave the mark open reads with a
+    /// decimal point but cannot be applied until the person chooses, since the two readings differ a thousandfold.
+    /// </summary>
+    public static ImportPreview Read(string fileName, byte[] bytes, DecimalMark? mark, int periodsPerYear = 1) => Read(fileName, bytes, null, mark, periodsPerYear);
+
+    private static ImportPreview Read(string fileName, byte[] bytes, CultureInfo? culture, DecimalMark? mark, int periodsPerYear)
     {
         ArgumentNullException.ThrowIfNull(fileName);
         ArgumentNullException.ThrowIfNull(bytes);
@@ -47,7 +56,14 @@ public static partial class ModelImport
         {
             return Failed("No header row found: the per-element shape has a column named “type”, the per-period shape starts with a column named “period”.");
         }
+        DecimalMarkGuess detected = DecimalMarkDetection.Detect(grid);
+        DecimalMark used = mark ?? detected.Mark ?? DecimalMark.Point;
+        CultureInfo numbers = culture ?? DecimalMarks.Culture(used);
         var problems = new List<ImportProblem>();
+        if (culture is null && mark is null && detected.Conflict)
+        {
+            problems.Add(new(0, "", $"The file mixes decimal marks ({detected.Evidence}): choose the one it uses, or correct the file."));
+        }
         var read = new CellReading(numbers, problems);
         ShapeReading reading = shape == ImportShape.PerPeriod
             ? PeriodRowsShape.Read(grid, header, read)
@@ -61,9 +77,17 @@ public static partial class ModelImport
         {
             CheckWithEngine(reading, horizon, periodsPerYear, problems);
         }
-        return problems.Count > 0
+        ImportPreview preview = problems.Count > 0
             ? ImportPreview.Failed(shape, problems)
             : new ImportPreview(shape, reading.Elements, horizon, []);
+        return preview with
+        {
+            Separator = grid.Separator,
+            Detected = detected,
+            Mark = culture is null ? used : null,
+            MarkChosen = mark is not null,
+            Parsed = read.Parsed,
+        };
 
         ImportPreview Failed(string reason) => ImportPreview.Failed(ImportShape.PerElement, [new ImportProblem(0, "", reason)]);
     }

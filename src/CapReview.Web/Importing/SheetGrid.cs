@@ -20,6 +20,9 @@ public sealed record SheetRow(int Number, IReadOnlyList<SheetCell> Cells)
 /// <summary>The rows of a CSV file or of one worksheet, before any meaning is given to them.</summary>
 public sealed record SheetGrid(IReadOnlyList<SheetRow> Rows)
 {
+    /// <summary>The field separator of a CSV file (detected by CsvHelper); null for a worksheet.</summary>
+    public char? Separator { get; init; }
+
     /// <summary>A column's letters as a spreadsheet shows them: 0 is A, 26 is AA.</summary>
     public static string ColumnLetters(int column)
     {

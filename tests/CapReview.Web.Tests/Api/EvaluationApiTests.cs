@@ -44,6 +44,26 @@ public sealed class EvaluationApiTests(ApiFactory factory) : IClassFixture<ApiFa
     }
 
     [Fact]
+    public async Task Invalid_input_keeps_each_fields_path_for_programs_and_names_it_in_words_for_people()
+    {
+        var (status, body, _) = await PostAsync("""
+            {"horizon": 6, "rate": {"value": 0.08}, "elements": [
+              {"type": "uniform", "label": "Hire", "category": "revenue", "first": 4, "last": 9, "amount": 11500},
+              {"type": "single", "label": "Press", "category": "capital", "period": 0, "amount": -1000},
+              {"type": "geometric", "label": "Energy", "category": "revenue", "first": 1, "last": 6, "amount": 500, "growth": -1.5}
+            ]}
+            """);
+        Assert.Equal(HttpStatusCode.BadRequest, status);
+        JsonElement errors = body.GetProperty("errors");
+        Assert.True(errors.TryGetProperty("elements[0].last", out _));
+        Assert.True(errors.TryGetProperty("elements[2].growth", out _));
+        string detail = body.GetProperty("detail").GetString()!;
+        Assert.StartsWith("Element 1, last period: ", detail, StringComparison.Ordinal);
+        Assert.Contains("Element 3, growth per period: ", detail, StringComparison.Ordinal);
+        Assert.DoesNotContain("elements[", detail, StringComparison.Ordinal);
+    }
+
+    [Fact]
     public async Task Evaluates_a_model_and_matches_VisualBasic_Financial()
     {
         var (status, body, _) = await PostAsync(Example);

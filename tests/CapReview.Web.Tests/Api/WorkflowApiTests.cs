@@ -74,7 +74,10 @@ public sealed class WorkflowApiTests(ApiFactory factory) : IClassFixture<ApiFact
         Assert.Contains("these are the assumptions of version 1 already", (await JsonAsync(unchanged)).GetProperty("errors").GetProperty("assumptions")[0].GetString(), StringComparison.Ordinal);
 
         using var noReason = await lead.PostAsJsonAsync($"/api/v1/proposals/{id}/versions", new { revision = current, reason = " ", assumptions = Model(7_500) });
-        Assert.True((await JsonAsync(noReason)).GetProperty("errors").TryGetProperty("reason", out _));
+        JsonElement noReasonBody = await JsonAsync(noReason);
+        // The field's path stays the machine's key; what a person reads names it in words.
+        Assert.Equal("Reason: say why the assumptions changed.", noReasonBody.GetProperty("errors").GetProperty("reason")[0].GetString());
+        Assert.Equal("Reason: say why the assumptions changed.", noReasonBody.GetProperty("detail").GetString());
         Assert.Equal(before, await StoredAsync(id));
 
         // A frozen version is never changed in place.

@@ -53,7 +53,9 @@ public sealed class PageBoundaryTests : IDisposable
     {
         var page = Render(refused: true);
         page.Find("#fail").Click();
-        Assert.Contains("capitalLimit: the capital limit cannot be negative.", page.Find("[data-testid=page-failure]").TextContent, StringComparison.Ordinal);
+        string shown = page.Find("[data-testid=page-failure]").TextContent;
+        Assert.Contains("Capital limit: the capital limit cannot be negative.", shown, StringComparison.Ordinal);
+        Assert.DoesNotContain("capitalLimit", shown, StringComparison.Ordinal);
     }
 
     [Fact]

@@ -62,7 +62,7 @@ public sealed class RunLimitPanelTests : IDisposable
         var panel = Panel("900,000");
         panel.Find("[data-testid=run-simulation]").Click();
         // 900,000 trials × 1,201 periods × 2 elements = 2,161,800,000 units, over the default budget of 2,000,000,000.
-        panel.WaitForAssertion(() => Assert.Contains("risk.trials: 900,000 trials of 1,201 periods and 2 elements is 2,161,800,000 units of work",
+        panel.WaitForAssertion(() => Assert.Contains("Trials: 900,000 trials of 1,201 periods and 2 elements is 2,161,800,000 units of work",
             panel.Find("[data-testid=risk-message]").TextContent, StringComparison.Ordinal));
         Assert.Equal(0, _context.Services.GetRequiredService<RunLimiter>().Running);
     }

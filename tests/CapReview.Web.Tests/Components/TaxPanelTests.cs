@@ -40,7 +40,9 @@ public sealed class TaxPanelTests : IDisposable
     {
         var draft = new TaxDraft { Enabled = true, IncomeTaxPercent = "twenty", Method = DepreciationMethod.StraightLine, Life = "5" };
         var panel = _context.Render<TaxPanel>(p => p.Add(x => x.Draft, draft).Add(x => x.Model, Press));
-        Assert.Contains("tax.incomeTaxRate", panel.Find("[data-testid=tax-errors]").TextContent);
+        string errors = panel.Find("[data-testid=tax-errors]").TextContent;
+        Assert.Contains("Income-tax rate: ", errors, StringComparison.Ordinal);
+        Assert.DoesNotContain("tax.incomeTaxRate", errors, StringComparison.Ordinal);
         Assert.Empty(panel.FindAll("[data-testid=after-tax-table]"));
     }
 

@@ -47,6 +47,8 @@ public sealed class CsvDownloadTests(ApiFactory factory) : IClassFixture<ApiFact
                 (board, $"/cycles/{cycleId}/portfolio/csv?objective=annualWorth&limit=90000"),
             };
             downloads.AddRange(tables.Select(t => (lead, $"/proposals/{proposalId}/versions/1/csv/{t}")));
+            downloads.Add((lead, $"/proposals/{proposalId}/versions/1/csv/notes"));
+            downloads.Add((board, $"/cycles/{cycleId}/ranking/csv?table=notes"));
             foreach (var (client, path) in downloads)
             {
                 using var answer = await client.GetAsync(path);
@@ -57,10 +59,19 @@ public sealed class CsvDownloadTests(ApiFactory factory) : IClassFixture<ApiFact
                 Assert.All(cells, row => Assert.True(row.Count == width, $"{path}: a line of {row.Count} cells in a table of {width}: {string.Join(" | ", row)}"));
                 var formulas = cells.SelectMany(r => r).Where(SpreadsheetCells.MayRunAsFormula).ToList();
                 Assert.True(formulas.Count == 0, $"{path}: cells a spreadsheet may run: {string.Join(" | ", formulas)}");
-                Assert.Contains(cells, row => row.Any(c => c.Contains(path.StartsWith("/cycles", StringComparison.Ordinal) ? CycleName : Title, StringComparison.Ordinal)));
+                // The typed names reach the cells whole: a proposal's title in the ranking and its summary, a cycle's name in the notes beside the table's title.
+                string? name = path.Contains("table=notes", StringComparison.Ordinal) ? CycleName
+                    : path.StartsWith("/cycles", StringComparison.Ordinal) || path.EndsWith("/summary", StringComparison.Ordinal) ? Title : null;
+                Assert.True(name is null || cells.Any(row => row.Any(c => c.Contains(name, StringComparison.Ordinal))), $"{path}: {name} is not in a cell of its own");
             }
+            // A plain table: the header on the first line; the title and cautions in the notes table beside it.
             var ranking = SpreadsheetCells.Read(await board.GetByteArrayAsync($"/cycles/{cycleId}/ranking/csv"));
-            Assert.Equal("Ranking " + CycleName, ranking[0][0]);
+            Assert.Equal("Rank", ranking[0][0]);
+            Assert.Equal("Cost reduction", ranking[1][ranking[0].IndexOf("Category")]);
+            var notes = SpreadsheetCells.Read(await board.GetByteArrayAsync($"/cycles/{cycleId}/ranking/csv?table=notes"));
+            Assert.Equal(["Table", "Note"], notes[0]);
+            Assert.All(notes.Skip(1), row => Assert.Equal("Ranking " + CycleName, row[0]));
+            Assert.Contains(notes, row => row[1].StartsWith("Estimates, not advice", StringComparison.Ordinal));
         }
     }
 

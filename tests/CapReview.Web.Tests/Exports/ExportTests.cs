@@ -27,17 +27,27 @@ public sealed class ExportTests(ApiFactory factory) : IClassFixture<ApiFactory>
         [.. SpreadsheetCells.Read(bytes).SkipWhile(r => r[0] != firstHeader).Select(r => r.ToArray())];
 
     [Fact]
-    public void Csv_keeps_numbers_as_invariant_numbers_and_puts_the_title_and_notes_first_in_lines_as_wide_as_the_table()
+    public void Csv_is_a_plain_table_with_the_header_first_and_numbers_as_invariant_numbers()
     {
         byte[] bytes = CsvExport.Write(Sample);
         Assert.Equal([0xEF, 0xBB, 0xBF], bytes[..3]);
         string text = System.Text.Encoding.UTF8.GetString(bytes[3..]);
-        Assert.StartsWith("Sample export,,,\r\nA note,,,\r\n\"Estimates, not advice.\",,,\r\nReference,Worth,Rate,Rank\r\n", text, StringComparison.Ordinal);
+        Assert.StartsWith("Reference,Worth,Rate,Rank\r\n", text, StringComparison.Ordinal);
+        Assert.DoesNotContain("#", text, StringComparison.Ordinal);
+        Assert.DoesNotContain("Estimates, not advice.", text, StringComparison.Ordinal);
         var rows = ReadCsv(bytes, "Reference");
+        Assert.Equal(3, SpreadsheetCells.Read(bytes).Count);
         Assert.Equal(["Reference", "Worth", "Rate", "Rank"], rows[0]);
         Assert.Equal(["P-0001", "-1234.5", "0.0725", "1"], rows[1]);
         Assert.False(rows[2][0].StartsWith('='), "a formula in a title must not reach a spreadsheet as a formula");
         Assert.Equal("", rows[2][1]);
+    }
+
+    [Fact]
+    public void The_notes_are_a_plain_table_of_their_own_beside_their_tables_title()
+    {
+        var rows = SpreadsheetCells.Read(CsvExport.WriteNotes(Sample));
+        Assert.Equal([["Table", "Note"], ["Sample export", "A note"], ["Sample export", "Estimates, not advice."]], rows.Select(r => r.ToArray()));
     }
 
     // Text a person could type into a cycle's name, a proposal's title or an element's label, in the title, the notes,
@@ -50,11 +60,15 @@ public sealed class ExportTests(ApiFactory factory) : IClassFixture<ApiFactory>
     [Fact]
     public void Csv_writes_every_line_title_notes_and_headers_included_through_the_same_quoting_and_formula_escaping()
     {
-        var cells = SpreadsheetCells.Read(CsvExport.Write(Hostile));
-        // Every line is as wide as the table: a comma or line break in a note never makes cells of its own.
-        Assert.All(cells, row => Assert.Equal(2, row.Count));
-        Assert.DoesNotContain(cells.SelectMany(r => r), SpreadsheetCells.MayRunAsFormula);
-        // Each text whole in its first cell; a possible formula behind an apostrophe, which spreadsheets read as "this is text".
+        var notes = SpreadsheetCells.Read(CsvExport.WriteNotes(Hostile));
+        var table = SpreadsheetCells.Read(CsvExport.Write(Hostile));
+        // Every line is as wide as its table: a comma or line break in a note never makes cells of its own.
+        Assert.All(notes.Concat(table), row => Assert.Equal(2, row.Count));
+        Assert.DoesNotContain(notes.Concat(table).SelectMany(r => r), SpreadsheetCells.MayRunAsFormula);
+        // The title beside each note, then the table's header and cells.
+        Assert.All(notes.Skip(1), row => Assert.Equal(notes[1][0], row[0]));
+        List<List<string>> cells = [[notes[1][0]], .. notes.Skip(1).Select(r => new List<string> { r[1] }), .. table];
+        // Each text whole in its cell; a possible formula behind an apostrophe, which spreadsheets read as "this is text".
         Assert.Equal(
             [
                 "'=HYPERLINK(\"https://elsewhere.example\",\"Open\")", "Cycle Hall 3,=1+2,@SUM(A1)", "'+cmd|' /C calc'!A0", "'-2+3", "'@SUM(A1)",
@@ -69,11 +83,14 @@ public sealed class ExportTests(ApiFactory factory) : IClassFixture<ApiFactory>
     {
         using var document = SpreadsheetDocument.Open(new MemoryStream(XlsxExport.Write(Sample)), false);
         WorkbookPart workbook = document.WorkbookPart!;
-        Assert.Equal("Sample export", workbook.Workbook.Descendants<Sheet>().Single().Name!.Value);
-        var rows = workbook.WorksheetParts.Single().Worksheet.Descendants<Row>().ToList();
-        Assert.Equal("Sample export", rows[0].Descendants<Text>().Single().Text);
-        Assert.Equal(["Reference", "Worth", "Rate", "Rank"], rows[4].Descendants<Text>().Select(t => t.Text));
-        var cells = rows[5].Elements<Cell>().ToList();
+        var sheets = workbook.Workbook.Descendants<Sheet>().ToList();
+        Assert.Equal(["Sample export", "Notes"], sheets.Select(s => s.Name!.Value));
+        var rows = ((WorksheetPart)workbook.GetPartById(sheets[0].Id!)).Worksheet.Descendants<Row>().ToList();
+        // A plain table: the header on the first row; the notes on the Notes sheet beside the table's title.
+        Assert.Equal(["Reference", "Worth", "Rate", "Rank"], rows[0].Descendants<Text>().Select(t => t.Text));
+        var notes = ((WorksheetPart)workbook.GetPartById(sheets[1].Id!)).Worksheet.Descendants<Row>().Select(r => r.Descendants<Text>().Select(t => t.Text).ToArray()).ToList();
+        Assert.Equal([["Table", "Note"], ["Sample export", "A note"], ["Sample export", "Estimates, not advice."]], notes);
+        var cells = rows[1].Elements<Cell>().ToList();
         Assert.Equal(CellValues.Number, cells[1].DataType!.Value);
         Assert.Equal(-1234.5, double.Parse(cells[1].CellValue!.Text, CultureInfo.InvariantCulture));
         Assert.Equal(2u, cells[1].StyleIndex!.Value);

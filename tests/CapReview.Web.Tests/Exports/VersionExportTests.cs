@@ -46,7 +46,7 @@ public sealed class VersionExportTests(ApiFactory factory) : IClassFixture<ApiFa
         byte[] workbook = XlsxExport.Write([.. tables.Select(t => t.Table)]);
         using (var document = SpreadsheetDocument.Open(new MemoryStream(workbook), false))
         {
-            Assert.Equal(["Summary", "Elements", "Cash flows", "Discounting"], document.WorkbookPart!.Workbook.Descendants<Sheet>().Select(s => s.Name!.Value));
+            Assert.Equal(["Summary", "Elements", "Cash flows", "Discounting", "Notes"], document.WorkbookPart!.Workbook.Descendants<Sheet>().Select(s => s.Name!.Value));
         }
 
         // The workbook imports through its Elements sheet to the very elements it was made from.

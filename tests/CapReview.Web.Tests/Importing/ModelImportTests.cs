@@ -104,8 +104,8 @@ public sealed class ModelImportTests
         Assert.Equal(-80000.25, preview.Elements[0].Spec.Amount);
         Assert.Equal(0.025, preview.Elements[1].Spec.Growth);
         Assert.Equal(12, preview.Horizon);
-        // Row 1 is the title, 2 the note, 3 blank, 4 the header.
-        Assert.Equal([5, 6], preview.Elements.Select(e => e.Row));
+        // Row 1 is the header: the note is on the Notes sheet.
+        Assert.Equal([2, 3], preview.Elements.Select(e => e.Row));
     }
 
     [Theory]

@@ -83,5 +83,5 @@ public class ModelDraftTests
     [InlineData("rate.value", "MARR")]
     [InlineData("horizon", "Horizon")]
     public void Field_paths_read_as_people_count(string field, string described) =>
-        Assert.Equal(described, FieldNames.Describe(field));
+        Assert.Equal(described, CapReview.Reviews.Display.FieldWording.Describe(field));
 }

@@ -5,9 +5,5 @@ namespace CapReview.Web.Components.Ranking;
 /// <summary>A proposal category as people write it.</summary>
 public static class CategoryNames
 {
-    public static string Of(ProposalCategory category) => category switch
-    {
-        ProposalCategory.CostReduction => "Cost reduction",
-        _ => category.ToString(),
-    };
+    public static string Of(ProposalCategory category) => Reviews.Display.EnumWording.Of(category);
 }
