@@ -142,4 +142,24 @@ public sealed class AdminFormTests(ApiFactory factory) : IClassFixture<ApiFactor
         page.WaitForAssertion(() => Assert.Contains("Form correction now runs", page.Markup, StringComparison.Ordinal));
         Assert.Equal(600_000m, (await factory.Services.GetRequiredService<CycleService>().GetAsync(cycle.Id, CancellationToken.None)).Cycle.CapitalLimit);
     }
+
+    [Fact]
+    public async Task A_person_left_without_a_role_is_refused_at_the_roles_and_keeps_theirs()
+    {
+        var (_, personId) = await factory.TokenClientAsync("form.roles@tarnby.example", CapReview.Web.Identity.RoleNames.Reviewer);
+        using var context = Context();
+        var page = context.Render<AdminUsers>();
+        page.WaitForAssertion(() => page.Find("button[aria-label='Change the roles of form.roles@tarnby.example']"));
+        page.Find("button[aria-label='Change the roles of form.roles@tarnby.example']").Click();
+        // Found again after each change: every change draws the boxes anew.
+        for (int k = 0; k < page.FindAll("fieldset.roles input[type=checkbox]").Count; k++)
+        {
+            page.FindAll("fieldset.roles input[type=checkbox]")[k].Change(false);
+        }
+        Click(page, "Save the roles");
+
+        page.WaitForAssertion(() => Assert.Equal("Roles: choose at least one of the roles.", page.Find("#roles-error").TextContent));
+        var person = (await factory.Services.GetRequiredService<CapReview.Web.Identity.UserAdministration>().ListAsync(Admin, CancellationToken.None)).Single(u => u.Id == personId);
+        Assert.Equal(["Reviewer"], person.Roles);
+    }
 }
