@@ -49,4 +49,39 @@ public sealed class ImportInChromium(BrowserFixture browser) : IClassFixture<Bro
         await page.Locator("[data-testid=interactive]").WaitForAsync(new() { State = WaitForSelectorState.Attached });
         await Assertions.Expect(page.GetByTestId("element-row")).ToHaveCountAsync(4);
     }
+
+    [Fact]
+    public async Task A_semicolon_file_with_decimal_commas_is_previewed_number_by_number_and_an_open_mark_waits_for_a_choice()
+    {
+        IPage page = await browser.SignedInPageAsync("imports.comma@example.test", "Ines Porter", RoleNames.ProjectLead);
+        await page.GotoAsync(browser.App.BaseAddress + "proposals/new");
+        await page.Locator("[data-testid=interactive]").WaitForAsync(new() { State = WaitForSelectorState.Attached });
+
+        await page.Locator("#import-file").SetInputFilesAsync(new FilePayload
+        {
+            Name = "press.csv",
+            MimeType = "text/csv",
+            Buffer = Encoding.UTF8.GetBytes("type;label;category;amount;period;first;last\nsingle;Press;capital;-480000,50;0;;\nuniform;Energy saved;operating;61000,25;;1;8\n"),
+        });
+        await Assertions.Expect(page.GetByTestId("import-format")).ToContainTextAsync("Fields separated by semicolons; numbers read with a decimal comma");
+        var first = page.GetByTestId("import-numbers").Locator("tbody tr").Nth(0);
+        await Assertions.Expect(first).ToContainTextAsync("-480000,50");
+        await Assertions.Expect(first).ToContainTextAsync("\u2212480,000.50");
+        await Assertions.Expect(page.GetByTestId("import-replace")).ToBeEnabledAsync();
+        await BrowserFixture.ScreenshotAsync(page.Locator("section[aria-labelledby=import-heading]"), "import-decimal-comma");
+
+        await page.Locator("#import-file").SetInputFilesAsync(new FilePayload
+        {
+            Name = "open.csv",
+            MimeType = "text/csv",
+            Buffer = Encoding.UTF8.GetBytes("type;label;category;amount;period\nsingle;Press;capital;-1.250;0\n"),
+        });
+        await Assertions.Expect(page.GetByTestId("import-ambiguous")).ToContainTextAsync("row 2: -1.250");
+        await Assertions.Expect(page.GetByTestId("import-replace")).ToBeDisabledAsync();
+        await page.GetByTestId("import-decimal").SelectOptionAsync("Comma");
+        await Assertions.Expect(page.GetByTestId("import-ambiguous")).ToHaveCountAsync(0);
+        await Assertions.Expect(page.GetByTestId("import-numbers").Locator("tbody tr").Nth(0)).ToContainTextAsync("\u22121,250");
+        await page.GetByTestId("import-replace").ClickAsync();
+        await Assertions.Expect(page.GetByTestId("element-row")).ToHaveCountAsync(1);
+    }
 }
