@@ -145,6 +145,26 @@ public sealed class UnsavedWorkInChromium(BrowserFixture browser) : IClassFixtur
     }
 
     [Fact]
+    public async Task Signing_out_clears_the_copy_kept_in_the_browser()
+    {
+        const string email = "guard.signout@tarnby.example";
+        var (page, id) = await EditorAsync(email, "Shared terminal");
+        await page.Locator("#title").FillAsync("Shared terminal, typed before signing out");
+        await Assertions.Expect(page.GetByTestId("unsaved")).ToContainTextAsync("a copy is kept");
+        Answer(page, accept: true);
+        await page.GetByRole(AriaRole.Button, new() { Name = "Sign out" }).ClickAsync();
+        await Assertions.Expect(page.Locator("#email")).ToBeVisibleAsync();
+
+        await page.Locator("#email").FillAsync(email);
+        await page.Locator("#password").FillAsync(AppHost.Password);
+        await page.GetByRole(AriaRole.Button, new() { Name = "Sign in" }).ClickAsync();
+        await Assertions.Expect(page.GetByTestId("signed-in-as")).ToHaveTextAsync(Name);
+        await OpenAsync(page, id);
+        await Assertions.Expect(page.Locator("#title")).ToHaveValueAsync("Shared terminal");
+        await Assertions.Expect(page.GetByTestId("recover-offer")).ToHaveCountAsync(0);
+    }
+
+    [Fact]
     public async Task The_quick_evaluation_asks_before_a_link_leaves_changed_figures()
     {
         IPage page = await browser.SignedInPageAsync("guard.quick@tarnby.example", Name, RoleNames.ProjectLead);
