@@ -9,6 +9,8 @@ namespace CapReview.Web.QuickEvaluation;
 /// </summary>
 public sealed class ElementDraft
 {
+    /// <summary>The row's key for rendering only: not part of the typed work a page keeps or compares.</summary>
+    [System.Text.Json.Serialization.JsonIgnore]
     public Guid Key { get; } = Guid.NewGuid();
 
     /// <summary>The element's stable identity, which risk parameters name; kept from the stored element, new for a new row.</summary>
