@@ -136,7 +136,8 @@ public sealed class WhatIfControlsInChromium(BrowserFixture browser) : IClassFix
         await Assertions.Expect(lead.GetByTestId("editor-message")).ToContainTextAsync("version 2 replaces version 1");
         await Assertions.Expect(lead.GetByTestId("revision-pending")).ToHaveCountAsync(0);
 
-        await board.ReloadAsync();
+        IResponse? reloaded = await board.ReloadAsync();
+        Assert.True(reloaded?.Status == 200, $"the cycle page answered {reloaded?.Status}: {browser.App.Log.Errors()}");
         await board.Locator("[data-testid=interactive]").WaitForAsync(new() { State = WaitForSelectorState.Attached });
         await BrowserFixture.ScreenshotAsync(board, "cycle-after-resubmission");
         await Assertions.Expect(board.GetByTestId("revision-pending")).ToHaveCountAsync(0);
