@@ -136,8 +136,8 @@ public sealed class WhatIfControlsInChromium(BrowserFixture browser) : IClassFix
         await Assertions.Expect(lead.GetByTestId("editor-message")).ToContainTextAsync("version 2 replaces version 1");
         await Assertions.Expect(lead.GetByTestId("revision-pending")).ToHaveCountAsync(0);
 
-        await board.ReloadAsync();
-        await board.Locator("[data-testid=interactive]").WaitForAsync(new() { State = WaitForSelectorState.Attached });
+        // The pages share one browser context, whose cookies now are the lead's: the board member signs in again.
+        board = await BoardPageAsync($"cycles/{cycle}");
         await BrowserFixture.ScreenshotAsync(board, "cycle-after-resubmission");
         await Assertions.Expect(board.GetByTestId("revision-pending")).ToHaveCountAsync(0);
         await Assertions.Expect(board.GetByTestId("cycle-proposals")).ToContainTextAsync("Paint shop extraction with carbon filters v2");
