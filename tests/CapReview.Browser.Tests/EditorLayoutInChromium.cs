@@ -52,7 +52,8 @@ public sealed class EditorLayoutInChromium(BrowserFixture browser) : IClassFixtu
         foreach (string table in new[] { "tornado-table", "spider-table", "scenarios-table" })
         {
             // Not cut off: the table fits the frame it scrolls in, so every column shows without scrolling.
-            var (scroll, client) = await page.GetByTestId(table).EvaluateAsync<(int, int)>("t => [t.parentElement.scrollWidth, t.parentElement.clientWidth]") is var sizes ? sizes : default;
+            int[] sizes = await page.GetByTestId(table).EvaluateAsync<int[]>("t => [t.parentElement.scrollWidth, t.parentElement.clientWidth]");
+            var (scroll, client) = (sizes[0], sizes[1]);
             Assert.True(scroll <= client, $"The {table} is {scroll} px wide in a frame of {client} px.");
         }
     }
