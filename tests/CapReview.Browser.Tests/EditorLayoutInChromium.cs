@@ -38,6 +38,8 @@ public sealed class EditorLayoutInChromium(BrowserFixture browser) : IClassFixtu
     {
         IPage page = await SolarAsync(1280, 900);
         await BrowserFixture.ScreenshotAsync(page, "editor-1280");
+        await BrowserFixture.ScreenshotAsync(page.Locator("section[aria-labelledby=elements-heading]"), "editor-elements-1280");
+        await BrowserFixture.ScreenshotAsync(page.Locator("section[aria-labelledby=risk-heading]"), "editor-risk-1280");
         int rows = await page.GetByTestId("element-row").CountAsync();
         for (int e = 0; e < rows; e++)
         {
@@ -63,6 +65,7 @@ public sealed class EditorLayoutInChromium(BrowserFixture browser) : IClassFixtu
     {
         IPage page = await SolarAsync(390, 844);
         await BrowserFixture.ScreenshotAsync(page, "editor-390");
+        await BrowserFixture.ScreenshotAsync(page.Locator("section[aria-labelledby=elements-heading]"), "editor-elements-390");
         foreach (string table in new[] { "table.element-grid", "[data-testid=risk-parameters]", "[data-testid=spider-table]" })
         {
             var frame = page.Locator(table).Locator("xpath=..");
