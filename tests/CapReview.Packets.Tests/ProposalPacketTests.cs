@@ -223,6 +223,35 @@ public sealed class SamplePacketFiles
     }
 }
 
+/// <summary>A version whose most likely value is not the model's: the packet says so beside the risk figures.</summary>
+public sealed class RiskDriftPacketTests
+{
+    private static string Text(byte[] packet)
+    {
+        using var pdf = UglyToad.PdfPig.PdfDocument.Open(packet);
+        return string.Join("\n", pdf.GetPages().Select(p => UglyToad.PdfPig.DocumentLayoutAnalysis.TextExtractor.ContentOrderTextExtractor.GetText(p))).Replace("\n", " ", StringComparison.Ordinal);
+    }
+
+    private static Engine.Specifications.RiskSpec Labour(double mostLikely) => new()
+    {
+        Seed = 7,
+        Trials = 500,
+        Parameters = [new Engine.Specifications.ParameterSpec { Name = "Labour saved", Target = "elements[1].amount", Low = 100_000, MostLikely = mostLikely, High = 150_000 }],
+    };
+
+    [Fact]
+    public void A_most_likely_value_apart_from_the_model_is_named_in_the_packet_and_one_that_follows_is_not()
+    {
+        // The sample's second element saves 137,000 a year; a most likely value of 120,000 centres the figures elsewhere.
+        string apart = Text(PacketRenderer.Proposal(PacketSamples.ProposalData(risk: Labour(120_000)), PacketSamples.Certificate));
+        string following = Text(PacketRenderer.Proposal(PacketSamples.ProposalData(risk: Labour(137_000)), PacketSamples.Certificate));
+
+        Assert.Contains("Most likely values apart from the model", apart, StringComparison.Ordinal);
+        Assert.Contains("Labour saved: most likely 120,000, the model's value 137,000.", apart, StringComparison.Ordinal);
+        Assert.DoesNotContain("Most likely values apart from the model", following, StringComparison.Ordinal);
+    }
+}
+
 public sealed class CyclePacketTests
 {
     [Fact]

@@ -242,11 +242,18 @@ internal static class ProposalSections
         var (bars, basis) = (sensitivity.Tornado, sensitivity.Basis);
         TableWriter.Draw(flow, [new("Parameter", 2.4), new("Input", 1.8), new("Low", 1.1, true), new("Most likely", 1.1, true), new("High", 1.1, true), new("Distribution", 1.2)],
             settings.Parameters.Select(p => new TableRow([p.Name, RiskInputs.Label(p.Target, prepared.Proposal.Model, prepared.Proposal.Tax), Value(p.Low), Value(p.MostLikely), Value(p.High), EnumWording.Of(p.Distribution)])));
+        if (prepared.Drifts.Count > 0)
+        {
+            // The figures centre on the most likely values: a board member must see when those are not the model's.
+            flow.Note("Most likely values apart from the model", string.Join(" ", prepared.Drifts.Select(d =>
+                $"{d.Parameter.Name}: most likely {Shown(d.Parameter.Target, d.Parameter.MostLikely)}, the model's value {Shown(d.Parameter.Target, d.Current)}.")), PacketStyle.Amber);
+        }
         flow.Figure(Math.Max(90, 34 + 26 * bars.Count), (g, area) => Charts.TornadoDrawing.Draw(g, area, bars, basis, f),
             $"Tornado: present worth with each parameter at its low (red-brown) and high (green) value, the others at most likely ({f.Money(basis)} {f.CurrencyCode}).");
         var result = simulation.Detail;
         // Amounts to whole units; rates and other small values to four decimals.
         string Value(double v) => Math.Abs(v) >= 100 ? f.Number(v, 0) : f.Number(v, 4);
+        string Shown(string target, double v) => RiskUnits.IsRate(target) ? f.Percent(v) : Value(v);
         flow.Figure(190, (g, area) => Charts.DistributionDrawing.Draw(g, area, result, f),
             $"Present worth in {result.Trials.ToString("N0", f.Culture)} trials with seed {result.Seed}; the same seed and trial count give the same figures.");
         flow.Pairs(

@@ -54,6 +54,11 @@ public static class ProposalRisk
         {
             return Outcome.Failure<RiskStudy>([new("risk.parameters", "Name at least one uncertain parameter.")]);
         }
+        var range = ParameterRange.Check(proposal, read.Value.Parameters);
+        if (range.Count > 0)
+        {
+            return Outcome.Failure<RiskStudy>(range);
+        }
         return Outcome.Success(new RiskStudy(proposal, read.Value));
     }
 

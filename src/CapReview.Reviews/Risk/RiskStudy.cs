@@ -13,4 +13,7 @@ public sealed record RiskStudy(ProposalCase Proposal, RiskSettings Settings)
 {
     /// <summary>True when the figures are the after-tax ones.</summary>
     public bool AfterTax => Proposal.Tax is not null;
+
+    /// <summary>The parameters whose most likely value is not their input's value in the model: every face that shows the figures says so.</summary>
+    public IReadOnlyList<ParameterDrift> Drifts { get; } = ParameterFollowing.Drifts(Proposal, Settings.Parameters);
 }

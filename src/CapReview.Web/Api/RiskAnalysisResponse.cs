@@ -11,6 +11,7 @@ namespace CapReview.Web.Api;
 /// <param name="BreakEven">Each parameter's value at which present worth is zero (null when none nearby).</param>
 /// <param name="Scenarios">Pessimistic, most likely, optimistic and the named scenarios.</param>
 /// <param name="Simulation">The Monte Carlo summary, reproducible from its seed and trials.</param>
+/// <param name="DiffersFromModel">The parameters whose most likely value is not their input's value in the model.</param>
 public sealed record RiskAnalysisResponse(
     bool AfterTax,
     string Measure,
@@ -19,7 +20,8 @@ public sealed record RiskAnalysisResponse(
     IReadOnlyList<SpiderLineResponse> Spider,
     IReadOnlyList<BreakEvenResponse> BreakEven,
     IReadOnlyList<ScenarioResponse> Scenarios,
-    SimulationResponse Simulation)
+    SimulationResponse Simulation,
+    IReadOnlyList<ParameterDriftResponse> DiffersFromModel)
 {
     public static RiskAnalysisResponse From(RiskStudy study, SensitivityResult sensitivity, SimulationSummary simulation)
     {
@@ -34,7 +36,8 @@ public sealed record RiskAnalysisResponse(
             [.. sensitivity.Spider.Select(l => new SpiderLineResponse(l.Parameter.Name, [.. l.Points.Select(p => p.Change)], [.. l.Points.Select(p => Finite(p.Measure))]))],
             [.. sensitivity.BreakEvens.Select(b => new BreakEvenResponse(b.Parameter.Name, b.Parameter.Target, b.Value is double v ? Finite(v) : null))],
             [.. sensitivity.Scenarios.Select(s => new ScenarioResponse(s.Name, Finite(s.PresentWorth), Finite(s.AnnualWorth)))],
-            SimulationResponse.From(simulation));
+            SimulationResponse.From(simulation),
+            [.. study.Drifts.Select(d => new ParameterDriftResponse(d.Parameter.Name, d.Parameter.Target, d.Parameter.MostLikely, d.Current, d.Difference))]);
     }
 
     /// <summary>A figure as JSON can carry it: null where a move of the inputs made no valid model (NaN or infinite).</summary>

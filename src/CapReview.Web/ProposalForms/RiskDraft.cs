@@ -2,6 +2,7 @@ using System.Globalization;
 using CapReview.Engine.Risk;
 using CapReview.Engine.Specifications;
 using CapReview.Engine.Validation;
+using CapReview.Reviews.Risk;
 
 namespace CapReview.Web.ProposalForms;
 
@@ -22,6 +23,13 @@ public sealed class ParameterDraft
 
     /// <summary>For a discrete parameter: "value : probability" pairs separated by semicolons.</summary>
     public string Outcomes { get; set; } = "";
+
+    /// <summary>Low, most likely and high from their stored values (rates as fractions), as a person types them.</summary>
+    public void SetValues(double? low, double? mostLikely, double? high, CultureInfo culture)
+    {
+        string Typed(double? v) => v is double d ? Math.Round(RiskUnits.Entered(Target, d), 10).ToString("0.##########", culture) : "";
+        (Low, MostLikely, High) = (Typed(low), Typed(mostLikely), Typed(high));
+    }
 }
 
 /// <summary>A named scenario as typed: its name and a value for each parameter it sets (blank: most likely).</summary>
@@ -42,7 +50,11 @@ public sealed class CorrelationDraft
     public string Coefficient { get; set; } = "0.5";
 }
 
-/// <summary>The risk analysis as a lead types it: the parameters, their correlations, the trials and the seed.</summary>
+/// <summary>
+/// The risk analysis as a lead types it: the parameters, their correlations, the trials and the seed. Values of a
+/// rate (the MARR, a growth, …) are typed in percent, as everywhere else on the page; <see cref="RiskUnits"/> says
+/// which inputs are rates, and the stored form holds fractions.
+/// </summary>
 public sealed class RiskDraft
 {
     public List<ParameterDraft> Parameters { get; } = [];
@@ -63,16 +75,14 @@ public sealed class RiskDraft
             return draft;
         }
         string Number(double? v) => v?.ToString("0.############", culture) ?? "";
-        draft.Parameters.AddRange((spec.Parameters ?? []).Where(p => p is not null).Select(p => new ParameterDraft
+        draft.Parameters.AddRange((spec.Parameters ?? []).Where(p => p is not null).Select(p =>
         {
-            Name = p!.Name ?? "",
-            Target = p.Target ?? "",
-            Low = Number(p.Low),
-            MostLikely = Number(p.MostLikely),
-            High = Number(p.High),
-            Distribution = p.Distribution ?? DistributionKind.Triangular,
-            Outcomes = string.Join("; ", (p.Outcomes ?? []).Select(o => $"{Number(o.Value)} : {Number(o.Probability)}")),
+            var parameter = new ParameterDraft { Name = p!.Name ?? "", Target = p.Target ?? "", Distribution = p.Distribution ?? DistributionKind.Triangular };
+            parameter.SetValues(p.Low, p.MostLikely, p.High, culture);
+            parameter.Outcomes = string.Join("; ", (p.Outcomes ?? []).Select(o => $"{Number(RiskUnits.Entered(p.Target, o.Value))} : {Number(o.Probability)}"));
+            return parameter;
         }));
+        string TargetOf(string name) => spec.Parameters?.FirstOrDefault(p => p?.Name == name)?.Target ?? "";
         foreach (ScenarioSpec? scenario in spec.Scenarios ?? [])
         {
             if (scenario is null)
@@ -82,7 +92,7 @@ public sealed class RiskDraft
             var s = new ScenarioDraft { Name = scenario.Name ?? "" };
             foreach (var (name, value) in scenario.Values ?? new Dictionary<string, double>())
             {
-                s.Values[name] = Number(value);
+                s.Values[name] = Number(RiskUnits.Entered(TargetOf(name), value));
             }
             draft.Scenarios.Add(s);
         }
@@ -118,7 +128,9 @@ public sealed class RiskDraft
             errors.Add(new(field, $"“{text.Trim()}” is not a whole number."));
             return null;
         }
-        List<DiscreteOutcome> Outcomes(string text, string field)
+        double? Value(string text, string field, string target) => Number(text, field) is double v ? RiskUnits.Stored(target, v) : null;
+        string TargetOf(string name) => Parameters.FirstOrDefault(p => p.Name == name)?.Target ?? "";
+        List<DiscreteOutcome> Outcomes(string text, string field, string target)
         {
             var outcomes = new List<DiscreteOutcome>();
             foreach (string pair in text.Split(';', StringSplitOptions.RemoveEmptyEntries | StringSplitOptions.TrimEntries))
@@ -129,7 +141,7 @@ public sealed class RiskDraft
                     errors.Add(new(field, $"“{pair}” is not value : probability."));
                     continue;
                 }
-                outcomes.Add(new DiscreteOutcome(Number(parts[0], field) ?? 0, Number(parts[1], field) ?? 0));
+                outcomes.Add(new DiscreteOutcome(Value(parts[0], field, target) ?? 0, Number(parts[1], field) ?? 0));
             }
             return outcomes;
         }
@@ -139,17 +151,17 @@ public sealed class RiskDraft
             {
                 Name = p.Name,
                 Target = p.Target,
-                Low = Number(p.Low, $"risk.parameters[{k}].low"),
-                MostLikely = Number(p.MostLikely, $"risk.parameters[{k}].mostLikely"),
-                High = Number(p.High, $"risk.parameters[{k}].high"),
+                Low = Value(p.Low, $"risk.parameters[{k}].low", p.Target),
+                MostLikely = Value(p.MostLikely, $"risk.parameters[{k}].mostLikely", p.Target),
+                High = Value(p.High, $"risk.parameters[{k}].high", p.Target),
                 Distribution = p.Distribution,
-                Outcomes = p.Distribution == DistributionKind.Discrete ? Outcomes(p.Outcomes, $"risk.parameters[{k}].outcomes") : null,
+                Outcomes = p.Distribution == DistributionKind.Discrete ? Outcomes(p.Outcomes, $"risk.parameters[{k}].outcomes", p.Target) : null,
             })],
             Scenarios = Scenarios.Count == 0 ? null : [.. Scenarios.Select((s, k) => new ScenarioSpec
             {
                 Name = s.Name,
                 Values = s.Values.Where(v => v.Value.Trim().Length > 0)
-                    .ToDictionary(v => v.Key, v => Number(v.Value, $"risk.scenarios[{k}].values") ?? 0, StringComparer.Ordinal),
+                    .ToDictionary(v => v.Key, v => Value(v.Value, $"risk.scenarios[{k}].values", TargetOf(v.Key)) ?? 0, StringComparer.Ordinal),
             })],
             Correlations = Correlations.Count == 0 ? null
                 : [.. Correlations.Select((c, k) => new Correlation(c.First, c.Second, Number(c.Coefficient, $"risk.correlations[{k}].coefficient") ?? 0))],

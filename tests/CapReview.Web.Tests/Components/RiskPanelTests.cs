@@ -60,5 +60,59 @@ public sealed class RiskPanelTests : IDisposable
         Assert.NotEmpty(panel.FindAll("[data-testid=simulation-summary]"));
     }
 
+    private static ModelSpec PlantSaving(double saving) => Plant with
+    {
+        Elements = [Plant.Elements![0], Plant.Elements[1]! with { Id = "saving", Amount = saving }],
+    };
+
+    [Fact]
+    public void Picking_the_marr_prefills_percent_as_the_rest_of_the_page()
+    {
+        var draft = new RiskDraft();
+        draft.Parameters.Add(new ParameterDraft { Name = "MARR" });
+        var panel = _context.Render<RiskPanel>(p => p.Add(x => x.Actor, Lead).Add(x => x.Draft, draft).Add(x => x.Model, Plant));
+        panel.Find("#risk-target-0").Change("rate");
+        // The plant's MARR is 10 %: typed as 10, a fifth either side 8 and 12 (not 0.1, 0.08 and 0.12).
+        Assert.Equal(("8", "10", "12"), (draft.Parameters[0].Low, draft.Parameters[0].MostLikely, draft.Parameters[0].High));
+        panel.WaitForAssertion(() => Assert.Single(panel.FindAll("[data-testid=tornado-table] tbody tr")));
+        Assert.Contains("%", panel.Find("#risk-likely-0").Parent!.TextContent, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void A_life_that_the_elements_outrun_gets_its_message_at_the_low_value_in_words()
+    {
+        var draft = new RiskDraft();
+        draft.Parameters.Add(new ParameterDraft { Name = "Life", Target = "horizon", Low = "8", MostLikely = "10", High = "12" });
+        var panel = _context.Render<RiskPanel>(p => p.Add(x => x.Actor, Lead).Add(x => x.Draft, draft).Add(x => x.Model, Plant));
+        panel.WaitForAssertion(() => Assert.StartsWith("Low: at 8 the model cannot be evaluated", panel.Find("#risk-low-0-error").TextContent, StringComparison.Ordinal));
+        Assert.Equal("true", panel.Find("#risk-low-0").GetAttribute("aria-invalid"));
+        Assert.DoesNotContain("risk.parameters", panel.Find("[data-testid=risk-errors]").TextContent, StringComparison.Ordinal);
+        Assert.Empty(panel.FindAll("[data-testid=tornado-table]"));
+    }
+
+    [Fact]
+    public void Editing_the_element_moves_a_parameter_that_followed_it_before_the_tornado_uses_it()
+    {
+        var draft = new RiskDraft();
+        draft.Parameters.Add(new ParameterDraft { Name = "Saving", Target = "elements[#saving].amount", Low = "50000", MostLikely = "70000", High = "90000" });
+        var panel = _context.Render<RiskPanel>(p => p.Add(x => x.Actor, Lead).Add(x => x.Draft, draft).Add(x => x.Model, PlantSaving(70_000)));
+        panel.Render(p => p.Add(x => x.Model, PlantSaving(80_000)));
+        Assert.Equal(("60000", "80000", "100000"), (draft.Parameters[0].Low, draft.Parameters[0].MostLikely, draft.Parameters[0].High));
+        // At 60,000 and 100,000 a year: PW = −400,000 + saving × (P/A, 10 %, 10), (P/A) = 6.144567.
+        panel.WaitForAssertion(() => Assert.Contains("-31,326", panel.Find("[data-testid=tornado-table]").TextContent.Replace('−', '-'), StringComparison.Ordinal));
+        Assert.Empty(panel.FindAll("[data-testid^=risk-drift]"));
+    }
+
+    [Fact]
+    public void A_parameter_set_apart_from_its_element_says_by_how_much_it_differs()
+    {
+        var draft = new RiskDraft();
+        draft.Parameters.Add(new ParameterDraft { Name = "Saving", Target = "elements[#saving].amount", Low = "50000", MostLikely = "65000", High = "90000" });
+        var panel = _context.Render<RiskPanel>(p => p.Add(x => x.Actor, Lead).Add(x => x.Draft, draft).Add(x => x.Model, PlantSaving(70_000)));
+        panel.Render(p => p.Add(x => x.Model, PlantSaving(80_000)));
+        Assert.Equal("65000", draft.Parameters[0].MostLikely);
+        panel.WaitForAssertion(() => Assert.Contains("differs from the model's value now, 80,000.00, by -15,000.00", panel.Find("[data-testid=risk-drift-0]").TextContent.Replace('−', '-'), StringComparison.Ordinal));
+    }
+
     public void Dispose() => _context.Dispose();
 }
