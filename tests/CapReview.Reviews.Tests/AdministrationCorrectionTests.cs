@@ -92,7 +92,7 @@ public sealed class AdministrationCorrectionTests(ReviewsDatabase db) : IClassFi
         Assert.Contains("capital limit", zero.Message);
         var huge = await Assert.ThrowsAsync<RuleViolationException>(() =>
             db.Cycles.CorrectAsync(Admin, cycle.Id, new CycleCorrection(10_000_000_000_000_000m, cycle.OpensOn, cycle.ClosesOn), cycle.Revision, None));
-        Assert.StartsWith("capitalLimit: the capital limit must be less than", huge.Message, StringComparison.Ordinal);
+        Assert.StartsWith("Capital limit: the capital limit must be less than", huge.Message, StringComparison.Ordinal);
         await Assert.ThrowsAsync<RuleViolationException>(() =>
             db.Cycles.CorrectAsync(Admin, cycle.Id, new CycleCorrection(500_000m, new DateOnly(2027, 5, 1), new DateOnly(2027, 4, 1)), cycle.Revision, None));
         await Assert.ThrowsAsync<AccessDeniedException>(() =>
@@ -155,7 +155,8 @@ public sealed class AdministrationCorrectionTests(ReviewsDatabase db) : IClassFi
     {
         var search = db.Get<AuditSearch>();
         var order = await Assert.ThrowsAsync<RuleViolationException>(() => search.SearchAsync(Admin, new AuditFilter(From: new DateOnly(2027, 2, 1), To: new DateOnly(2027, 1, 1)), 10, None));
-        Assert.StartsWith("to:", order.Message);
+        Assert.Equal("to", order.Field);
+        Assert.StartsWith("To: ", order.Message, StringComparison.Ordinal);
         var unknown = await Assert.ThrowsAsync<RuleViolationException>(() => search.SearchAsync(Admin, new AuditFilter(ProposalReference: "P-1999-999"), 10, None));
         Assert.Contains("P-1999-999", unknown.Message);
         await Assert.ThrowsAsync<AccessDeniedException>(() => search.SearchAsync(Reviewer, new AuditFilter(), 10, None));

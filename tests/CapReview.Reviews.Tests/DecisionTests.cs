@@ -107,7 +107,8 @@ public sealed class DecisionTests(ReviewsDatabase db) : IClassFixture<ReviewsDat
     {
         // PostgreSQL refuses U+0000 in text (common practice, no source; found by the draft fuzzer on PostgreSQL).
         var refused = await Assert.ThrowsAsync<RuleViolationException>(() => db.Proposals.CreateDraftAsync(Lead, Draft(title: "Kiln\0burner"), None));
-        Assert.StartsWith("title:", refused.Message, StringComparison.Ordinal);
+        Assert.Equal("title", refused.Field);
+        Assert.StartsWith("Title: ", refused.Message, StringComparison.Ordinal);
         await using var context = db.NewContext();
         Assert.False(await context.Proposals.AnyAsync(p => p.Title.StartsWith("Kiln")));
     }

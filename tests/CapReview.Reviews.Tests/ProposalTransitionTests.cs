@@ -306,7 +306,7 @@ public sealed class ProposalTransitionTests
         var edit = Assert.Throws<RuleViolationException>(() => proposal.EditDraft(Lead, Draft(firstCost: -160_000), At, cycle.Status));
         Assert.Equal("A proposal that is approved in a decided cycle cannot be edited.", edit.Message);
         var submit = Assert.Throws<RuleViolationException>(() => proposal.Submit(Lead, cycle, At));
-        Assert.Equal("cycleId: the cycle Capital plan 2027 no longer takes proposals.", submit.Message);
+        Assert.Equal("Cycle: the cycle Capital plan 2027 no longer takes proposals.", submit.Message);
         Assert.Equal(ProposalStatus.Approved, proposal.Status);
         Assert.False(proposal.Latest.IsFrozen);
     }

@@ -181,6 +181,7 @@ public static partial class FieldWording
         "valueAtStudyEnd" => "value at the end of the study period",
         "marrOverride" => "the proposal's own MARR",
         "capitalLimit" => "capital limit",
+        "marrPolicyVersionId" => "MARR version",
         "cycleId" => "cycle",
         "proposalIds" => "proposals",
         "proposalId" => "proposal",

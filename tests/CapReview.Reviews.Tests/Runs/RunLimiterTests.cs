@@ -62,7 +62,7 @@ public sealed class RunLimiterTests
         // 50,000 trials × 11 periods × 2 elements = 1,100,000 units (the budget's own unit, no source needed).
         Assert.Equal(1_100_000, RiskRuns.Work(study, 50_000));
         var refused = await Assert.ThrowsAsync<RuleViolationException>(() => runs.SimulateAsync(Ada, study, null, CancellationToken.None));
-        Assert.Equal("risk.trials: 50,000 trials of 11 periods and 2 elements is 1,100,000 units of work (trials × periods × elements); one run may do at most 1,000,000. Run fewer trials.", refused.Message);
+        Assert.Equal("Trials: 50,000 trials of 11 periods and 2 elements is 1,100,000 units of work (trials × periods × elements); one run may do at most 1,000,000. Run fewer trials.", refused.Message);
         Assert.Equal(0, limiter.Running);
         // Within the budget it runs, and gives its place back when done.
         var smaller = study with { Settings = study.Settings with { Trials = 40_000 } };

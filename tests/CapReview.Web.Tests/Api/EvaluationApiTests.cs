@@ -222,13 +222,14 @@ public sealed class EvaluationApiTests(ApiFactory factory) : IClassFixture<ApiFa
             .Select(o => o.Value.TryGetProperty("operationId", out var op) ? op.GetString() : o.Name + "?").Order(StringComparer.Ordinal).ToList();
         Assert.Equal(
         [
-            "AddComment", "AddContingency", "AddMarrPolicy", "CreateCycle", "CreateEvaluation", "CreateProposal",
-            "CreateRiskAnalysis", "DownloadPacket", "EditDraftVersion", "ExportCycle", "ExportSignedCycle", "GetCycle", "GetCyclePortfolio",
-            "GetCycleRanking", "GetPacketJob", "GetPortfolioRules", "GetProposal", "GetProposalVersion",
-            "GetVersionIncrementalAnalysis", "GetVersionReplacementAnalysis", "ImportCycle", "ListComments", "ListCyclePackets",
-            "ListCycles", "ListDecisions", "ListMarrPolicies", "ListProposals", "ListSignOffs", "MoveCycle", "RecordDecision",
-            "RemoveContingency", "RemoveExclusiveGroup", "RequestPackets", "ReviseProposal", "SaveExclusiveGroup",
-            "SetCyclePlan", "SignOffCycle", "SubmitProposal", "WithdrawProposal",
+            "AddComment", "AddContingency", "AddMarrPolicy", "ApprovePortfolio", "CorrectCycle", "CreateCycle", "CreateEvaluation",
+            "CreateProposal", "CreateRiskAnalysis", "DownloadPacket", "EditDraftVersion", "ExportAuditEvents", "ExportCycle",
+            "ExportSignedCycle", "GetCycle", "GetCyclePortfolio", "GetCycleRanking", "GetPacketJob", "GetPortfolioRules", "GetProposal",
+            "GetProposalVersion", "GetVersionIncrementalAnalysis", "GetVersionReplacementAnalysis", "ImportCycle", "ListAuditEvents",
+            "ListComments", "ListCyclePackets", "ListCycles", "ListDecisions", "ListMarrPolicies", "ListPortfolioApprovals",
+            "ListProposals", "ListSignOffs", "ListUsers", "MoveCycle", "RecordDecision", "RemoveContingency", "RemoveExclusiveGroup",
+            "RequestPackets", "RetireMarrPolicy", "ReviseProposal", "SaveExclusiveGroup", "SetCyclePlan", "SetUserRoles",
+            "SignOffCycle", "SubmitProposal", "WithdrawProposal",
         ], operations);
     }
 

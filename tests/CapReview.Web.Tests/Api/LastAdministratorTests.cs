@@ -18,7 +18,7 @@ public sealed class LastAdministratorTests(ApiFactory factory) : IClassFixture<A
         {
             Assert.Equal(HttpStatusCode.BadRequest, refused.StatusCode);
             using JsonDocument problem = JsonDocument.Parse(await refused.Content.ReadAsStringAsync());
-            Assert.Equal("roles: only.admin@tarnby.example is the last administrator; make someone else an administrator first.",
+            Assert.Equal("Roles: only.admin@tarnby.example is the last administrator; make someone else an administrator first.",
                 problem.RootElement.GetProperty("errors").GetProperty("roles")[0].GetString());
         }
 

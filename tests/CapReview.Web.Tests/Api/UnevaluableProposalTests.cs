@@ -53,7 +53,8 @@ public sealed class UnevaluableProposalTests(ApiFactory factory) : IClassFixture
         var lead = Actor.Of("edge-lead", "Edge Lead", Role.ProjectLead);
         var refused = await Assert.ThrowsAsync<CapReview.Reviews.Common.RuleViolationException>(() =>
             factory.Services.GetRequiredService<ProposalService>().CreateDraftAsync(lead, Dam(-0.9999999), CancellationToken.None));
-        Assert.StartsWith("marrOverride.rate.value: ", refused.Message, StringComparison.Ordinal);
+        Assert.Equal("marrOverride.rate.value", refused.Field);
+        Assert.StartsWith("The proposal's own MARR, rate: ", refused.Message, StringComparison.Ordinal);
         Assert.Contains("−40%", refused.Message, StringComparison.Ordinal);
     }
 

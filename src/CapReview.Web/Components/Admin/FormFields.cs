@@ -43,15 +43,16 @@ public sealed class FormFields(CultureInfo culture)
     }
 
     /// <summary>
-    /// Places a domain refusal ("capitalLimit: the capital limit must be above zero.") at the field it names, in the
+    /// Places a domain refusal (its <see cref="RuleViolationException.Field"/>, e.g. capitalLimit) at the field it names, in the
     /// field's own words, and returns true; returns false for a refusal that names no field of this form.
     /// </summary>
     public bool Place(ReviewException refusal, IReadOnlyDictionary<string, string> domainFields)
     {
         ArgumentNullException.ThrowIfNull(refusal);
         ArgumentNullException.ThrowIfNull(domainFields);
+        // The domain keeps the field a refusal names beside its message, which already reads in words ("Capital limit: …").
         int colon = refusal.Message.IndexOf(": ", StringComparison.Ordinal);
-        if (colon <= 0 || !domainFields.TryGetValue(refusal.Message[..colon], out string? field))
+        if (refusal is not RuleViolationException { Field: { } named } || colon <= 0 || !domainFields.TryGetValue(named, out string? field))
         {
             return false;
         }
