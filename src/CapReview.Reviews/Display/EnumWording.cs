@@ -1,5 +1,6 @@
 using CapReview.Engine.CashFlows;
 using CapReview.Engine.Inflation;
+using CapReview.Engine.Measures;
 using CapReview.Engine.Risk;
 using CapReview.Engine.Specifications;
 using CapReview.Reviews.Proposals;
@@ -54,6 +55,25 @@ public static class EnumWording
         DistributionKind.Normal => "Normal",
         DistributionKind.Lognormal => "Lognormal",
         _ => "Discrete",
+    };
+
+    public static string Of(ProposalStatus status) => status switch
+    {
+        ProposalStatus.Draft => "Draft",
+        ProposalStatus.Submitted => "Submitted",
+        ProposalStatus.InReview => "In review",
+        ProposalStatus.Approved => "Approved",
+        ProposalStatus.ReturnedForChanges => "Returned for changes",
+        ProposalStatus.Rejected => "Rejected",
+        _ => "Withdrawn",
+    };
+
+    /// <summary>A rate of return the figures cannot give as one number, in words: "none" or "several rates".</summary>
+    public static string Of(RateOfReturnKind kind) => kind switch
+    {
+        RateOfReturnKind.None => "none",
+        RateOfReturnKind.Several => "several rates",
+        _ => "one rate",
     };
 
     public static string Of(MoneyBasis money) => money == MoneyBasis.Constant ? "Constant money" : "Actual money";

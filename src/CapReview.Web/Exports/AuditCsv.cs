@@ -18,7 +18,7 @@ public static class AuditCsv
         Injection = CsvInjection.Escape,
     };
 
-    public static readonly string[] Headers = ["Event", "When (UTC)", "Who", "What", "Item", "Proposal", "Before", "After", "Hash"];
+    public static readonly string[] Headers = ["Event", "When (UTC)", "Who", "What", "Item", "Proposal", "Before", "After", "Hash", "Action"];
 
     public static byte[] Write(IEnumerable<AuditRow> rows)
     {
@@ -36,12 +36,13 @@ public static class AuditCsv
                 csv.WriteField(row.Id.ToString(CultureInfo.InvariantCulture));
                 csv.WriteField(row.At.UtcDateTime.ToString("yyyy-MM-dd HH:mm:ss", CultureInfo.InvariantCulture));
                 csv.WriteField(row.Person);
-                csv.WriteField(row.Action);
+                csv.WriteField(AuditWording.Of(row.Action));
                 csv.WriteField(row.Item);
                 csv.WriteField(row.ProposalReference ?? "");
                 csv.WriteField(row.Before ?? "");
                 csv.WriteField(row.After ?? "");
                 csv.WriteField(row.Hash);
+                csv.WriteField(row.Action);
                 csv.EndRecord();
             }
         }

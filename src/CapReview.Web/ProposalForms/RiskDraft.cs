@@ -102,12 +102,17 @@ public sealed class RiskDraft
         return draft;
     }
 
-    /// <summary>The stored form, null when no parameter is set, with the fields that did not parse.</summary>
+    /// <summary>
+    /// The stored form, null when nothing is set, with the fields that did not parse. Correlations or scenarios left
+    /// without any parameter are refused rather than dropped: saving must not lose what the lead typed.
+    /// </summary>
     public (RiskSpec? Spec, IReadOnlyList<InputError> Errors) Read(CultureInfo culture)
     {
         if (Parameters.Count == 0)
         {
-            return (null, []);
+            List<InputError> orphans = [.. Correlations.Select((_, k) => new InputError($"risk.correlations[{k}]", "a correlation joins two parameters: add them, or remove the correlation.")),
+                .. Scenarios.Select((_, k) => new InputError($"risk.scenarios[{k}]", "a scenario sets parameters' values: add a parameter, or remove the scenario."))];
+            return (null, orphans);
         }
         var errors = new List<InputError>();
         double? Number(string text, string field)

@@ -1,4 +1,5 @@
 using CapReview.Engine.CashFlows;
+using CapReview.Engine.Measures;
 using CapReview.Engine.Risk;
 using CapReview.Engine.Specifications;
 using CapReview.Reviews.Common;
@@ -63,5 +64,8 @@ public sealed class FieldWordingTests
         Assert.Equal("PERT", EnumWording.Of(DistributionKind.Pert));
         Assert.Equal("Geometric gradient", EnumWording.FromStored("type", "geometric"));
         Assert.Equal("Uniform", EnumWording.FromStored("distribution", "uniform"));
+        Assert.Equal("Returned for changes", EnumWording.Of(ProposalStatus.ReturnedForChanges));
+        Assert.Equal("In review", EnumWording.Of(ProposalStatus.InReview));
+        Assert.Equal("several rates", EnumWording.Of(RateOfReturnKind.Several));
     }
 }

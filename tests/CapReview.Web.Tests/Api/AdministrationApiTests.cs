@@ -106,10 +106,12 @@ public sealed class AdministrationApiTests(ApiFactory factory) : IClassFixture<A
         Assert.Equal("text/csv", csv.Content.Headers.ContentType!.MediaType);
         string text = Encoding.UTF8.GetString(await csv.Content.ReadAsByteArrayAsync()).TrimStart('\uFEFF');
         string[] lines = text.Split("\r\n", StringSplitOptions.RemoveEmptyEntries);
-        Assert.Equal("Event,When (UTC),Who,What,Item,Proposal,Before,After,Hash", lines[0]);
+        Assert.Equal("Event,When (UTC),Who,What,Item,Proposal,Before,After,Hash,Action", lines[0]);
         Assert.Equal(3, lines.Length);
         Assert.DoesNotContain(lines, l => l.StartsWith('#'));
-        Assert.Contains($",cycle-lead,proposal.created,{proposal.Reference} Trail press,{proposal.Reference},", lines[2], StringComparison.Ordinal);
+        // What happened in words for people; the stored action last, for programs.
+        Assert.Contains($",cycle-lead,Proposal created,{proposal.Reference} Trail press,{proposal.Reference},", lines[2], StringComparison.Ordinal);
+        Assert.EndsWith(",proposal.created", lines[2], StringComparison.Ordinal);
 
         using var badDay = await admin.GetAsync("/api/v1/audit-events?from=2027-13-01");
         Assert.Equal(HttpStatusCode.BadRequest, badDay.StatusCode);

@@ -29,6 +29,20 @@ public class RiskDraftTests
     }
 
     [Fact]
+    public void Scenarios_and_correlations_left_without_a_parameter_are_refused_not_dropped()
+    {
+        // Found by the editor's random walk: saving with every parameter removed silently lost the lead's scenarios.
+        var draft = new RiskDraft();
+        draft.Scenarios.Add(new ScenarioDraft { Name = "Market collapses" });
+        draft.Correlations.Add(new CorrelationDraft { First = "Output", Second = "MARR", Coefficient = "0.4" });
+        var (spec, errors) = draft.Read(Irish);
+        Assert.Null(spec);
+        Assert.Equal(["risk.correlations[0]", "risk.scenarios[0]"], errors.Select(e => e.Field));
+        Assert.Equal("a scenario sets parameters' values: add a parameter, or remove the scenario.", errors[1].Message);
+        Assert.Empty(new RiskDraft().Read(Irish).Errors);
+    }
+
+    [Fact]
     public void A_discrete_parameter_and_a_named_scenario_survive_a_round_trip_and_are_read_by_target()
     {
         var draft = new RiskDraft();
