@@ -234,7 +234,15 @@ public sealed class UnsavedWorkInChromium(BrowserFixture browser) : IClassFixtur
                 {
                     answerer.Asked.Add((dialog.Type, dialog.Message));
                 }
-                await (answerer.Accept ? dialog.AcceptAsync() : dialog.DismissAsync());
+                try
+                {
+                    await (answerer.Accept ? dialog.AcceptAsync() : dialog.DismissAsync());
+                }
+                catch (PlaywrightException)
+                {
+                    // The tab closed while its question was open (closing the tab asks too): there is nothing left to answer,
+                    // and an exception escaping this event handler would take the whole test run down.
+                }
             };
         }
         answerer.Asked.Clear();

@@ -115,6 +115,12 @@ public sealed record DecisionEntry
     public string? Conditions { get; init; }
     public PersonEntry? DecidedBy { get; init; }
     public DateTimeOffset? DecidedAt { get; init; }
+
+    /// <summary>The board's rules the decision was recorded against, in words; left out when it broke none.</summary>
+    public string? OverriddenRules { get; init; }
+
+    /// <summary>Why it was recorded all the same; given exactly when <see cref="OverriddenRules"/> is.</summary>
+    public string? OverrideReason { get; init; }
 }
 
 public sealed record SignOffEntry

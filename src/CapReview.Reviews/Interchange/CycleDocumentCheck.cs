@@ -124,6 +124,14 @@ public static class CycleDocumentCheck
             {
                 Add($"{at}.outcome", "Give the outcome: approve, reject or returnForChanges.");
             }
+            if (string.IsNullOrWhiteSpace(decision.OverriddenRules) != string.IsNullOrWhiteSpace(decision.OverrideReason))
+            {
+                Add($"{at}.overrideReason", "An override names the rules it broke and the reason for it, both or neither.");
+            }
+            else if (decision.OverriddenRules?.Length > 4000 || decision.OverrideReason?.Length > 2000)
+            {
+                Add($"{at}.overrideReason", "The rules an override broke take at most 4,000 characters, its reason at most 2,000.");
+            }
         }
         for (int s = 0; s < (document.SignOffs?.Count ?? 0); s++)
         {

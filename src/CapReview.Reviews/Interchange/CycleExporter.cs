@@ -80,6 +80,7 @@ public sealed class CycleExporter(ReviewWork work, IPeopleDirectory people, Time
             {
                 Proposal = reference[d.ProposalId], Version = d.VersionNumber, AssumptionsSha256 = d.AssumptionsHash, Outcome = d.Outcome,
                 Conditions = d.Conditions, DecidedBy = await Person(d.DecidedBy).ConfigureAwait(false), DecidedAt = d.DecidedAt,
+                OverriddenRules = d.Overrides ? d.OverriddenRules : null, OverrideReason = d.Overrides ? d.OverrideReason : null,
             });
         }
         var signOffs = new List<SignOffEntry>();

@@ -161,8 +161,14 @@ public sealed class CycleImporter(ReviewWork work, AuditTrail audit, IPeopleDire
             int k = 0;
             foreach (DecisionEntry d in document.Decisions ?? [])
             {
-                db.Decisions.Add(new Decision(byReference[d.Proposal!].Id, cycle.Id, d.Version!.Value, d.AssumptionsSha256!, policy.Id,
-                    d.Outcome!.Value, d.Conditions ?? "", deciders[k++], Stored(d.DecidedAt)));
+                var decision = new Decision(byReference[d.Proposal!].Id, cycle.Id, d.Version!.Value, d.AssumptionsSha256!, policy.Id,
+                    d.Outcome!.Value, d.Conditions ?? "", deciders[k++], Stored(d.DecidedAt));
+                if (!string.IsNullOrWhiteSpace(d.OverriddenRules))
+                {
+                    // The other installation's record of an override comes with it: a decision never loses why it broke a rule.
+                    decision.RecordOverride(d.OverriddenRules, d.OverrideReason!);
+                }
+                db.Decisions.Add(decision);
             }
             k = 0;
             foreach (SignOffEntry s in document.SignOffs ?? [])

@@ -21,6 +21,16 @@ public static class RankingRisk
     }
 
     /// <summary>
+    /// The proposals whose simulation centres on a most likely value apart from the model's (a parameter set apart on
+    /// purpose, or one the model moved away from), so the ranking can say so beside the probability of a loss.
+    /// </summary>
+    public static IReadOnlySet<string> ApartFromTheModel(IReadOnlyDictionary<string, RiskStudy?> studies)
+    {
+        ArgumentNullException.ThrowIfNull(studies);
+        return studies.Where(s => s.Value is { Drifts.Count: > 0 }).Select(s => s.Key).ToHashSet(StringComparer.Ordinal);
+    }
+
+    /// <summary>
     /// P(PW &lt; 0) by proposal reference; null for a proposal without risk settings. Stops between proposals and
     /// between trials when <paramref name="cancellationToken"/> is cancelled.
     /// </summary>

@@ -96,6 +96,17 @@ public sealed class ParameterRangeAndFollowingTests
     }
 
     [Fact]
+    public void The_ranking_names_the_proposals_whose_simulation_centres_apart_from_the_model()
+    {
+        var apart = ProposalRisk.Prepare(new ProposalCase(Plant(78_000)), One("elements[#saving].amount", 55_000, 65_000, 80_000)).Value!;
+        var following = ProposalRisk.Prepare(new ProposalCase(Plant()), One("elements[#saving].amount", 55_000, 70_000, 80_000)).Value!;
+
+        var named = RankingRisk.ApartFromTheModel(new Dictionary<string, RiskStudy?> { ["P-1"] = apart, ["P-2"] = following, ["P-3"] = null });
+
+        Assert.Equal(["P-1"], named);
+    }
+
+    [Fact]
     public void A_parameter_at_its_element_value_is_not_reported()
     {
         var study = ProposalRisk.Prepare(new ProposalCase(Plant()), One("elements[#saving].growth", 0, 0.02, 0.04)).Value!;

@@ -154,6 +154,28 @@ public sealed class CycleDocumentTests : IAsyncLifetime
     }
 
     [Fact]
+    public async Task A_decision_recorded_with_an_override_keeps_its_rules_and_reason_across_installations()
+    {
+        await CopyPeopleAsync();
+        var importer = _target.Services.GetRequiredService<CycleImporter>();
+        JsonNode document = JsonNode.Parse(await ExportAsync(_source, "Capital plan 2026"))!;
+        Assert.Null(document["decisions"]![0]!["overriddenRules"]);
+
+        JsonNode half = document.DeepClone();
+        half["decisions"]![0]!["overriddenRules"] = "the capital limit of budget year 1";
+        var refused = await Assert.ThrowsAsync<ImportRefusedException>(() => importer.ImportAsync(Admin, System.Text.Encoding.UTF8.GetBytes(half.ToJsonString()), CancellationToken.None));
+        Assert.Equal("decisions[0].overrideReason", refused.Problems.Single().Field);
+
+        document["decisions"]![0]!["overriddenRules"] = "the capital limit of budget year 1 (540,000 approved against a limit of 500,000)";
+        document["decisions"]![0]!["overrideReason"] = "The regulator's deadline falls in this year.";
+        await importer.ImportAsync(Admin, System.Text.Encoding.UTF8.GetBytes(document.ToJsonString()), CancellationToken.None);
+
+        JsonNode again = JsonNode.Parse(await ExportAsync(_target, "Capital plan 2026"))!;
+        Assert.Equal("the capital limit of budget year 1 (540,000 approved against a limit of 500,000)", again["decisions"]![0]!["overriddenRules"]!.GetValue<string>());
+        Assert.Equal("The regulator's deadline falls in this year.", again["decisions"]![0]!["overrideReason"]!.GetValue<string>());
+    }
+
+    [Fact]
     public async Task A_second_import_of_the_same_cycle_or_a_changed_document_is_refused_and_changes_nothing()
     {
         var importer = _target.Services.GetRequiredService<CycleImporter>();
