@@ -92,6 +92,28 @@ public sealed class BrowserFixture : IAsyncLifetime
         await page.ScreenshotAsync(new PageScreenshotOptions { Path = Path.Combine(folder, name + ".png"), FullPage = true });
     }
 
+    /// <summary>
+    /// Chooses <paramref name="file"/> in a file field and waits for <paramref name="shown"/>. A field chosen in the same
+    /// moment the page turns interactive can miss the change (its listener is attached just after), which a person is never
+    /// quick enough to do; the file is then chosen again, up to three times.
+    /// </summary>
+    public static async Task ChooseFileAsync(ILocator field, FilePayload file, ILocator shown)
+    {
+        for (int attempt = 1; ; attempt++)
+        {
+            await field.SetInputFilesAsync(file);
+            try
+            {
+                await Assertions.Expect(shown).Not.ToHaveCountAsync(0, new() { Timeout = 10_000 });
+                return;
+            }
+            catch (PlaywrightException) when (attempt < 3)
+            {
+                // Not read: choose it again.
+            }
+        }
+    }
+
     /// <summary>A screenshot of one part of the page, when CAPREVIEW_SCREENSHOTS names a folder.</summary>
     public static async Task ScreenshotAsync(ILocator part, string name)
     {

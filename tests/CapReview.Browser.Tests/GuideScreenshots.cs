@@ -67,12 +67,12 @@ public sealed class GuideScreenshots(BrowserFixture browser) : IClassFixture<Bro
         string editor = lead.Url[browser.App.BaseAddress.Length..];
         await Assertions.Expect(lead.GetByTestId("present-worth")).Not.ToBeEmptyAsync();
         await ShotAsync(lead, "lead-editor");
-        await lead.Locator("#import-file").SetInputFilesAsync(new FilePayload
+        await BrowserFixture.ChooseFileAsync(lead.Locator("#import-file"), new FilePayload
         {
             Name = "forklifts.csv",
             MimeType = "text/csv",
             Buffer = Encoding.UTF8.GetBytes("period,Electric trucks [capital],Diesel not bought,Battery swap [capital]\n0,-180000,,\n1,,41000,\n2,,41000,\n3,,41000,\n4,,41000,-24000\n5,,41000,\n6,,41000,\n"),
-        });
+        }, lead.GetByTestId("import-elements").Locator("tbody tr"));
         await Assertions.Expect(lead.GetByTestId("import-elements").Locator("tbody tr")).ToHaveCountAsync(3);
         await ShotAsync(lead.Locator("section[aria-labelledby=import-heading]"), "lead-import");
         await lead.Locator("#tax-enabled").CheckAsync();

@@ -81,7 +81,8 @@ public sealed class TaxDraft
         if (spec.Depreciation is { } d)
         {
             draft.Method = d.Method ?? DepreciationMethod.StraightLine;
-            draft.Life = d.Life?.ToString(culture) ?? "";
+            // A method that stores no life (MACRS) keeps the new form's, so switching methods later never meets a blank field.
+            draft.Life = d.Life?.ToString(culture) ?? draft.Life;
             draft.Salvage = Number(d.Salvage ?? 0);
             draft.FactorPercent = Percent(d.Factor ?? 2);
             draft.SwitchToStraightLine = d.SwitchToStraightLine ?? true;

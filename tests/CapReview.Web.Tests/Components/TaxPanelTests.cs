@@ -63,5 +63,18 @@ public sealed class TaxPanelTests : IDisposable
         Assert.Null(new TaxDraft().Read(culture).Spec);
     }
 
+    [Fact]
+    public void A_saved_MACRS_draft_switched_to_straight_line_has_a_life_to_start_from()
+    {
+        // Found by the editor's random walk: the life came back blank and the save was refused at a field nobody emptied.
+        var culture = System.Globalization.CultureInfo.GetCultureInfo("en-IE");
+        var (spec, _) = new TaxDraft { Enabled = true, IncomeTaxPercent = "21", Method = DepreciationMethod.Macrs }.Read(culture);
+        var reopened = TaxDraft.From(spec, culture);
+        reopened.Method = DepreciationMethod.StraightLine;
+        var (again, errors) = reopened.Read(culture);
+        Assert.Empty(errors);
+        Assert.Equal(10, again!.Depreciation!.Life);
+    }
+
     public void Dispose() => _context.Dispose();
 }
