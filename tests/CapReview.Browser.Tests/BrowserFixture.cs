@@ -5,16 +5,16 @@ namespace CapReview.Browser.Tests;
 
 /// <summary>
 /// One app and one headless Debian Chromium for the test class. Chromium is started with no outside lookups so that it
-/// talks only to the app on loopback. Set CAPREVIEW_SCREENSHOTS to a folder to keep screenshots.
+/// talks only to the app on loopback. Every page a test opens has a browser context of its own (its own cookies and
+/// storage), as two people at two machines would: a sign-in in one test never changes the cookie behind another test's
+/// page. Set CAPREVIEW_SCREENSHOTS to a folder to keep screenshots.
 /// </summary>
 public sealed class BrowserFixture : IAsyncLifetime
 {
     private IPlaywright? _playwright;
-    private string _profile = "";
+    private IBrowser? _chromium;
 
     public AppHost App { get; } = new();
-
-    public IBrowserContext Browser { get; private set; } = null!;
 
     public static string ChromiumPath => Environment.GetEnvironmentVariable("CHROMIUM_PATH") ?? "/usr/bin/chromium";
 
@@ -26,12 +26,10 @@ public sealed class BrowserFixture : IAsyncLifetime
         }
         App.Start();
         _playwright = await Playwright.CreateAsync();
-        _profile = Directory.CreateTempSubdirectory("capreview-chromium-").FullName;
-        Browser = await _playwright.Chromium.LaunchPersistentContextAsync(_profile, new BrowserTypeLaunchPersistentContextOptions
+        _chromium = await _playwright.Chromium.LaunchAsync(new BrowserTypeLaunchOptions
         {
             ExecutablePath = ChromiumPath,
             Headless = true,
-            ViewportSize = new ViewportSize { Width = 1280, Height = 900 },
             Args =
             [
                 "--no-sandbox", "--disable-gpu", "--disable-quic", "--no-first-run", "--disable-background-networking",
@@ -42,17 +40,23 @@ public sealed class BrowserFixture : IAsyncLifetime
 
     public async Task DisposeAsync()
     {
-        await Browser.CloseAsync();
+        if (_chromium is not null)
+        {
+            await _chromium.CloseAsync();
+        }
         _playwright?.Dispose();
         await App.DisposeAsync();
-        try
-        {
-            Directory.Delete(_profile, recursive: true);
-        }
-        catch (IOException)
-        {
-            // Chromium may still be writing its profile as it exits.
-        }
+    }
+
+    /// <summary>
+    /// A page in a new browser context: a visitor nobody has signed in yet. Open a second tab of the same visitor with
+    /// <c>page.Context.NewPageAsync()</c>; the context stays open when its page closes, so a tab closed and opened again
+    /// finds the same cookies and browser storage.
+    /// </summary>
+    public async Task<IPage> NewVisitorPageAsync()
+    {
+        var context = await _chromium!.NewContextAsync(new BrowserNewContextOptions { ViewportSize = new ViewportSize { Width = 1280, Height = 900 } });
+        return await context.NewPageAsync();
     }
 
     /// <summary>
@@ -67,12 +71,11 @@ public sealed class BrowserFixture : IAsyncLifetime
         return (cycles.Single(c => c.Status == CapReview.Reviews.Cycles.CycleStatus.Open).Id, cycles.Single(c => c.Status == CapReview.Reviews.Cycles.CycleStatus.Decided).Id);
     }
 
-    /// <summary>A fresh browser context (its own cookies) signed in as the user.</summary>
+    /// <summary>A page in a new browser context (its own cookies and storage), signed in as the user.</summary>
     public async Task<IPage> SignedInPageAsync(string email, string name, string role, string password = AppHost.Password)
     {
         await App.UserAsync(email, name, role);
-        IPage page = await Browser.NewPageAsync();
-        await page.Context.ClearCookiesAsync();
+        IPage page = await NewVisitorPageAsync();
         await page.GotoAsync(App.BaseAddress + "signin");
         await page.Locator("#email").FillAsync(email);
         await page.Locator("#password").FillAsync(password);

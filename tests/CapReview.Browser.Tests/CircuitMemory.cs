@@ -25,7 +25,7 @@ public sealed class CircuitMemory(BrowserFixture browser, ITestOutputHelper outp
         var pages = new List<IPage>();
         for (int k = 0; k < count; k++)
         {
-            IPage page = await browser.Browser.NewPageAsync();
+            IPage page = await first.Context.NewPageAsync();
             await page.GotoAsync(browser.App.BaseAddress + "evaluate");
             await page.Locator("[data-testid=interactive]").WaitForAsync(new() { State = WaitForSelectorState.Attached });
             pages.Add(page);

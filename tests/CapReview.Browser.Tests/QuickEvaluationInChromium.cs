@@ -49,6 +49,14 @@ public sealed class QuickEvaluationInChromium(BrowserFixture browser) : IClassFi
         await Assertions.Expect(page.Locator("#cash-flow-diagram-plot g.point")).ToHaveCountAsync(6);
         await Assertions.Expect(page.Locator("#worth-profile-plot .main-svg").First).ToBeVisibleAsync();
         await BrowserFixture.ScreenshotAsync(page, "quick-evaluation-built");
+
+        // A chart's hover label writes a payment with the same minus sign (U+2212) as the tables beside it.
+        await page.Locator("#cash-flow-diagram-plot").ScrollIntoViewIfNeededAsync();
+        var bar = await page.Locator("#cash-flow-diagram-plot g.point path").First.BoundingBoxAsync();
+        await page.Mouse.MoveAsync(bar!.X + bar.Width / 2, bar.Y - 20);
+        await page.Mouse.MoveAsync(bar.X + bar.Width / 2, bar.Y + bar.Height / 2, new() { Steps = 5 });
+        await Assertions.Expect(page.Locator("#cash-flow-diagram-plot .hoverlayer .hovertext")).ToContainTextAsync("\u22121,000");
+        Assert.DoesNotContain("-", await page.Locator("#cash-flow-diagram-plot .hoverlayer .hovertext").TextContentAsync() ?? "", StringComparison.Ordinal);
     }
 
     [Fact]

@@ -9,8 +9,7 @@ public sealed class SignInInChromium(BrowserFixture browser) : IClassFixture<Bro
     public async Task A_page_that_needs_a_sign_in_sends_the_visitor_to_the_form_and_back()
     {
         await browser.App.UserAsync("petra.form@tarnby.example", "Petra Form", CapReview.Web.Identity.RoleNames.Reviewer);
-        IPage page = await browser.Browser.NewPageAsync();
-        await page.Context.ClearCookiesAsync();
+        IPage page = await browser.NewVisitorPageAsync();
         await page.GotoAsync(browser.App.BaseAddress + "evaluate");
         await Assertions.Expect(page.GetByRole(AriaRole.Heading, new() { Name = "Sign in" })).ToBeVisibleAsync();
 
@@ -73,5 +72,35 @@ public sealed class SignInInChromium(BrowserFixture browser) : IClassFixture<Bro
         }
         // Without a reload: the page's circuit checks its session and sends it to the sign-in.
         await Assertions.Expect(page.GetByRole(AriaRole.Heading, new() { Name = "Sign in" })).ToBeVisibleAsync(new() { Timeout = 15_000 });
+    }
+
+    [Fact]
+    public async Task A_page_whose_session_ends_before_it_turns_interactive_goes_to_the_sign_in()
+    {
+        const string email = "ended.early@tarnby.example";
+        IPage page = await browser.SignedInPageAsync(email, "Ended Early", CapReview.Web.Identity.RoleNames.ProjectLead);
+        // The page is drawn with the session still standing; its live connection is held until the session has ended.
+        var asked = new TaskCompletionSource();
+        var release = new TaskCompletionSource();
+        await page.RouteAsync("**/_blazor/negotiate**", async route =>
+        {
+            asked.TrySetResult();
+            await release.Task;
+            await route.ContinueAsync();
+        });
+        await page.GotoAsync(browser.App.BaseAddress + "evaluate");
+        await Assertions.Expect(page.GetByRole(AriaRole.Heading, new() { Name = "Quick evaluation" })).ToBeVisibleAsync();
+        await asked.Task.WaitAsync(TimeSpan.FromSeconds(30));
+
+        using (var scope = browser.App.Services.CreateScope())
+        {
+            var users = scope.ServiceProvider.GetRequiredService<Microsoft.AspNetCore.Identity.UserManager<CapReview.Web.Identity.CapReviewUser>>();
+            var user = await users.FindByEmailAsync(email);
+            await browser.App.Services.GetRequiredService<CapReview.Web.Identity.UserAdministration>()
+                .EndSessionsAsync(CapReview.Reviews.Access.Actor.Of("browser-admin", "Browser Admin", CapReview.Reviews.Access.Role.Administrator), user!.Id);
+        }
+        release.SetResult();
+        await Assertions.Expect(page.GetByRole(AriaRole.Heading, new() { Name = "Sign in" })).ToBeVisibleAsync(new() { Timeout = 15_000 });
+        Assert.Empty(browser.App.Log.Errors());
     }
 }

@@ -76,11 +76,12 @@ public sealed class UnsavedWorkInChromium(BrowserFixture browser) : IClassFixtur
 
         // Closing the tab asks too; the tab is closed anyway and the copy remains for the next visit.
         var closed = Answer(page, accept: true);
+        var context = page.Context;
         await page.CloseAsync(new() { RunBeforeUnload = true });
         await Until(() => closed.Count == 1, "the browser's question before closing the tab");
         Assert.Equal("beforeunload", closed[0].Type);
 
-        page = await browser.Browser.NewPageAsync();
+        page = await context.NewPageAsync();
         await OpenAsync(page, id);
         await Assertions.Expect(page.GetByTestId("recover-offer")).ToContainTextAsync("were not saved");
         await Assertions.Expect(page.GetByTestId("recover-older")).ToHaveCountAsync(0);
@@ -125,6 +126,7 @@ public sealed class UnsavedWorkInChromium(BrowserFixture browser) : IClassFixtur
         var (page, id) = await EditorAsync(email, "Boiler burner");
         await page.Locator("#el-1-amount").FillAsync("12345");
         await Assertions.Expect(page.GetByTestId("unsaved")).ToContainTextAsync("a copy is kept");
+        var context = page.Context;
         await page.CloseAsync();
 
         // Saved elsewhere since (another tab, the API): a newer amount.
@@ -136,7 +138,7 @@ public sealed class UnsavedWorkInChromium(BrowserFixture browser) : IClassFixtur
             await proposals.UpdateDraftAsync(actor, id, view.Revision, Draft("Boiler burner", 50_000), CancellationToken.None);
         }
 
-        page = await browser.Browser.NewPageAsync();
+        page = await context.NewPageAsync();
         await OpenAsync(page, id);
         await Assertions.Expect(page.GetByTestId("recover-older")).ToContainTextAsync("older than the last save");
         await Assertions.Expect(page.Locator("#el-1-amount")).ToHaveValueAsync("50000");

@@ -103,6 +103,10 @@ public sealed class MarrPolicyService(ReviewWork work, AuditTrail audit, TimePro
             .Where(m => !db.MarrVersionRetirements.Any(r => r.MarrPolicyVersionId == m.Id))
             .OrderByDescending(m => m.Number).FirstOrDefaultAsync(cancellationToken), cancellationToken);
 
+    /// <summary>One version, retired or not; null when there is none with that id.</summary>
+    public Task<MarrPolicyVersion?> FindAsync(int id, CancellationToken cancellationToken) =>
+        work.ReadAsync(db => db.MarrPolicyVersions.AsNoTracking().SingleOrDefaultAsync(m => m.Id == id, cancellationToken), cancellationToken);
+
     public Task<IReadOnlyList<MarrPolicyVersion>> ListAsync(CancellationToken cancellationToken) =>
         work.ReadAsync<IReadOnlyList<MarrPolicyVersion>>(async db =>
             await db.MarrPolicyVersions.OrderBy(m => m.Number).ToListAsync(cancellationToken).ConfigureAwait(false), cancellationToken);

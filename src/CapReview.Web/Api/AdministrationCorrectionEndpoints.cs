@@ -49,7 +49,7 @@ public static class AdministrationCorrectionEndpoints
         return await ApiProblems.RunAsync(async () =>
         {
             MarrVersionRetirement retirement = await policies.RetireAsync(Caller(request.HttpContext), id, body.Reason ?? "", cancellationToken).ConfigureAwait(false);
-            MarrPolicyVersion version = (await policies.ListAsync(cancellationToken).ConfigureAwait(false)).Single(v => v.Id == id);
+            MarrPolicyVersion version = (await policies.FindAsync(id, cancellationToken).ConfigureAwait(false))!;
             return Results.Created("/api/v1/marr-policies", MarrPolicyResponse.From(version, retirement));
         }).ConfigureAwait(false);
     }

@@ -24,7 +24,9 @@ public abstract class SignedInComponent : ComponentBase, IHandleEvent
 
     public override async Task SetParametersAsync(ParameterView parameters)
     {
-        if (RendererInfo.IsInteractive && AuthenticationState is not null
+        // Checked on the first parameters too: a page drawn while its session stood can turn interactive after the
+        // session ended (its live connection then carries nobody), and must not render for nobody.
+        if (RendererInfo.IsInteractive
             && parameters.TryGetValue(nameof(AuthenticationState), out Task<AuthenticationState>? next) && next is not null
             && (await next).User.Identity?.IsAuthenticated != true)
         {

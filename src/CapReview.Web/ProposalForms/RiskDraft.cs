@@ -102,6 +102,13 @@ public sealed class RiskDraft
         return draft;
     }
 
+    /// <summary>The names typed so far, whatever else fails to read: enough for a message to name its parameter or scenario.</summary>
+    public RiskSpec Names() => new()
+    {
+        Parameters = [.. Parameters.Select(p => new ParameterSpec { Name = p.Name })],
+        Scenarios = [.. Scenarios.Select(s => new ScenarioSpec { Name = s.Name })],
+    };
+
     /// <summary>
     /// The stored form, null when nothing is set, with the fields that did not parse. Correlations or scenarios left
     /// without any parameter are refused rather than dropped: saving must not lose what the lead typed.

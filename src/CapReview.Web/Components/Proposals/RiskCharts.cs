@@ -24,7 +24,7 @@ internal static class RiskCharts
         X = line.Points.Select(p => (object)(p.Change * 100)).ToList(),
         Y = line.Points.Select(p => Point(p.Measure)).ToList(),
         Line = new Plotly.Blazor.Traces.ScatterLib.Line { Color = LineColours[k % LineColours.Length], Width = 2 },
-        HoverTemplate = line.Parameter.Name + " %{x:+.0f} %: %{y:,.0f}<extra></extra>",
+        HoverTemplate = line.Parameter.Name + " %{x} %: %{y}<extra></extra>",
     })];
 
     /// <summary>The histogram of present worth; bins wholly below zero in red-brown.</summary>
@@ -35,7 +35,7 @@ internal static class RiskCharts
             X = simulation.Histogram.Select(b => (object)((b.From + b.To) / 2)).ToList(),
             Y = simulation.Histogram.Select(b => (object)b.Count).ToList(),
             Marker = new Plotly.Blazor.Traces.BarLib.Marker { ColorArray = simulation.Histogram.Select(b => (object)(b.To <= 0 ? "#b4532f" : "#1d4e6b")).ToList() },
-            HoverTemplate = "%{x:,.0f}: %{y} trials<extra></extra>",
+            HoverTemplate = "%{x}: %{y} trials<extra></extra>",
         },
     ];
 
@@ -48,7 +48,7 @@ internal static class RiskCharts
             X = simulation.Detail.Cumulative.Select(v => (object)v).ToList(),
             Y = Enumerable.Range(0, simulation.Detail.Cumulative.Count).Select(p => (object)p).ToList(),
             Line = new Plotly.Blazor.Traces.ScatterLib.Line { Color = "#1d4e6b", Width = 2.5m },
-            HoverTemplate = "%{y} % of trials at or below %{x:,.0f}<extra></extra>",
+            HoverTemplate = "%{y} % of trials at or below %{x}<extra></extra>",
         },
     ];
 
@@ -68,6 +68,6 @@ internal static class RiskCharts
         Y = result.Tornado.Select(b => (object)b.Parameter.Name).ToList(),
         Base = result.Basis,
         Marker = new Plotly.Blazor.Traces.BarLib.Marker { Color = color },
-        HoverTemplate = "%{y}: %{x:,.0f}<extra></extra>",
+        HoverTemplate = "%{y}: %{x}<extra></extra>",
     };
 }
