@@ -30,6 +30,12 @@ public sealed record DepreciationSchedule(double Basis, IReadOnlyList<double> Am
     public double LastYearShare { get; init; } = 1.0;
 
     /// <summary>
+    /// Whether an asset disposed of in the tax year it was placed in service deducts anything that year (true for the
+    /// book methods; false under MACRS).
+    /// </summary>
+    public bool DeductsWhenDisposedInFirstYear { get; init; } = true;
+
+    /// <summary>
     /// The schedule of an asset disposed of in tax year <paramref name="year"/>: the years after it are dropped and the
     /// disposal year's amount is cut to <paramref name="disposalYearShare"/> of a full year (the method's rule for that
     /// year: 1 for the book methods, a half under the MACRS half-year convention, and so on). In the schedule's last
@@ -47,6 +53,13 @@ public sealed record DepreciationSchedule(double Basis, IReadOnlyList<double> Am
             return this;
         }
         var kept = Amounts.Take(year).ToArray();
+        if (year == 1 && !DeductsWhenDisposedInFirstYear)
+        {
+            // IRS Publication 946: property placed in service and disposed of in the same year is not depreciated
+            // (from memory).
+            kept[0] = 0;
+            return this with { Amounts = kept };
+        }
         // IRS Publication 946 cuts the year of disposal to the convention's share only for property disposed of before
         // the end of its recovery period. The table's last percentage is already that part-year (7.41 % of 3-year
         // half-year property in year 4, Table A-1), so a disposal at or after the end of the recovery takes it whole

@@ -88,7 +88,7 @@ public static class Macrs
               (convention == MacrsConvention.HalfYear ? "half-year convention" : $"mid-quarter convention (quarter {period})");
         // The recovery period ends part-way through the last year (a half for half-year property): a disposal in that
         // year at or after that point takes the year's amount in full (DepreciationSchedule.DisposedIn).
-        return new DepreciationSchedule(basis, amounts, name) { LastYearShare = lastShare };
+        return new DepreciationSchedule(basis, amounts, name) { LastYearShare = lastShare, DeductsWhenDisposedInFirstYear = false };
     }
 
     /// <summary>

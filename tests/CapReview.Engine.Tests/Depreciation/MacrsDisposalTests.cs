@@ -149,4 +149,21 @@ public class MacrsDisposalTests
         var early = tooling.DisposedIn(4, Macrs.DisposalYearShare(MacrsConvention.MidQuarter, 2));
         Assert.Equal(10.19 * 4.5 / 10.5, early.Amounts[^1] / 1_000, 2);
     }
+
+    [Fact]
+    public void Property_disposed_of_in_the_year_it_was_placed_in_service_is_not_depreciated()
+    {
+        // IRS Publication 946: no depreciation for property placed in service and disposed of in the same year (from
+        // memory). A one-year study of 5-year property: nothing deducted, the whole basis is the book value at the sale,
+        // so a resale of 80,000 is a loss of 20,000 (hand computation).
+        var model = Models.Valid(1, 1, new SingleAmount("Jig", Capital, 0, -100_000), new SingleAmount("Resale", Salvage, 1, 80_000));
+        var schedule = Macrs.Schedule(100_000, MacrsClass.FiveYear, MacrsConvention.HalfYear);
+        var result = AfterTaxAnalysis.Compute(model, new TaxSettings(0.25, schedule, Macrs.DisposalYearShare(MacrsConvention.HalfYear, 0)));
+        Assert.Equal(0, result.Rows[1].Depreciation, 9);
+        Assert.Equal(100_000, result.BookValueAtDisposal, 9);
+        Assert.Equal(-20_000, result.GainOnDisposal, 9);
+        Assert.Equal(-0.25 * 20_000, result.Rows[1].Tax, 9);
+        // The book methods keep their first year (common practice, no source): straight line over 5 years deducts 20,000.
+        Assert.Equal(20_000, BookDepreciation.StraightLine(100_000, 0, 5).DisposedIn(1, 1).Amounts[0], 9);
+    }
 }
