@@ -62,7 +62,7 @@ public static class Macrs
         };
         double factor = real ? 0 : (int)propertyClass >= 15 ? 1.5 : 2.0;
         var amounts = new List<double>();
-        double value = basis, used = 0;
+        double value = basis, used = 0, lastShare = 1;
         while (value > basis * 1e-12)
         {
             double share = amounts.Count == 0 ? firstYear : Math.Min(1, recovery - used);
@@ -81,15 +81,20 @@ public static class Macrs
             amounts.Add(amount);
             value -= amount;
             used += share;
+            lastShare = share;
         }
         string name = real ? $"MACRS straight line over {recovery:0.#} years, mid-month (month {period})"
             : $"MACRS GDS {(int)propertyClass}-year property, {(factor == 2 ? "200" : "150")} % declining balance switching to straight line, " +
               (convention == MacrsConvention.HalfYear ? "half-year convention" : $"mid-quarter convention (quarter {period})");
-        return new DepreciationSchedule(basis, amounts, name);
+        // The recovery period ends part-way through the last year (a half for half-year property): a disposal in that
+        // year at or after that point takes the year's amount in full (DepreciationSchedule.DisposedIn).
+        return new DepreciationSchedule(basis, amounts, name) { LastYearShare = lastShare, DeductsWhenDisposedInFirstYear = false };
     }
 
     /// <summary>
-    /// The share of a full year's depreciation allowed in the year of disposal before the end of the recovery period:
+    /// The share of a full year's depreciation allowed in the year of disposal before the end of the recovery period
+    /// (IRS Publication 946; a disposal in the table's last year at or after the recovery's end takes that year's
+    /// percentage in full, see <see cref="DepreciationSchedule.DisposedIn"/>):
     /// a half under the half-year convention; under the mid-quarter convention, up to the middle of the quarter of
     /// disposal; under the mid-month convention, up to the middle of the month of disposal.
     /// </summary>

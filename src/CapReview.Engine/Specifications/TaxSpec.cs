@@ -22,7 +22,7 @@ public sealed record TaxSpec
     /// <summary>A state rate deductible from federal income: the two are combined as s + f (1 − s).</summary>
     public double? StateTaxRate { get; init; }
 
-    /// <summary>The rate on a gain over book value at disposal; null for the income-tax rate.</summary>
+    /// <summary>The rate on the part of a gain at disposal above the original basis (recaptured depreciation is ordinary income); null for the income-tax rate.</summary>
     public double? GainTaxRate { get; init; }
 
     public DepreciationSpec? Depreciation { get; init; }

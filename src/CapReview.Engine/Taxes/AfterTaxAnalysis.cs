@@ -6,9 +6,11 @@ namespace CapReview.Engine.Taxes;
 /// <summary>
 /// After-tax cash flows of a yearly model (common practice, no source; see docs/methods.md). The first cost at year 0 is
 /// capitalised and recovered through the depreciation schedule; revenues, operating costs and capital outlays after
-/// year 0 (overhauls) are taxed or deducted in their year; at the horizon the salvage is compared with the book value
-/// and the gain taxed at the gain rate, a loss deducted at the income-tax rate. Tax = rate × taxable income, a
-/// negative tax being a saving against other income unless losses are carried forward; credits reduce the year's tax.
+/// year 0 (overhauls) are taxed or deducted in their year; at the horizon the salvage is compared with the book value:
+/// the gain up to the depreciation taken is recaptured as ordinary income, only the part above the basis is taxed at
+/// the gain rate, and a loss is deducted at the income-tax rate (<see cref="DisposalGain"/>). Tax = rate × taxable
+/// income, a negative tax being a saving against other income unless losses are carried forward, when they offset the
+/// later years' taxable income, the disposal's gain included (<see cref="YearlyTax"/>); credits reduce the year's tax.
 /// With a loan, its proceeds, instalments and the tax saved on its interest give the equity flows.
 /// </summary>
 public static class AfterTaxAnalysis
@@ -52,44 +54,25 @@ public static class AfterTaxAnalysis
         var schedule = settings.Depreciation.DisposedIn(n, settings.DisposalYearShare);
         double bookValue = schedule.BookValueAfter(n);
         double proceeds = salvage.Sum();
-        double gain = proceeds - bookValue;
+        // The gain enters the year's taxable income (recapture as ordinary income), where carried losses offset it.
+        var gain = DisposalGain.Of(proceeds, bookValue, schedule.Basis - bookValue);
         var loan = LoanSchedule(settings.Financing, -capitalAtZero, n);
         var rows = new List<AfterTaxRow>(n + 1);
-        double carried = 0;
+        var taxes = new YearlyTax(rate, gainRate, settings.Losses);
         for (int t = 0; t <= n; t++)
         {
             double depreciation = t >= 1 && t <= schedule.Amounts.Count ? schedule.Amounts[t - 1] : 0;
-            double taxable = ordinary[t] - depreciation + (t == n ? Math.Min(gain, 0) : 0);
-            double gainTax = t == n ? gainRate * Math.Max(gain, 0) : 0;
-            double used = 0;
-            double tax;
-            if (settings.Losses == LossTreatment.CarryForward)
-            {
-                if (taxable < 0)
-                {
-                    carried -= taxable;
-                    tax = 0;
-                }
-                else
-                {
-                    used = Math.Min(carried, taxable);
-                    carried -= used;
-                    tax = rate * (taxable - used);
-                }
-            }
-            else
-            {
-                tax = rate * taxable;
-            }
-            tax += gainTax;
+            double taxable = ordinary[t] - depreciation + (t == n ? gain.Ordinary : 0);
+            double atGainRate = t == n ? gain.AtGainRate : 0;
+            var (tax, used) = taxes.Charge(taxable, atGainRate);
             double credit = (settings.Credits ?? []).Where(c => c.Year == t).Sum(c => c.Amount);
             double before = model.NetFlows[t];
             double after = before - tax + credit;
             // The interest saves tax at the income-tax rate (against other income, as a deduction of the year).
             double equity = after + loan.Proceeds[t] - loan.Payments[t] + rate * loan.Interest[t];
-            rows.Add(new AfterTaxRow(t, before, depreciation, taxable + (t == n ? Math.Max(gain, 0) : 0), used, tax, credit, after, equity));
+            rows.Add(new AfterTaxRow(t, before, depreciation, taxable + atGainRate, used, tax, credit, after, equity));
         }
-        return new AfterTaxResult(rows, bookValue, gain, carried);
+        return new AfterTaxResult(rows, bookValue, gain.Total, taxes.Carried);
     }
 
     private static (double[] Proceeds, double[] Payments, double[] Interest) LoanSchedule(Loan? loan, double firstCost, int horizon)

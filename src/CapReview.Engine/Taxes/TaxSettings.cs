@@ -28,7 +28,7 @@ public sealed record Loan(double Share, double Rate, int Term);
 /// <param name="IncomeTaxRate">The effective (or combined) rate on taxable income.</param>
 /// <param name="Depreciation">The depreciation of the depreciable basis by tax year, year 1 ending at period 1.</param>
 /// <param name="DisposalYearShare">The share of the disposal year's depreciation allowed (1 for book methods; see <see cref="Macrs.DisposalYearShare"/>).</param>
-/// <param name="GainTaxRate">The rate on a gain over book value at disposal; null for the income-tax rate.</param>
+/// <param name="GainTaxRate">The rate on the part of a gain at disposal above the original basis (the depreciation recaptured is ordinary income, <see cref="DisposalGain"/>); null for the income-tax rate.</param>
 /// <param name="Losses">What a year's tax loss does.</param>
 /// <param name="Credits">Tax credits by year.</param>
 /// <param name="Financing">A loan for part of the first cost, or null.</param>

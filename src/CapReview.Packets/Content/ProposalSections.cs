@@ -190,7 +190,7 @@ internal static class ProposalSections
         string Rate(Evaluation e) => e.RatesOfReturn.Count switch { 0 => "none", 1 => f.Percent(e.RatesOfReturn[0]) + " (unique)", _ => "several" };
         var pairs = new List<(string, string)>
         {
-            ("Income-tax rate", f.Percent(r.Settings.IncomeTaxRate) + (r.Settings.GainTaxRate is double g ? $"; on a gain at disposal {f.Percent(g)}" : "")),
+            ("Income-tax rate", f.Percent(r.Settings.IncomeTaxRate) + (r.Settings.GainTaxRate is double g ? $"; on a gain at disposal above the cost {f.Percent(g)}" : "")),
             ("Depreciation", r.Settings.Depreciation.Method),
             ("Losses", r.Settings.Losses == Engine.Taxes.LossTreatment.Offset ? "offset against other income in their year" : "carried forward against later income"),
             ("After-tax MARR", $"{f.Percent(r.AfterTax.Marr.EffectiveAnnual())}: {r.AfterTaxMarrBasis}"),

@@ -13,7 +13,7 @@ namespace CapReview.Engine.Tests.Depreciation;
 public class MacrsTableTests
 {
 
-    private static readonly Dictionary<(string Table, int Class, int Period), List<double>> Tables = Load();
+    internal static readonly Dictionary<(string Table, int Class, int Period), List<double>> Tables = Load();
 
     private static Dictionary<(string, int, int), List<double>> Load()
     {
