@@ -13,29 +13,24 @@ public static class AdministrationCorrectionEndpoints
 {
     public static IEndpointRouteBuilder MapAdministrationCorrectionEndpoints(this IEndpointRouteBuilder routes)
     {
-        Writes(routes.MapPost("/api/v1/marr-policies/{id:int}/retirement", RetireAsync)
+        routes.MapPost("/api/v1/marr-policies/{id:int}/retirement", RetireAsync)
             .WithName("RetireMarrPolicy").WithSummary("Retire a MARR policy version entered by mistake (administrators): kept, never pinned by a new cycle")
-            .Accepts<RetirementRequest>("application/json").Produces<MarrPolicyResponse>(StatusCodes.Status201Created));
-        Writes(routes.MapPut("/api/v1/cycles/{id:int}/terms", CorrectCycleAsync)
+            .Accepts<RetirementRequest>("application/json").Produces<MarrPolicyResponse>(StatusCodes.Status201Created)
+            .ChangesState();
+        routes.MapPut("/api/v1/cycles/{id:int}/terms", CorrectCycleAsync)
             .WithName("CorrectCycle").WithSummary("Correct an open cycle's capital limit and dates (administrators)")
-            .Accepts<CycleTermsRequest>("application/json").Produces<CycleResponse>());
+            .Accepts<CycleTermsRequest>("application/json").Produces<CycleResponse>()
+            .ChangesState();
         routes.MapGet("/api/v1/users", UsersAsync)
             .WithName("ListUsers").WithSummary("Every person who may sign in, with their roles (administrators)")
             .Produces<IReadOnlyList<UserResponse>>().ProducesProblem(StatusCodes.Status403Forbidden)
             .RequireAuthorization(IdentityRegistration.Api);
-        Writes(routes.MapPut("/api/v1/users/{id}/roles", SetRolesAsync)
+        routes.MapPut("/api/v1/users/{id}/roles", SetRolesAsync)
             .WithName("SetUserRoles").WithSummary("Give a person these roles (administrators); their sessions end, the last administrator stays one")
-            .Accepts<RolesRequest>("application/json").Produces<UserResponse>());
+            .Accepts<RolesRequest>("application/json").Produces<UserResponse>()
+            .ChangesState();
         return routes;
     }
-
-    private static void Writes(RouteHandlerBuilder route) => route
-        .ProducesValidationProblem()
-        .ProducesProblem(StatusCodes.Status403Forbidden)
-        .ProducesProblem(StatusCodes.Status404NotFound)
-        .ProducesProblem(StatusCodes.Status409Conflict)
-        .RequireAuthorization(IdentityRegistration.Api)
-        .DisableAntiforgery();
 
     private static Actor Caller(HttpContext context) => ActorFactory.From(context.User)!;
 
