@@ -5,9 +5,10 @@ namespace CapReview.Engine.Taxes;
 
 /// <summary>
 /// After-tax cash flows of a yearly model (common practice, no source; see docs/methods.md). The first cost at year 0 is
-/// capitalised and recovered through the depreciation schedule; revenues, operating costs and capital outlays after
-/// year 0 (overhauls) are taxed or deducted in their year; at the horizon the salvage is compared with the book value
-/// and the gain taxed at the gain rate, a loss deducted at the income-tax rate. Tax = rate × taxable income, a
+/// capitalised and recovered through the depreciation schedule, and so is each capital outlay after year 0 (an
+/// overhaul or addition: <see cref="OutlayAssets"/>) unless marked as a repair; revenues, operating costs and repairs
+/// are taxed or deducted in their year; at the horizon the salvage is compared with the book value of the first cost
+/// and the outlays together and the gain taxed at the gain rate, a loss deducted at the income-tax rate. Tax = rate × taxable income, a
 /// negative tax being a saving against other income unless losses are carried forward; credits reduce the year's tax.
 /// With a loan, its proceeds, instalments and the tax saved on its interest give the equity flows.
 /// </summary>
@@ -49,8 +50,13 @@ public static class AfterTaxAnalysis
             }
         }
 
+        var outlays = OutlayAssets.Of(model, settings.Outlays);
+        for (int t = 0; t <= n; t++)
+        {
+            ordinary[t] += outlays.Cost[t];
+        }
         var schedule = settings.Depreciation.DisposedIn(n, settings.DisposalYearShare);
-        double bookValue = schedule.BookValueAfter(n);
+        double bookValue = schedule.BookValueAfter(n) + outlays.BookValueAtDisposal;
         double proceeds = salvage.Sum();
         double gain = proceeds - bookValue;
         var loan = LoanSchedule(settings.Financing, -capitalAtZero, n);
@@ -58,7 +64,7 @@ public static class AfterTaxAnalysis
         double carried = 0;
         for (int t = 0; t <= n; t++)
         {
-            double depreciation = t >= 1 && t <= schedule.Amounts.Count ? schedule.Amounts[t - 1] : 0;
+            double depreciation = (t >= 1 && t <= schedule.Amounts.Count ? schedule.Amounts[t - 1] : 0) + outlays.Depreciation[t];
             double taxable = ordinary[t] - depreciation + (t == n ? Math.Min(gain, 0) : 0);
             double gainTax = t == n ? gainRate * Math.Max(gain, 0) : 0;
             double used = 0;
