@@ -182,7 +182,7 @@ public static class SpecificationReader
         {
             return element;
         }
-        if (element.Category != CashFlowCategory.Capital || element.FirstPeriod < 1)
+        if (!ElementFields.MayBeExpensed(element.Category, element.FirstPeriod))
         {
             errors.Add(new($"{path}.expensed", "Only a capital cost after period 0 can be deducted as a repair in its year."));
         }
