@@ -60,4 +60,36 @@ public sealed class TaxInChromium(BrowserFixture browser) : IClassFixture<Browse
         await page.Locator("[data-testid=interactive]").WaitForAsync(new() { State = WaitForSelectorState.Attached });
         await Assertions.Expect(page.Locator("#risk-target-0")).ToHaveValueAsync("elements[#e3].amount");
     }
+
+    [Fact]
+    public async Task After_tax_a_later_capital_cost_can_be_marked_as_a_repair_and_the_mark_is_kept()
+    {
+        int draftId;
+        using (var scope = browser.App.Services.CreateScope())
+        {
+            await scope.ServiceProvider.GetRequiredService<DemoScenario>().EnsureAsync(CancellationToken.None);
+            var oskar = await scope.ServiceProvider.GetRequiredService<IdentityStore>().FindByEmailAsync("oskar.lind@tarnby.example");
+            var own = await scope.ServiceProvider.GetRequiredService<ProposalService>().ListOwnAsync(Actor.Of(oskar!.Id, "Oskar Lind", Role.ProjectLead), CancellationToken.None);
+            draftId = own.Single(p => p.Title == "Forklift fleet electrification").Id;
+        }
+        IPage page = await browser.SignedInPageAsync("oskar.lind@tarnby.example", "Oskar Lind", RoleNames.ProjectLead, DemoScenario.Password);
+        await page.GotoAsync(browser.App.BaseAddress + $"proposals/{draftId}");
+        await page.Locator("[data-testid=interactive]").WaitForAsync(new() { State = WaitForSelectorState.Attached });
+        await page.Locator("#tax-enabled").CheckAsync();
+        await Assertions.Expect(page.GetByTestId("outlay-note")).ToContainTextAsync("depreciated by the same method");
+        // The battery replacement at year 6 (element 5) takes the box; the trucks and the charging bay at period 0 do not.
+        await Assertions.Expect(page.Locator("[id$='-expensed']")).ToHaveCountAsync(1);
+        await Assertions.Expect(page.Locator("#el-4-expensed")).Not.ToBeCheckedAsync();
+        await page.Locator("#el-4-expensed").CheckAsync();
+        await page.GetByRole(AriaRole.Button, new() { Name = "Save draft" }).ClickAsync();
+        await Assertions.Expect(page.GetByTestId("editor-message")).ToHaveTextAsync("Saved.");
+        await BrowserFixture.ScreenshotAsync(page.Locator("section[aria-labelledby=elements-heading]"), "elements-repair-mark");
+
+        await page.ReloadAsync();
+        await page.Locator("[data-testid=interactive]").WaitForAsync(new() { State = WaitForSelectorState.Attached });
+        await Assertions.Expect(page.Locator("#el-4-expensed")).ToBeCheckedAsync();
+        await page.Locator("#el-4-expensed").UncheckAsync();
+        await page.GetByRole(AriaRole.Button, new() { Name = "Save draft" }).ClickAsync();
+        await Assertions.Expect(page.GetByTestId("editor-message")).ToHaveTextAsync("Saved.");
+    }
 }

@@ -110,6 +110,23 @@ public sealed class ProposalPacketTests
     }
 
     [Fact]
+    public void A_later_capital_outlay_is_listed_with_its_own_depreciation()
+    {
+        var tax = new Engine.Specifications.TaxSpec
+        {
+            IncomeTaxRate = 0.25,
+            Depreciation = new Engine.Specifications.DepreciationSpec { Method = Engine.Specifications.DepreciationMethod.Macrs, PropertyClass = Engine.Depreciation.MacrsClass.SevenYear },
+        };
+        var f = new PacketFormat(PacketSamples.Organisation.Culture, "EUR");
+        string text = Text(PacketRenderer.Proposal(PacketSamples.ProposalData(tax: tax), PacketSamples.Certificate)).Replace("\n", " ", StringComparison.Ordinal);
+        Assert.Contains("Later capital outlays", text);
+        // The spindle rebuild of 45,000 at year 5, 7-year property: its first year is 45,000 / 7 (200 % declining balance
+        // with half a year; IRS Publication 946, Table A-1, 14.29 %).
+        Assert.Contains($"5 {f.Money(45_000.0)} {f.Money(45_000 / 7.0)}", text);
+        Assert.DoesNotContain("Later capital outlays", Text(Packet));
+    }
+
+    [Fact]
     public void A_version_with_a_risk_analysis_carries_the_tornado_the_distribution_the_seed_and_the_trials()
     {
         var risk = new Engine.Specifications.RiskSpec

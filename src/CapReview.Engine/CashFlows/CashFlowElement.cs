@@ -19,6 +19,12 @@ public abstract record CashFlowElement(string Label, CashFlowCategory Category)
     /// <summary>Longest label.</summary>
     public const int MaxLabelLength = 120;
 
+    /// <summary>
+    /// For a capital element: its outlays after period 0 are repairs deducted in their year, not assets depreciated
+    /// from their year (see <see cref="Taxes.OutlayAssets"/>).
+    /// </summary>
+    public bool Expensed { get; init; }
+
     /// <summary>First period with a flow.</summary>
     public abstract int FirstPeriod { get; }
 

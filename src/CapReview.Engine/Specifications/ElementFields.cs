@@ -12,4 +12,11 @@ public static class ElementFields
         "growth" => kind == ElementKind.Geometric,
         _ => true,
     };
+
+    /// <summary>
+    /// Whether an element may be marked as a repair deducted in its year: only a capital cost after period 0 (an
+    /// overhaul or addition); the first cost is always the depreciated asset, and other categories are never capitalised.
+    /// </summary>
+    public static bool MayBeExpensed(CashFlows.CashFlowCategory? category, int firstPeriod) =>
+        category == CashFlows.CashFlowCategory.Capital && firstPeriod >= 1;
 }

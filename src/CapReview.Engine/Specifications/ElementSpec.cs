@@ -47,4 +47,17 @@ public sealed record ElementSpec
 
     /// <summary>For constant money: the element's own price escalation a year; null for general inflation.</summary>
     public double? Escalation { get; init; }
+
+    /// <summary>
+    /// True when a capital outlay after period 0 is a repair deducted in its year rather than an asset depreciated
+    /// from its year; null otherwise. False is stored as null, so documents written before the flag keep their text
+    /// and their hash.
+    /// </summary>
+    public bool? Expensed
+    {
+        get => expensed;
+        init => expensed = value is true ? true : null;
+    }
+
+    private readonly bool? expensed;
 }

@@ -37,7 +37,7 @@ public static class SpecificationReader
                 }
                 if (element is not null)
                 {
-                    elements.Add(element);
+                    elements.Add(ExpensedIfAsked(element, spec.Elements[e]!, $"elements[{e}]", errors));
                 }
             }
         }
@@ -173,6 +173,20 @@ public static class SpecificationReader
             ElementKind.Recurring => new RecurringAmount(label, category, first, last, every, amount),
             _ => Unknown(path, errors),
         };
+    }
+
+    /// <summary>Only a capital outlay after the first cost can be a repair; on any other element the flag would be ignored.</summary>
+    private static CashFlowElement ExpensedIfAsked(CashFlowElement element, ElementSpec spec, string path, List<InputError> errors)
+    {
+        if (spec.Expensed is not true)
+        {
+            return element;
+        }
+        if (!ElementFields.MayBeExpensed(element.Category, element.FirstPeriod))
+        {
+            errors.Add(new($"{path}.expensed", "Only a capital cost after period 0 can be deducted as a repair in its year."));
+        }
+        return element with { Expensed = true };
     }
 
     private static CashFlowElement? Unknown(string path, List<InputError> errors)

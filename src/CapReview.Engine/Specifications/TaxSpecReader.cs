@@ -68,7 +68,8 @@ public static class TaxSpecReader
         {
             return Outcome.Failure<TaxSettings>(errors);
         }
-        return Outcome.Success(new TaxSettings(rate, schedule, share, gain, spec.Losses ?? LossTreatment.Offset, credits, loan));
+        return Outcome.Success(new TaxSettings(rate, schedule, share, gain, spec.Losses ?? LossTreatment.Offset, credits, loan,
+            OutlayDepreciationReader.Read(spec.Depreciation!, share)));
     }
 
     private static (DepreciationSchedule? Schedule, double DisposalShare) ReadDepreciation(DepreciationSpec? spec, double firstCost, List<InputError> errors)

@@ -5,12 +5,14 @@ namespace CapReview.Engine.Taxes;
 
 /// <summary>
 /// After-tax cash flows of a yearly model (common practice, no source; see docs/methods.md). The first cost at year 0 is
-/// capitalised and recovered through the depreciation schedule; revenues, operating costs and capital outlays after
-/// year 0 (overhauls) are taxed or deducted in their year; at the horizon the salvage is compared with the book value:
-/// the gain up to the depreciation taken is recaptured as ordinary income, only the part above the basis is taxed at
-/// the gain rate, and a loss is deducted at the income-tax rate (<see cref="DisposalGain"/>). Tax = rate × taxable
-/// income, a negative tax being a saving against other income unless losses are carried forward, when they offset the
-/// later years' taxable income, the disposal's gain included (<see cref="YearlyTax"/>); credits reduce the year's tax.
+/// capitalised and recovered through the depreciation schedule, and so is each capital outlay after year 0 (an
+/// overhaul or addition: <see cref="OutlayAssets"/>) unless marked as a repair; revenues, operating costs and repairs
+/// are taxed or deducted in their year. At the horizon the salvage is compared with the book value of the first cost
+/// and the outlays together: the gain up to the depreciation taken is recaptured as ordinary income, only the part
+/// above the basis is taxed at the gain rate, and a loss is deducted at the income-tax rate (<see cref="DisposalGain"/>).
+/// Tax = rate × taxable income, a negative tax being a saving against other income unless losses are carried forward,
+/// when they offset the later years' taxable income, the disposal's gain included (<see cref="YearlyTax"/>); credits
+/// reduce the year's tax.
 /// With a loan, its proceeds, instalments and the tax saved on its interest give the equity flows.
 /// </summary>
 public static class AfterTaxAnalysis
@@ -51,17 +53,23 @@ public static class AfterTaxAnalysis
             }
         }
 
+        var outlays = OutlayAssets.Of(model, settings.Outlays);
+        for (int t = 0; t <= n; t++)
+        {
+            ordinary[t] += outlays.Cost[t];
+        }
         var schedule = settings.Depreciation.DisposedIn(n, settings.DisposalYearShare);
-        double bookValue = schedule.BookValueAfter(n);
+        double bookValue = schedule.BookValueAfter(n) + outlays.BookValueAtDisposal;
         double proceeds = salvage.Sum();
         // The gain enters the year's taxable income (recapture as ordinary income), where carried losses offset it.
-        var gain = DisposalGain.Of(proceeds, bookValue, schedule.Basis - bookValue);
+        double depreciationTaken = schedule.Basis - schedule.BookValueAfter(n) + outlays.Depreciation.Sum();
+        var gain = DisposalGain.Of(proceeds, bookValue, depreciationTaken);
         var loan = LoanSchedule(settings.Financing, -capitalAtZero, n);
         var rows = new List<AfterTaxRow>(n + 1);
         var taxes = new YearlyTax(rate, gainRate, settings.Losses);
         for (int t = 0; t <= n; t++)
         {
-            double depreciation = t >= 1 && t <= schedule.Amounts.Count ? schedule.Amounts[t - 1] : 0;
+            double depreciation = (t >= 1 && t <= schedule.Amounts.Count ? schedule.Amounts[t - 1] : 0) + outlays.Depreciation[t];
             double taxable = ordinary[t] - depreciation + (t == n ? gain.Ordinary : 0);
             double atGainRate = t == n ? gain.AtGainRate : 0;
             var (tax, used) = taxes.Charge(taxable, atGainRate);

@@ -14,7 +14,7 @@ public sealed record AfterTaxRow(int Period, double BeforeTax, double Depreciati
 
 /// <summary>The after-tax table and the disposal's figures.</summary>
 /// <param name="Rows">One row per year, 0 to the horizon.</param>
-/// <param name="BookValueAtDisposal">Book value when the asset is sold at the horizon.</param>
+/// <param name="BookValueAtDisposal">Book value when the asset, with its later capital outlays, is sold at the horizon.</param>
 /// <param name="GainOnDisposal">Proceeds less book value (negative: a loss).</param>
 /// <param name="LossCarriedOut">Losses still unused at the end (carry-forward only).</param>
 public sealed record AfterTaxResult(IReadOnlyList<AfterTaxRow> Rows, double BookValueAtDisposal, double GainOnDisposal, double LossCarriedOut)

@@ -32,6 +32,7 @@ public sealed record Loan(double Share, double Rate, int Term);
 /// <param name="Losses">What a year's tax loss does.</param>
 /// <param name="Credits">Tax credits by year.</param>
 /// <param name="Financing">A loan for part of the first cost, or null.</param>
+/// <param name="Outlays">How capital outlays after year 0 are depreciated; null deducts each in its year.</param>
 public sealed record TaxSettings(
     double IncomeTaxRate,
     DepreciationSchedule Depreciation,
@@ -39,7 +40,8 @@ public sealed record TaxSettings(
     double? GainTaxRate = null,
     LossTreatment Losses = LossTreatment.Offset,
     IReadOnlyList<TaxCredit>? Credits = null,
-    Loan? Financing = null);
+    Loan? Financing = null,
+    OutlayDepreciation? Outlays = null);
 
 /// <summary>Rates of income tax.</summary>
 public static class TaxRates

@@ -69,7 +69,7 @@ internal static class ProposalSections
         if (figures.AfterTax is { } afterTax)
         {
             flow.Bookmark("After tax", parent);
-            AfterTax(flow, afterTax, figures.Depreciation, f);
+            AfterTax(flow, afterTax, figures.Depreciation, figures.Outlays, f);
         }
 
         if (figures.Risk is { } study)
@@ -177,7 +177,7 @@ internal static class ProposalSections
         TableWriter.Draw(flow, [new("Element", 2.6), new("Shape", 1.1), new("Category", 1.1), new("Periods", 1.1), new("Amount", 2.2, true), new("PW at MARR", 1.4, true)], rows);
     }
 
-    private static void AfterTax(PageFlow flow, Outcome<AfterTaxEvaluation> outcome, Engine.Depreciation.DepreciationSchedule? schedule, PacketFormat f)
+    private static void AfterTax(PageFlow flow, Outcome<AfterTaxEvaluation> outcome, Engine.Depreciation.DepreciationSchedule? schedule, Engine.Taxes.OutlayAssets? outlays, PacketFormat f)
     {
         flow.Heading("After tax", PacketStyle.Heading1);
         flow.Note("Taxes", "Tax and depreciation rules vary by jurisdiction and by year. The after-tax figures are estimates from the rates and methods "
@@ -207,6 +207,15 @@ internal static class ProposalSections
         flow.Heading("Depreciation schedule", PacketStyle.Heading2);
         TableWriter.Draw(flow, [new("Tax year", 1, true), new("Depreciation", 2, true), new("Share of basis", 1.5, true), new("Book value at year end", 2, true)],
             schedule.Amounts.Select((a, k) => new TableRow([(k + 1).ToString(f.Culture), f.Money(a), f.Percent(schedule.Basis == 0 ? 0 : a / schedule.Basis), f.Money(schedule.BookValueAfter(k + 1))])));
+        if (outlays is { } o && o.Cost.Any(c => c > 0))
+        {
+            flow.Heading("Later capital outlays", PacketStyle.Heading2);
+            flow.Text("Each capital cost after year 0 that is not marked as a repair is depreciated by the same method as an asset of its own from the "
+                + $"year it is spent; its book value, {f.Money(o.BookValueAtDisposal)} in all, is recovered with the first cost at disposal (in the book value above).", PacketStyle.Body);
+            TableWriter.Draw(flow, [new("Year", 1, true), new("Cost capitalised", 2, true), new("Its depreciation", 2, true)],
+                Enumerable.Range(1, o.Cost.Count - 1).Where(t => o.Cost[t] > 0 || o.Depreciation[t] > 0)
+                    .Select(t => new TableRow([t.ToString(f.Culture), f.Money(o.Cost[t]), f.Money(o.Depreciation[t])])));
+        }
         flow.Heading("After-tax cash flows", PacketStyle.Heading2);
         bool equityColumn = r.Equity is not null;
         var columns = new List<TableColumn>

@@ -153,6 +153,7 @@ public static partial class FieldWording
         "type" => "shape",
         "money" => "money basis",
         "escalation" => "own escalation a year",
+        "expensed" => "deducted as a repair",
         "id" => "identity",
         "mostLikely" => "most likely",
         "target" => "input varied",

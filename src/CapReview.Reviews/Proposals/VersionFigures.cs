@@ -1,5 +1,6 @@
 using CapReview.Engine.Comparison;
 using CapReview.Engine.Depreciation;
+using CapReview.Engine.Taxes;
 using CapReview.Engine.Evaluation;
 using CapReview.Engine.Measures;
 using CapReview.Engine.Validation;
@@ -44,6 +45,9 @@ public sealed record VersionFigures(
     /// </summary>
     public string? WhyNoMeasures { get; init; }
 
+    /// <summary>The capital outlays after year 0 depreciated as assets of their own, with a complete after-tax evaluation.</summary>
+    public OutlayAssets? Outlays { get; init; }
+
     /// <summary>
     /// The figures of <paramref name="version"/> of <paramref name="proposal"/> under <paramref name="policy"/>, over
     /// <paramref name="studyPeriodYears"/> where the cycle has a study period. The simulation runs only when asked.
@@ -73,6 +77,7 @@ public sealed record VersionFigures(
             study, afterTax, depreciation, changes, risk, sensitivity, simulation)
         {
             WhyNoMeasures = evaluated.Errors is [var first, ..] ? Display.FieldWording.Message(first, version.Assumptions) : null,
+            Outlays = afterTax?.Value is { } a ? OutlayAssets.Of(a.BeforeTax.Model, a.Settings.Outlays) : null,
         };
     }
 }

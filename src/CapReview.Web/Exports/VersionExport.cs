@@ -84,11 +84,12 @@ public static class VersionExport
             new("type", ExportKind.Text), new("label", ExportKind.Text), new("category", ExportKind.Text), new("amount", ExportKind.Money),
             new("period", ExportKind.Whole), new("first", ExportKind.Whole), new("last", ExportKind.Whole), new("every", ExportKind.Whole),
             new("step", ExportKind.Money), new("growth", ExportKind.Percent), new("money", ExportKind.Text), new("escalation", ExportKind.Percent),
+            new("expensed", ExportKind.Text),
         ],
         [.. (model.Elements ?? []).OfType<ElementSpec>().Select(e => (IReadOnlyList<object?>)
         [
             e.Type?.ToString().ToLowerInvariant(), e.Label, e.Category?.ToString().ToLowerInvariant(), e.Amount, e.Period, e.First, e.Last, e.Every,
-            e.Step, e.Growth, e.Money?.ToString().ToLowerInvariant(), e.Escalation,
+            e.Step, e.Growth, e.Money?.ToString().ToLowerInvariant(), e.Escalation, e.Expensed == true ? "yes" : null,
         ])]);
 
     /// <summary>Each element's flow in each period (in actual money), in the per-period import shape.</summary>

@@ -100,6 +100,22 @@ public sealed partial class CellReading(CultureInfo numbers, List<ImportProblem>
         return (int)v;
     }
 
+    /// <summary>A yes-or-no cell: true for yes, null for no or blank (the flag's absence).</summary>
+    public bool? YesOrBlank(SheetRow row, int column, string name)
+    {
+        string text = row[column].Text.Trim();
+        if (text.Length == 0 || text.Equals("no", StringComparison.OrdinalIgnoreCase))
+        {
+            return null;
+        }
+        if (text.Equals("yes", StringComparison.OrdinalIgnoreCase))
+        {
+            return true;
+        }
+        Add(row.Number, name, $"“{text}” is not yes or no.");
+        return null;
+    }
+
     /// <summary>One of <typeparamref name="T"/>'s names (case and spaces ignored), <paramref name="blank"/> when empty.</summary>
     public T? Word<T>(SheetRow row, int column, string name, T? blank, string choices)
         where T : struct, Enum

@@ -10,7 +10,7 @@ namespace CapReview.Web.Importing;
 /// </summary>
 public static class ElementRowsShape
 {
-    public static readonly IReadOnlyList<string> Columns = ["type", "label", "category", "amount", "period", "first", "last", "every", "step", "growth", "money", "escalation"];
+    public static readonly IReadOnlyList<string> Columns = ["type", "label", "category", "amount", "period", "first", "last", "every", "step", "growth", "money", "escalation", "expensed"];
 
     private static readonly string[] Required = ["type", "amount"];
     private static readonly string[] TypeFields = ["period", "first", "last", "every", "step", "growth"];
@@ -93,6 +93,7 @@ public static class ElementRowsShape
                 Growth = uses("growth") ? read.Rate(row, Column("growth"), Named("growth"), true) : null,
                 Money = money == MoneyBasis.Constant ? MoneyBasis.Constant : null,
                 Escalation = money == MoneyBasis.Constant ? read.Rate(row, Column("escalation"), Named("escalation"), false) : null,
+                Expensed = read.YesOrBlank(row, Column("expensed"), Named("expensed")),
             }, row.Number));
         }
         return reading;

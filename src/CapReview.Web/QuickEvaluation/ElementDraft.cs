@@ -43,6 +43,9 @@ public sealed class ElementDraft
     /// <summary>For constant money, the element's own escalation in percent a year; blank for general inflation.</summary>
     public string EscalationPercent { get; set; } = "";
 
+    /// <summary>For a capital cost after period 0: a repair deducted in its year rather than an asset depreciated from it.</summary>
+    public bool Expensed { get; set; }
+
     /// <summary>The row of a stored or imported element, its numbers written in <paramref name="culture"/> as a person would type them.</summary>
     public static ElementDraft FromSpec(ElementSpec e, System.Globalization.CultureInfo culture)
     {
@@ -63,11 +66,15 @@ public sealed class ElementDraft
             GrowthPercent = Number((e.Growth ?? 0) * 100, culture),
             Money = e.Money ?? Engine.Inflation.MoneyBasis.Actual,
             EscalationPercent = e.Escalation is double escalation ? Number(escalation * 100, culture) : "",
+            Expensed = e.Expensed == true,
         };
     }
 
     /// <summary>A number as typed: no thousands separators, up to twelve decimals, blank when absent.</summary>
     public static string Number(double? value, System.Globalization.CultureInfo culture) => value is double v ? v.ToString("0.############", culture) : "";
+
+    /// <summary>Whether the row as typed may be marked as a repair (<see cref="ElementFields.MayBeExpensed"/>); a period not yet a number may not.</summary>
+    public bool MayBeExpensed => int.TryParse(Type == ElementKind.Single ? Period : First, System.Globalization.NumberStyles.AllowLeadingSign, System.Globalization.CultureInfo.InvariantCulture, out int first) && ElementFields.MayBeExpensed(Category, first);
 
     public bool Uses(string field) => field == "escalation"
         ? Money == Engine.Inflation.MoneyBasis.Constant

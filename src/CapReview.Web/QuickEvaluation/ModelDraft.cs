@@ -92,6 +92,7 @@ public sealed class ModelDraft
                 Money = row.Money == Engine.Inflation.MoneyBasis.Constant ? Engine.Inflation.MoneyBasis.Constant : null,
                 Escalation = row.Uses("escalation") && row.EscalationPercent.Trim().Length > 0
                     ? Real(row.EscalationPercent, $"{path}.escalation", culture, errors) / 100.0 : null,
+                Expensed = row.Expensed ? true : null,
             });
         }
         var spec = new ModelSpec

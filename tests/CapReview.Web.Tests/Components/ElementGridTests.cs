@@ -87,4 +87,39 @@ public sealed class ElementGridTests : IDisposable
         var grid = _context.Render<ElementGrid>(p => p.Add(c => c.State, _state).Add(c => c.Disabled, true));
         Assert.All(grid.FindAll("input, select, button"), e => Assert.True(e.HasAttribute("disabled")));
     }
+
+    [Fact]
+    public void After_tax_a_capital_cost_after_period_0_takes_a_repair_box_that_the_model_carries()
+    {
+        var beforeTax = Render();
+        Assert.Empty(beforeTax.FindAll("[id$='-expensed']"));
+
+        var grid = _context.Render<ElementGrid>(p => p
+            .Add(c => c.State, _state)
+            .Add(c => c.AfterTax, true)
+            .Add(c => c.Changed, () => { _changes++; _state.Recalculate(); }));
+        // Only the exchanger overhaul (capital, every 4 periods from period 4); not the first cost nor the revenue.
+        Assert.Equal(["el-3-expensed"], grid.FindAll("[id$='-expensed']").Select(b => b.Id));
+        Assert.False(grid.Find("#el-3-expensed").HasAttribute("checked"));
+        grid.Find("#el-3-expensed").Change(true);
+        Assert.True(_state.Draft.Elements[3].Expensed);
+        Assert.True(_state.Draft.Read(System.Globalization.CultureInfo.GetCultureInfo("en-IE")).Spec.Elements![3]!.Expensed);
+        Assert.Null(_state.Draft.Read(System.Globalization.CultureInfo.GetCultureInfo("en-IE")).Spec.Elements![4]!.Expensed);
+        Assert.Equal(1, _changes);
+    }
+
+    [Fact]
+    public void A_ticked_box_on_an_element_it_no_longer_fits_stays_in_view_with_its_reason()
+    {
+        var grid = _context.Render<ElementGrid>(p => p
+            .Add(c => c.State, _state)
+            .Add(c => c.AfterTax, true)
+            .Add(c => c.Changed, () => { _changes++; _state.Recalculate(); }));
+        grid.Find("#el-3-expensed").Change(true);
+        grid.Find("#el-3-category").Change(Engine.CashFlows.CashFlowCategory.Operating.ToString());
+        Assert.True(grid.Find("#el-3-expensed").HasAttribute("checked"));
+        Assert.Contains("Only a capital cost after period 0", grid.Find("#el-3-expensed-error").TextContent, StringComparison.Ordinal);
+        grid.Find("#el-3-expensed").Change(false);
+        Assert.Empty(grid.FindAll("#el-3-expensed"));
+    }
 }

@@ -119,6 +119,8 @@ public sealed class ModelImportTests
     [InlineData("type,label,amount,first,last,step\nuniform,Fuel,-100,1,5,20", 2, "F · step", "A uniform element has no step")]
     [InlineData("type,label,amount,period,escalation\nsingle,Truck,-100,0,0.02", 2, "E · escalation", "Only an element in constant money escalates")]
     [InlineData("type,label,amount,period,colour\nsingle,Truck,-100,0,red", 1, "E · colour", "Not a column of the per-element shape")]
+    [InlineData("type,label,category,amount,period,expensed\nsingle,Relining,capital,-100,4,maybe", 2, "F · expensed", "“maybe” is not yes or no")]
+    [InlineData("type,label,category,amount,period,expensed\nsingle,Relining,capital,-100,0,yes", 2, "F · expensed", "Only a capital cost after period 0")]
     [InlineData("type,label,amount,amount\nsingle,Truck,-100,-100", 1, "D · amount", "appears twice")]
     [InlineData("type,label,period\nsingle,Truck,0", 1, "amount", "no “amount” column")]
     [InlineData("type,label,amount,first,last\nuniform,Fuel,-100,6,2", 2, "E · last", "The last period comes before the first.")]
@@ -179,5 +181,18 @@ public sealed class ModelImportTests
         var preview = ModelImport.Read(template, File.ReadAllBytes(path), English);
         Assert.True(preview.CanApply, string.Join("; ", preview.Problems));
         Assert.Equal(elements, preview.Elements.Count);
+    }
+
+    [Fact]
+    public void A_later_capital_cost_marked_as_a_repair_imports_with_its_mark()
+    {
+        var preview = Csv("""
+            type,label,category,amount,period,expensed
+            single,Kiln,capital,-300000,0,
+            single,Relining,capital,-40000,4,yes
+            single,New burners,capital,-25000,5,no
+            """);
+        Assert.True(preview.CanApply, string.Join("; ", preview.Problems));
+        Assert.Equal([null, true, null], preview.Elements.Select(e => e.Spec.Expensed));
     }
 }

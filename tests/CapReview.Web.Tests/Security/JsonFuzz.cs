@@ -30,7 +30,7 @@ public static class JsonFuzz
     private static readonly string[] Keys =
     [
         "horizon", "elements", "rate", "value", "basis", "compoundingsPerYear", "periodsPerYear", "type", "label", "category", "amount", "period",
-        "first", "last", "every", "step", "growth", "money", "escalation", "tax", "inflation", "title", "description", "assumptions", "model",
+        "first", "last", "every", "step", "growth", "money", "escalation", "expensed", "tax", "inflation", "title", "description", "assumptions", "model",
         "riskClass", "format", "version", "cycle", "proposals", "versions", "decisions", "$type", "$ref", "__proto__", "constructor",
     ];
 

@@ -1,0 +1,11 @@
+using CapReview.Engine.Depreciation;
+
+namespace CapReview.Engine.Taxes;
+
+/// <summary>
+/// How a capital outlay after the first cost (an overhaul, an addition) is depreciated as an asset of its own: the
+/// proposal's method applied to the outlay's cost, placed in service in the outlay's year.
+/// </summary>
+/// <param name="ScheduleFor">The schedule of a cost (the first argument) placed in service in a year (the second, 1 or later); its tax year 1 is that year.</param>
+/// <param name="DisposalYearShare">The share of the disposal year's depreciation allowed, as for the first cost.</param>
+public sealed record OutlayDepreciation(Func<double, int, DepreciationSchedule> ScheduleFor, double DisposalYearShare);
