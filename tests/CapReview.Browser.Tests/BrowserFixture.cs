@@ -24,6 +24,9 @@ public sealed class BrowserFixture : IAsyncLifetime
         {
             throw new InvalidOperationException($"Chromium is not at {ChromiumPath}: install Debian's chromium package (see README) or set CHROMIUM_PATH.");
         }
+        // A figure the server computes (an analysis, a simulation) can take longer than Playwright's default 5 s on a
+        // busy two-core machine running several test classes at once; a person would wait for it too.
+        Assertions.SetDefaultExpectTimeout(15_000);
         App.Start();
         _playwright = await Playwright.CreateAsync();
         _chromium = await _playwright.Chromium.LaunchAsync(new BrowserTypeLaunchOptions
