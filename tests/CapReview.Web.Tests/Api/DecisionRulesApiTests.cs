@@ -105,6 +105,28 @@ public sealed class DecisionRulesApiTests(ApiFactory factory) : IClassFixture<Ap
     }
 
     [Fact]
+    public async Task The_selected_portfolio_that_breaks_a_rule_beside_an_earlier_approval_is_approved_only_with_an_override_and_its_reason()
+    {
+        var (cycle, press) = await factory.CycleWithSubmittedProposalAsync("Portfolio override API 2027", 0.08, ApiFactory.Draft("Press", 6, 300_000, 90_000));
+        var lathe = await AlsoSubmittedAsync(cycle.Id, "Lathe", 250_000, 55_000);
+        var (board, _) = await factory.TokenClientAsync("override.board@tarnby.example", RoleNames.Reviewer);
+        using var first = await board.PostAsJsonAsync($"/api/v1/cycles/{cycle.Id}/decisions", new { proposalId = lathe.Id, outcome = "approve", version = 1 });
+        Assert.Equal(HttpStatusCode.Created, first.StatusCode);
+
+        // The selection is the press alone; beside the lathe approved before, 300,000 + 250,000 against 500,000.
+        using var refused = await board.PostAsJsonAsync($"/api/v1/cycles/{cycle.Id}/decisions/portfolio", new { proposalIds = new[] { press.Id } });
+        Assert.Equal(HttpStatusCode.BadRequest, refused.StatusCode);
+        Assert.Contains("(550,000 approved against a limit of 500,000)", (await JsonAsync(refused)).GetProperty("errors").GetProperty("body")[0].GetString(), StringComparison.Ordinal);
+
+        using var overridden = await board.PostAsJsonAsync($"/api/v1/cycles/{cycle.Id}/decisions/portfolio",
+            new { proposalIds = new[] { press.Id }, @override = true, overrideReason = "The lathe is paid from the maintenance budget" });
+        Assert.Equal(HttpStatusCode.Created, overridden.StatusCode);
+        var decision = Assert.Single((await JsonAsync(overridden)).EnumerateArray());
+        Assert.Equal("The lathe is paid from the maintenance budget", decision.GetProperty("overrideReason").GetString());
+        Assert.Contains("550,000 approved against a limit of 500,000", decision.GetProperty("overriddenRules").GetString(), StringComparison.Ordinal);
+    }
+
+    [Fact]
     public async Task The_selected_portfolio_is_listed_then_approved_only_as_confirmed()
     {
         var (cycle, press) = await factory.CycleWithSubmittedProposalAsync("Portfolio approval API 2027", 0.08, ApiFactory.Draft("Press", 6, 300_000, 90_000));
