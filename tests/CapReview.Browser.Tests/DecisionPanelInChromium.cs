@@ -93,7 +93,7 @@ public sealed class DecisionPanelInChromium(BrowserFixture browser) : IClassFixt
         ILocator decision = board.GetByTestId("confirm-decision");
         await Assertions.Expect(decision).ToContainTextAsync("Record a return for changes on");
         await Assertions.Expect(decision).ToContainTextAsync("It supersedes the decision recorded before");
-        await Assertions.Expect(decision.GetByTestId("return-explained")).ToContainTextAsync("goes back to its lead for changes, with the conditions as the board's comment");
+        await Assertions.Expect(decision.GetByTestId("return-explained")).ToContainTextAsync("goes back to its lead for changes, with this comment from the board");
         // Returning the conveyor leaves 220,000 approved: no rule broken, no override asked.
         await Assertions.Expect(decision.GetByTestId("rule-override")).ToHaveCountAsync(0);
         await BrowserFixture.ScreenshotAsync(board, "decision-changed-to-return");
@@ -101,6 +101,7 @@ public sealed class DecisionPanelInChromium(BrowserFixture browser) : IClassFixt
         await Assertions.Expect(board.GetByTestId("cycle-message")).ToContainTextAsync("returned to its lead for changes; the decision it had is superseded.");
         await Assertions.Expect(conveyor).ToContainTextAsync("Returned for changes");
         await Assertions.Expect(conveyor.GetByRole(AriaRole.Combobox)).ToHaveCountAsync(0);
+        await Assertions.Expect(conveyor.GetByTestId("with-lead")).ToHaveTextAsync("With its lead for changes: the board decides it again once it is resubmitted.");
         await Assertions.Expect(board.GetByTestId("budget-year")).ToContainTextAsync("220,000");
         await BrowserFixture.ScreenshotAsync(board, "decision-returned");
     }

@@ -50,7 +50,8 @@ public sealed class DecisionConfirmationTests
         string text = dialog.Find("[data-testid=confirm-decision]").TextContent;
         Assert.Contains("Record a return for changes on P-0003 Feed pump, version 1?", text, StringComparison.Ordinal);
         Assert.Contains("It supersedes the decision recorded before; both stay in the record and the audit trail.", text, StringComparison.Ordinal);
-        Assert.Equal("P-0003 goes back to its lead for changes, with the conditions as the board's comment. The board decides it again once its lead resubmits it. "
+        Assert.Contains("Comment for the lead: Quote the spare impeller too", text, StringComparison.Ordinal);
+        Assert.Equal("P-0003 goes back to its lead for changes, with this comment from the board. The board decides it again once its lead resubmits it. "
             + "Until then it is not approved, and the cycle cannot be signed off.", Normalised(dialog.Find("[data-testid=return-explained]").TextContent));
         Assert.Empty(dialog.FindAll("[data-testid=rule-override]"));
 
