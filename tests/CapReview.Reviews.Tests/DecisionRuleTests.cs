@@ -275,6 +275,13 @@ public sealed class DecisionRuleTests(ReviewsDatabase db) : IClassFixture<Review
 
         var recorded = await approvals.ApproveAsync(Reviewer, cycle.Id, [a.Id, b.Id], true, "The conveyor is funded from the plant's own budget", None);
         Assert.All(recorded, d => Assert.Equal(("The conveyor is funded from the plant's own budget", true), (d.OverrideReason, d.OverriddenRules.Contains("420,000", StringComparison.Ordinal))));
+        await using (var context = db.NewContext())
+        {
+            var audited = await context.AuditEvents.Where(e => e.Action == "decision.recorded" && (e.EntityId == a.Reference || e.EntityId == b.Reference)).ToListAsync();
+            Assert.Equal(2, audited.Count);
+            // The audit's JSON escapes the apostrophe (\u0027).
+            Assert.All(audited, e => Assert.Contains("The conveyor is funded from the plant\\u0027s own budget", e.After, StringComparison.Ordinal));
+        }
         Assert.Empty(await approvals.PlanAsync(Reviewer, cycle.Id, None));
     }
 
