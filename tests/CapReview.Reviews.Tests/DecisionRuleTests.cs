@@ -146,9 +146,6 @@ public sealed class DecisionRuleTests(ReviewsDatabase db) : IClassFixture<Review
         var same = await Assert.ThrowsAsync<RuleViolationException>(() => DecideAsync(pump, DecisionOutcome.Approve));
         Assert.Contains("already approved", same.Message, StringComparison.Ordinal);
 
-        var returned = await Assert.ThrowsAsync<RuleViolationException>(() => DecideAsync(pump, DecisionOutcome.ReturnForChanges));
-        Assert.Contains("not to a return for changes", returned.Message, StringComparison.Ordinal);
-
         var second = await DecideAsync(pump, DecisionOutcome.Reject);
         Assert.Equal(ProposalStatus.Rejected, (await db.Proposals.GetAsync(Reviewer, pump.Id, None)).Status);
         var stored = await DecisionsOfAsync(pump.Id);
@@ -172,6 +169,120 @@ public sealed class DecisionRuleTests(ReviewsDatabase db) : IClassFixture<Review
         await db.Decisions.SignOffAsync(SecondReviewer, cycle.Id, None);
         var late = await Assert.ThrowsAsync<RuleViolationException>(() => DecideAsync(pump, DecisionOutcome.Approve));
         Assert.Contains("already decided", late.Message, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public async Task An_approval_changed_to_a_return_goes_back_to_its_lead_superseded_and_audited_and_is_decided_again_once_resubmitted()
+    {
+        var cycle = await db.OpenCycleAsync("Change to return 2027", capitalLimit: 100_000m);
+        var pump = await SubmittedAsync(cycle, "Feed pump", -30_000);
+        var fan = await SubmittedAsync(cycle, "Extract fan", -80_000);
+        var approval = await DecideAsync(pump, DecisionOutcome.Approve);
+        // 30,000 + 80,000 against the 100,000 limit: the fan fits only once the pump's approval is gone.
+        var preview = await db.Decisions.PreviewAsync(Reviewer, new DecisionRequest(fan.Id, DecisionOutcome.Approve, "", cycle.Id, 1, null), None);
+        Assert.Equal("year:0", Assert.Single(preview).Key);
+
+        var returned = await db.Decisions.DecideAsync(SecondReviewer,
+            new DecisionRequest(pump.Id, DecisionOutcome.ReturnForChanges, "Quote the spare impeller too", cycle.Id, 1, null), None);
+        var lead = await db.Proposals.GetAsync(Lead, pump.Id, None);
+        Assert.Equal(ProposalStatus.ReturnedForChanges, lead.Status);
+        Assert.Equal([(approval.Id, DecisionOutcome.Approve), (returned.Id, DecisionOutcome.ReturnForChanges)], (await DecisionsOfAsync(pump.Id)).Select(d => (d.Id, d.Outcome)));
+        // The lead reads the board's comment with the decision, as after a first return.
+        var listed = await db.Decisions.DecisionsAsync(Lead, cycle.Id, None);
+        Assert.Equal([(approval.Id, (int?)returned.Id, ""), (returned.Id, null, "Quote the spare impeller too")], listed.Select(d => (d.Id, d.SupersededBy, d.Conditions)));
+        await using (var context = db.NewContext())
+        {
+            var audited = await context.AuditEvents.Where(e => e.Action == "decision.recorded" && e.EntityId == pump.Reference).OrderBy(e => e.Id).ToListAsync();
+            Assert.Equal(2, audited.Count);
+            Assert.Contains("\"status\":\"Approved\"", audited[1].Before, StringComparison.Ordinal);
+            Assert.Contains("\"status\":\"ReturnedForChanges\"", audited[1].After, StringComparison.Ordinal);
+            Assert.Contains($"\"supersedes\":{approval.Id}", audited[1].After, StringComparison.Ordinal);
+        }
+        // The approved capital is judged again on the set the return leaves: nothing approved, so the fan fits.
+        var standing = await db.Decisions.StandingAsync(Reviewer, cycle.Id, None);
+        Assert.Equal(0.0, Assert.Single(standing.Years).Approved);
+        Assert.Empty(await db.Decisions.PreviewAsync(Reviewer, new DecisionRequest(fan.Id, DecisionOutcome.Approve, "", cycle.Id, 1, null), None));
+        // No sign-off can be given while the pump is with its lead.
+        await DecideAsync(fan, DecisionOutcome.Approve);
+        var open = await Assert.ThrowsAsync<RuleViolationException>(() => db.Decisions.SignOffAsync(Reviewer, cycle.Id, None));
+        Assert.Equal($"Decide every proposal first: {pump.Reference} still open.", open.Message);
+
+        var again = await Assert.ThrowsAsync<RuleViolationException>(() => DecideAsync(pump, DecisionOutcome.Approve));
+        Assert.Equal($"{pump.Reference} is returned for changes: the board decides it again once its lead resubmits it.", again.Message);
+
+        // Revised and resubmitted: the board decides version 2; a decision on version 1 is a conflict.
+        var revised = await db.Proposals.ReviseAsync(Lead, pump.Id, lead.Revision, Draft(title: "Feed pump", firstCost: -15_000).Assumptions, "Spare impeller quoted", None);
+        var resubmitted = await db.Proposals.SubmitAsync(Lead, pump.Id, cycle.Id, revised.Revision, None);
+        Assert.Equal(ProposalStatus.Submitted, resubmitted.Status);
+        await Assert.ThrowsAsync<ConcurrencyConflictException>(() => DecideAsync(pump, DecisionOutcome.Approve));
+        var decidedAgain = await db.Decisions.DecideAsync(Reviewer, new DecisionRequest(pump.Id, DecisionOutcome.Approve, "", cycle.Id, 2, null), None);
+        Assert.Equal((2, ProposalStatus.Approved), (decidedAgain.VersionNumber, (await db.Proposals.GetAsync(Reviewer, pump.Id, None)).Status));
+        // 15,000 + 80,000 within the 100,000.
+        Assert.Equal(95_000.0, Assert.Single((await db.Decisions.StandingAsync(Reviewer, cycle.Id, None)).Years).Approved);
+
+        await db.Decisions.SignOffAsync(Reviewer, cycle.Id, None);
+        await db.Decisions.SignOffAsync(SecondReviewer, cycle.Id, None);
+        var late = await Assert.ThrowsAsync<RuleViolationException>(() => db.Decisions.DecideAsync(Reviewer,
+            new DecisionRequest(pump.Id, DecisionOutcome.ReturnForChanges, "", cycle.Id, 2, null), None));
+        Assert.Equal("The cycle Change to return 2027 is already decided.", late.Message);
+        Assert.Equal(3, (await DecisionsOfAsync(pump.Id)).Count);
+    }
+
+    [Fact]
+    public async Task A_return_that_leaves_an_approved_dependent_without_its_prerequisite_is_refused_unless_overridden_with_a_reason()
+    {
+        var cycle = await db.OpenCycleAsync("Return and rules 2027");
+        var extraction = await SubmittedAsync(cycle, "Extraction", -20_000);
+        var ducting = await SubmittedAsync(cycle, "Ducting", -10_000);
+        await db.PortfolioRules.AddContingencyAsync(Reviewer, cycle.Id, extraction.Id, ducting.Id, None);
+        await DecideAsync(ducting, DecisionOutcome.Approve);
+        await DecideAsync(extraction, DecisionOutcome.Approve);
+
+        var refused = await Assert.ThrowsAsync<RuleViolationException>(() => DecideAsync(ducting, DecisionOutcome.ReturnForChanges));
+        Assert.Contains($"{extraction.Reference} is approved only with its prerequisite {ducting.Reference} ({ducting.Reference} is returned for changes)", refused.Message, StringComparison.Ordinal);
+        Assert.Equal(ProposalStatus.Approved, (await db.Proposals.GetAsync(Reviewer, ducting.Id, None)).Status);
+        Assert.Single(await DecisionsOfAsync(ducting.Id));
+
+        var recorded = await DecideAsync(ducting, DecisionOutcome.ReturnForChanges, overriding: true, reason: "The ducting route changes; extraction goes ahead on the old ducts");
+        Assert.Contains($"prerequisite {ducting.Reference}", recorded.OverriddenRules, StringComparison.Ordinal);
+        Assert.Equal("The ducting route changes; extraction goes ahead on the old ducts", recorded.OverrideReason);
+        Assert.Equal(ProposalStatus.ReturnedForChanges, (await db.Proposals.GetAsync(Reviewer, ducting.Id, None)).Status);
+    }
+
+    [Fact]
+    public async Task The_selected_portfolio_names_the_rules_it_would_break_beside_earlier_approvals_and_is_approved_only_with_an_override()
+    {
+        var cycle = await db.OpenCycleAsync("Portfolio override 2027", capitalLimit: 250_000m);
+        // At 8 % over 10 years (P/A = 6.7101, common practice, no source): A 41,042, B 34,202, C 1,302 present worth;
+        // the selection is A and B (220,000), and C was approved on its own before.
+        var a = await SubmittedAsync(cycle, "Compressor A", -120_000, saving: 24_000);
+        var b = await SubmittedAsync(cycle, "Lighting B", -100_000, saving: 20_000);
+        var c = await SubmittedAsync(cycle, "Conveyor C", -200_000, saving: 30_000);
+        await DecideAsync(c, DecisionOutcome.Approve);
+        var approvals = db.Get<PortfolioApprovalService>();
+
+        var plan = await approvals.PlanAsync(Reviewer, cycle.Id, None);
+        Assert.Equal([a.Id, b.Id], plan.Select(p => p.ProposalId).Order());
+        var broken = Assert.Single(await approvals.RulesBrokenAsync(Reviewer, cycle.Id, plan, None));
+        // 200,000 + 120,000 + 100,000 against 250,000.
+        Assert.Contains("420,000 approved against a limit of 250,000", broken.Words, StringComparison.Ordinal);
+        Assert.Empty(await DecisionsOfAsync(a.Id));
+
+        var refused = await Assert.ThrowsAsync<RuleViolationException>(() => approvals.ApproveAsync(Reviewer, cycle.Id, [a.Id, b.Id], false, null, None));
+        Assert.Contains("420,000 approved against a limit of 250,000", refused.Message, StringComparison.Ordinal);
+        await Assert.ThrowsAsync<RuleViolationException>(() => approvals.ApproveAsync(Reviewer, cycle.Id, [a.Id, b.Id], true, " ", None));
+        Assert.Empty(await DecisionsOfAsync(a.Id));
+
+        var recorded = await approvals.ApproveAsync(Reviewer, cycle.Id, [a.Id, b.Id], true, "The conveyor is funded from the plant's own budget", None);
+        Assert.All(recorded, d => Assert.Equal(("The conveyor is funded from the plant's own budget", true), (d.OverrideReason, d.OverriddenRules.Contains("420,000", StringComparison.Ordinal))));
+        await using (var context = db.NewContext())
+        {
+            var audited = await context.AuditEvents.Where(e => e.Action == "decision.recorded" && (e.EntityId == a.Reference || e.EntityId == b.Reference)).ToListAsync();
+            Assert.Equal(2, audited.Count);
+            // The audit's JSON escapes the apostrophe (\u0027).
+            Assert.All(audited, e => Assert.Contains("The conveyor is funded from the plant\\u0027s own budget", e.After, StringComparison.Ordinal));
+        }
+        Assert.Empty(await approvals.PlanAsync(Reviewer, cycle.Id, None));
     }
 
     [Fact]

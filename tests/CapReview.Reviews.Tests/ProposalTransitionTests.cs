@@ -59,6 +59,10 @@ public sealed class ProposalTransitionTests
             case ProposalStatus.InReview:
                 proposal.StartReview(actor);
                 break;
+            // A decided proposal goes back to its lead only as a new decision, which supersedes the one it had.
+            case ProposalStatus.ReturnedForChanges when proposal.Status is ProposalStatus.Approved or ProposalStatus.Rejected:
+                proposal.Decide(actor, DecisionOutcome.ReturnForChanges, "", cycle, At);
+                break;
             case ProposalStatus.ReturnedForChanges:
                 proposal.Return(actor);
                 break;
@@ -166,6 +170,32 @@ public sealed class ProposalTransitionTests
         Assert.True(proposal.Versions[0].IsFrozen);
         Assert.False(proposal.Latest.IsFrozen);
         Assert.Equal("Supplier quote came in higher", proposal.Latest.Reason);
+    }
+
+    [Theory]
+    [InlineData(ProposalStatus.Approved, "approved")]
+    [InlineData(ProposalStatus.Rejected, "rejected")]
+    public void A_decided_proposal_goes_back_to_its_lead_only_as_a_new_decision(ProposalStatus decided, string words)
+    {
+        BudgetCycle cycle = OpenCycle();
+        Proposal proposal = ProposalIn(decided, cycle);
+        proposal.AssignReference("P-0042");
+        var error = Assert.Throws<RuleViolationException>(() => proposal.Return(Reviewer));
+        Assert.Equal($"P-0042 is {words}: record the return for changes as a decision, which supersedes the one recorded.", error.Message);
+        Assert.Equal(decided, proposal.Status);
+
+        Decision returned = proposal.Decide(Reviewer, DecisionOutcome.ReturnForChanges, "  Quote the heat meter too  ", cycle, At);
+        Assert.Equal((ProposalStatus.ReturnedForChanges, DecisionOutcome.ReturnForChanges, 1, "Quote the heat meter too"),
+            (proposal.Status, returned.Outcome, returned.VersionNumber, returned.Conditions));
+        var again = Assert.Throws<RuleViolationException>(() => proposal.Decide(Reviewer, DecisionOutcome.Approve, "", cycle, At));
+        Assert.Equal("P-0042 is returned for changes: the board decides it again once its lead resubmits it.", again.Message);
+
+        // The lead revises and resubmits; the board decides the new version.
+        proposal.EditDraft(Lead, Draft(firstCost: -130_000, reason: "Heat meter quoted"), At, cycle.Status);
+        proposal.Submit(Lead, cycle, At);
+        Assert.Throws<ConcurrencyConflictException>(() => proposal.Decide(Reviewer, DecisionOutcome.Approve, "", cycle, At, judgedVersion: 1));
+        Decision decidedAgain = proposal.Decide(Reviewer, DecisionOutcome.Approve, "", cycle, At, judgedVersion: 2);
+        Assert.Equal((ProposalStatus.Approved, 2), (proposal.Status, decidedAgain.VersionNumber));
     }
 
     [Fact]

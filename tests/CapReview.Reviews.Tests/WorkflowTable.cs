@@ -30,6 +30,9 @@ internal static class WorkflowTable
         // A decision changed before the cycle is signed off (issue 17).
         (ProposalStatus.Approved, ProposalStatus.Rejected, Role.Reviewer),
         (ProposalStatus.Rejected, ProposalStatus.Approved, Role.Reviewer),
+        // … or to a return for changes, recorded as a decision that supersedes the one before.
+        (ProposalStatus.Approved, ProposalStatus.ReturnedForChanges, Role.Reviewer),
+        (ProposalStatus.Rejected, ProposalStatus.ReturnedForChanges, Role.Reviewer),
     ];
 
     /// <summary>The role the agreed table names for a move, or null when the move is not in it.</summary>

@@ -42,14 +42,22 @@ public sealed class WorkflowTests(ReviewsDatabase db) : IClassFixture<ReviewsDat
     [MemberData(nameof(EveryPair))]
     public async Task Only_the_allowed_transitions_by_the_allowed_role_succeed(ProposalStatus from, ProposalStatus to)
     {
-        bool decision = to is ProposalStatus.Approved or ProposalStatus.Rejected;
+        // A decided proposal goes back to its lead only as a new decision, which supersedes the one it had.
+        bool decision = to is ProposalStatus.Approved or ProposalStatus.Rejected
+            || (to == ProposalStatus.ReturnedForChanges && from is ProposalStatus.Approved or ProposalStatus.Rejected);
+        DecisionOutcome outcome = to switch
+        {
+            ProposalStatus.Approved => DecisionOutcome.Approve,
+            ProposalStatus.Rejected => DecisionOutcome.Reject,
+            _ => DecisionOutcome.ReturnForChanges,
+        };
         foreach (Actor actor in new[] { Lead, OtherLead, Reviewer, Finance, Admin })
         {
             var proposal = await ProposalInAsync(from);
             bool permitted = WorkflowTable.Permits(from, to, actor, Lead.UserId);
             // Approval and rejection go through the board's decision; every other step through the transition itself.
             Func<Task> act = decision
-                ? () => db.Decisions.DecideAsync(actor, proposal.Id, to == ProposalStatus.Approved ? DecisionOutcome.Approve : DecisionOutcome.Reject, "", proposal.Revision, CancellationToken.None)
+                ? () => db.Decisions.DecideAsync(actor, proposal.Id, outcome, "", proposal.Revision, CancellationToken.None)
                 : () => db.Proposals.TransitionAsync(actor, proposal.Id, to, proposal.Revision, CancellationToken.None);
             if (permitted)
             {
@@ -63,6 +71,18 @@ public sealed class WorkflowTests(ReviewsDatabase db) : IClassFixture<ReviewsDat
                 Assert.Equal(from, (await db.Proposals.GetAsync(Admin, proposal.Id, CancellationToken.None)).Status);
             }
         }
+    }
+
+    [Theory]
+    [InlineData(ProposalStatus.Approved)]
+    [InlineData(ProposalStatus.Rejected)]
+    public async Task A_decided_proposal_is_not_returned_by_a_bare_transition_that_would_leave_its_decision_standing(ProposalStatus decided)
+    {
+        var proposal = await ProposalInAsync(decided);
+        var error = await Assert.ThrowsAsync<RuleViolationException>(() =>
+            db.Proposals.TransitionAsync(Reviewer, proposal.Id, ProposalStatus.ReturnedForChanges, proposal.Revision, CancellationToken.None));
+        Assert.EndsWith("record the return for changes as a decision, which supersedes the one recorded.", error.Message, StringComparison.Ordinal);
+        Assert.Equal(decided, (await db.Proposals.GetAsync(Admin, proposal.Id, CancellationToken.None)).Status);
     }
 
     [Fact]

@@ -24,7 +24,8 @@ public sealed class DecisionService(ReviewWork work, AuditTrail audit, TimeProvi
     /// decides on what they saw, or not at all. A decision that breaks the board's portfolio rules (a capital limit,
     /// an exclusive or mandatory group, a prerequisite) more than the decisions before it did is refused, unless the
     /// request overrides them with a reason; the decision, its audit event and the cycle packet then record both.
-    /// An approval or rejection can be changed until the cycle is signed off: the new decision supersedes the old.
+    /// An approval or rejection can be changed until the cycle is signed off, to the other or to a return for changes:
+    /// the new decision supersedes the old, and the rules are judged on the set the change leaves.
     /// </summary>
     public Task<Decision> DecideAsync(Actor actor, DecisionRequest request, CancellationToken cancellationToken)
     {
@@ -109,6 +110,29 @@ public sealed class DecisionService(ReviewWork work, AuditTrail audit, TimeProvi
                 await AuditAsync(db, actor, cycle, decision, cancellationToken).ConfigureAwait(false);
             }
             return decisions;
+        }, cancellationToken);
+    }
+
+    /// <summary>
+    /// The rules several decisions recorded together would break (<see cref="DecideAllAsync"/>), recording nothing:
+    /// what the page names before the member confirms the selected portfolio, so that an override is asked for.
+    /// </summary>
+    internal Task<IReadOnlyList<RuleStanding>> PreviewAllAsync(Actor actor, int cycleId, IReadOnlyList<DecisionRequest> requests, CancellationToken cancellationToken)
+    {
+        foreach (DecisionRequest request in requests)
+        {
+            Check(actor, request);
+        }
+        return work.ReadAsync<IReadOnlyList<RuleStanding>>(async db =>
+        {
+            CycleDecisions cycle = await CycleDecisions.ForCycleAsync(db, cycleId, cancellationToken).ConfigureAwait(false);
+            DecisionStanding before = cycle.Standing();
+            // Decided in memory only: nothing here is saved.
+            foreach (DecisionRequest request in requests)
+            {
+                cycle.Proposal(request.ProposalId).Decide(actor, request.Outcome, request.Conditions, cycle.Cycle, clock.GetUtcNow(), request.Version);
+            }
+            return cycle.Standing().BrokenSince(before);
         }, cancellationToken);
     }
 

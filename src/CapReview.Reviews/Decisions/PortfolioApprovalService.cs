@@ -36,6 +36,17 @@ public sealed class PortfolioApprovalService(PortfolioService portfolios, Decisi
     }
 
     /// <summary>
+    /// The board's rules that approving <paramref name="plan"/> would break, with the decisions already recorded (an
+    /// approval outside the selection may leave too little of a limit, say); empty when it breaks none. Nothing is
+    /// recorded: the member sees the rules named before confirming, and confirms with an override and its reason.
+    /// </summary>
+    public Task<IReadOnlyList<RuleStanding>> RulesBrokenAsync(Actor actor, int cycleId, IReadOnlyList<PortfolioApproval> plan, CancellationToken cancellationToken)
+    {
+        ArgumentNullException.ThrowIfNull(plan);
+        return decisions.PreviewAllAsync(actor, cycleId, Requests(cycleId, plan), cancellationToken);
+    }
+
+    /// <summary>
     /// Records the approvals the member confirmed, all or none. The selection is computed again: if it no longer asks
     /// for exactly the confirmed approvals (a decision, a rule or a version changed meanwhile), nothing is recorded and
     /// the member looks again.
@@ -55,7 +66,9 @@ public sealed class PortfolioApprovalService(PortfolioService portfolios, Decisi
         {
             throw new RuleViolationException("Every proposal of the selected portfolio is already approved.");
         }
-        var requests = plan.Select(p => new DecisionRequest(p.ProposalId, DecisionOutcome.Approve, "", cycleId, p.Version, null)).ToList();
-        return await decisions.DecideAllAsync(actor, cycleId, requests, overrideRules, overrideReason, cancellationToken).ConfigureAwait(false);
+        return await decisions.DecideAllAsync(actor, cycleId, Requests(cycleId, plan), overrideRules, overrideReason, cancellationToken).ConfigureAwait(false);
     }
+
+    private static List<DecisionRequest> Requests(int cycleId, IReadOnlyList<PortfolioApproval> plan) =>
+        [.. plan.Select(p => new DecisionRequest(p.ProposalId, DecisionOutcome.Approve, "", cycleId, p.Version, null))];
 }

@@ -201,15 +201,28 @@ public sealed class Proposal
     /// <summary>A board member takes a submitted proposal into review.</summary>
     public void StartReview(Actor board) => Move(board, ProposalStatus.InReview);
 
-    /// <summary>A board member sends the proposal back to its lead for changes.</summary>
-    public void Return(Actor board) => Move(board, ProposalStatus.ReturnedForChanges);
+    /// <summary>
+    /// A board member sends the proposal back to its lead for changes. A decided proposal goes back only through a new
+    /// decision (<see cref="Decide"/>), so that the decision it had is superseded in the record, never just left behind.
+    /// </summary>
+    public void Return(Actor board)
+    {
+        EnsureMayBecome(board, ProposalStatus.ReturnedForChanges);
+        if (Status is ProposalStatus.Approved or ProposalStatus.Rejected)
+        {
+            throw new RuleViolationException($"{Reference} is {ProposalStatusWords.Describe(Status)}: record the return for changes as a decision, which supersedes the one recorded.");
+        }
+        Move(board, ProposalStatus.ReturnedForChanges);
+    }
 
     /// <summary>The lead takes the proposal out of the workflow.</summary>
     public void Withdraw(Actor lead) => Move(lead, ProposalStatus.Withdrawn);
 
     /// <summary>
     /// The board's decision on the latest frozen version, at <paramref name="cycle"/>'s MARR; a proposal not yet in review
-    /// passes through review, and an approval or rejection may be changed to the other while the cycle is undecided. Returns the decision to store. Given the version the member judged, a later submitted
+    /// passes through review. An approval or rejection may be changed while the cycle is undecided, to the other or to a
+    /// return for changes, which sends the proposal back to its lead as a first return does (the board decides it again
+    /// once resubmitted). Returns the decision to store. Given the version the member judged, a later submitted
     /// version is a conflict, so a decision is never recorded on a version nobody looked at.
     /// </summary>
     public Decision Decide(Actor board, DecisionOutcome outcome, string? conditions, BudgetCycle? cycle, DateTimeOffset at, int? judgedVersion = null)
@@ -223,7 +236,12 @@ public sealed class Proposal
         if (Status is not (ProposalStatus.Submitted or ProposalStatus.InReview or ProposalStatus.Approved or ProposalStatus.Rejected)
             || BudgetCycleId is not int cycleId || cycle is null || cycle.Id != cycleId)
         {
-            throw new RuleViolationException("Only a submitted proposal can be decided.");
+            throw new RuleViolationException(Status switch
+            {
+                ProposalStatus.ReturnedForChanges => $"{Reference} is returned for changes: the board decides it again once its lead resubmits it.",
+                ProposalStatus.Withdrawn => $"{Reference} was withdrawn by its lead: there is nothing to decide.",
+                _ => "Only a submitted proposal can be decided.",
+            });
         }
         if (cycle.Status is CycleStatus.Decided or CycleStatus.Closed)
         {
@@ -247,10 +265,6 @@ public sealed class Proposal
             DecisionOutcome.ReturnForChanges => ProposalStatus.ReturnedForChanges,
             _ => throw new RuleViolationException("Choose approve, return for changes or reject."),
         };
-        if (from is ProposalStatus.Approved or ProposalStatus.Rejected && to == ProposalStatus.ReturnedForChanges)
-        {
-            throw new RuleViolationException($"{Reference} is {ProposalStatusWords.Describe(from)}: a decision can be changed between approve and reject, not to a return for changes.");
-        }
         if (from == to)
         {
             throw new RuleViolationException($"{Reference} is already {ProposalStatusWords.Describe(to)}: choose another outcome to change the decision.");

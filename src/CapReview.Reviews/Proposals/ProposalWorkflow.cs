@@ -31,6 +31,9 @@ public static class ProposalWorkflow
         // A decision changed before the cycle is signed off: a new decision supersedes the old one.
         (ProposalStatus.Approved, ProposalStatus.Rejected, Role.Reviewer),
         (ProposalStatus.Rejected, ProposalStatus.Approved, Role.Reviewer),
+        // … or to a return for changes, which sends the proposal back to its lead (only as a decision: Proposal.Decide).
+        (ProposalStatus.Approved, ProposalStatus.ReturnedForChanges, Role.Reviewer),
+        (ProposalStatus.Rejected, ProposalStatus.ReturnedForChanges, Role.Reviewer),
     ];
 
     /// <summary>The role a transition needs, or null when the transition does not exist.</summary>

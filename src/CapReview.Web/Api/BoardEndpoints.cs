@@ -23,7 +23,7 @@ public static class BoardEndpoints
             .WithName("RecordDecision")
             .WithSummary("Record a board member's decision on the version they judged")
             .WithDescription("Body: proposalId, outcome (approve, returnForChanges, reject), conditions, version (the version judged), optionally revision. A later submitted version answers 409. " +
-                "An approval or rejection can be changed until the cycle is signed off: the new decision supersedes the old. A decision that breaks the board's portfolio rules (a capital limit, " +
+                "An approval or rejection can be changed until the cycle is signed off, to the other or to returnForChanges (the proposal goes back to its lead): the new decision supersedes the old. A decision that breaks the board's portfolio rules (a capital limit, " +
                 "an exclusive or mandatory group, a prerequisite) answers 400 naming the rule, unless override is true with an overrideReason.")
             .Accepts<DecisionApiRequest>("application/json")
             .Produces<DecisionResponse>(StatusCodes.Status201Created)
@@ -44,7 +44,8 @@ public static class BoardEndpoints
         routes.MapPost("/api/v1/cycles/{id:int}/decisions/portfolio", ApprovePortfolioAsync)
             .WithName("ApprovePortfolio")
             .WithSummary("Approve the selected portfolio in one step: the confirmed proposals, exactly as the selection lists them")
-            .WithDescription("Body: proposalIds (as GET lists them), optionally override and overrideReason. A selection that changed since answers 409 and records nothing.")
+            .WithDescription("Body: proposalIds (as GET lists them), optionally override and overrideReason. A selection that changed since answers 409 and records nothing; " +
+                "approvals that break the board's rules beside the decisions already recorded answer 400 naming the rule, unless override is true with an overrideReason.")
             .Accepts<PortfolioApprovalRequest>("application/json")
             .Produces<IReadOnlyList<DecisionResponse>>(StatusCodes.Status201Created)
             .ProducesValidationProblem()

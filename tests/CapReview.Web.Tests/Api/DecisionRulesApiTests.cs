@@ -69,6 +69,64 @@ public sealed class DecisionRulesApiTests(ApiFactory factory) : IClassFixture<Ap
     }
 
     [Fact]
+    public async Task An_approval_changed_to_a_return_supersedes_it_sends_the_proposal_back_and_is_decided_again_once_resubmitted()
+    {
+        var (cycle, kiln) = await factory.CycleWithSubmittedProposalAsync("Return API 2027", 0.08, ApiFactory.Draft("Kiln burner", 6, 100_000, 30_000));
+        var (board, _) = await factory.TokenClientAsync("return.board@tarnby.example", RoleNames.Reviewer);
+        using var approved = await board.PostAsJsonAsync($"/api/v1/cycles/{cycle.Id}/decisions", new { proposalId = kiln.Id, outcome = "approve", version = 1 });
+        int approvalId = (await JsonAsync(approved)).GetProperty("id").GetInt32();
+
+        using var returned = await board.PostAsJsonAsync($"/api/v1/cycles/{cycle.Id}/decisions",
+            new { proposalId = kiln.Id, outcome = "returnForChanges", conditions = "Quote the burner's service contract", version = 1 });
+        Assert.Equal(HttpStatusCode.Created, returned.StatusCode);
+        var recorded = await JsonAsync(returned);
+        Assert.Equal(("returnForChanges", "Quote the burner's service contract"), (recorded.GetProperty("outcome").GetString(), recorded.GetProperty("conditions").GetString()));
+        using var listed = await board.GetAsync($"/api/v1/cycles/{cycle.Id}/decisions");
+        var old = (await JsonAsync(listed)).EnumerateArray().Single(d => d.GetProperty("id").GetInt32() == approvalId);
+        Assert.Equal(recorded.GetProperty("id").GetInt32(), old.GetProperty("supersededBy").GetInt32());
+        using var proposal = await board.GetAsync($"/api/v1/proposals/{kiln.Id}");
+        Assert.Equal("returnedForChanges", (await JsonAsync(proposal)).GetProperty("status").GetString());
+
+        // Nothing more to decide until its lead resubmits: said in words, nothing recorded.
+        using var again = await board.PostAsJsonAsync($"/api/v1/cycles/{cycle.Id}/decisions", new { proposalId = kiln.Id, outcome = "approve", version = 1 });
+        Assert.Equal(HttpStatusCode.BadRequest, again.StatusCode);
+        Assert.Equal($"{kiln.Reference} is returned for changes: the board decides it again once its lead resubmits it.",
+            (await JsonAsync(again)).GetProperty("errors").GetProperty("body")[0].GetString());
+
+        var lead = Actor.Of("cycle-lead", "Cycle Lead", Role.ProjectLead);
+        var proposals = factory.Services.GetRequiredService<ProposalService>();
+        var current = await proposals.GetAsync(lead, kiln.Id, CancellationToken.None);
+        var revised = await proposals.ReviseAsync(lead, kiln.Id, current.Revision, ApiFactory.Draft("Kiln burner", 6, 104_000, 30_000).Assumptions,
+            "Service contract quoted", CancellationToken.None);
+        await proposals.SubmitAsync(lead, kiln.Id, cycle.Id, revised.Revision, CancellationToken.None);
+        using var decided = await board.PostAsJsonAsync($"/api/v1/cycles/{cycle.Id}/decisions", new { proposalId = kiln.Id, outcome = "approve", version = 2 });
+        Assert.Equal(HttpStatusCode.Created, decided.StatusCode);
+        Assert.Equal(2, (await JsonAsync(decided)).GetProperty("version").GetInt32());
+    }
+
+    [Fact]
+    public async Task The_selected_portfolio_that_breaks_a_rule_beside_an_earlier_approval_is_approved_only_with_an_override_and_its_reason()
+    {
+        var (cycle, press) = await factory.CycleWithSubmittedProposalAsync("Portfolio override API 2027", 0.08, ApiFactory.Draft("Press", 6, 300_000, 90_000));
+        var lathe = await AlsoSubmittedAsync(cycle.Id, "Lathe", 250_000, 55_000);
+        var (board, _) = await factory.TokenClientAsync("override.board@tarnby.example", RoleNames.Reviewer);
+        using var first = await board.PostAsJsonAsync($"/api/v1/cycles/{cycle.Id}/decisions", new { proposalId = lathe.Id, outcome = "approve", version = 1 });
+        Assert.Equal(HttpStatusCode.Created, first.StatusCode);
+
+        // The selection is the press alone; beside the lathe approved before, 300,000 + 250,000 against 500,000.
+        using var refused = await board.PostAsJsonAsync($"/api/v1/cycles/{cycle.Id}/decisions/portfolio", new { proposalIds = new[] { press.Id } });
+        Assert.Equal(HttpStatusCode.BadRequest, refused.StatusCode);
+        Assert.Contains("(550,000 approved against a limit of 500,000)", (await JsonAsync(refused)).GetProperty("errors").GetProperty("body")[0].GetString(), StringComparison.Ordinal);
+
+        using var overridden = await board.PostAsJsonAsync($"/api/v1/cycles/{cycle.Id}/decisions/portfolio",
+            new { proposalIds = new[] { press.Id }, @override = true, overrideReason = "The lathe is paid from the maintenance budget" });
+        Assert.Equal(HttpStatusCode.Created, overridden.StatusCode);
+        var decision = Assert.Single((await JsonAsync(overridden)).EnumerateArray());
+        Assert.Equal("The lathe is paid from the maintenance budget", decision.GetProperty("overrideReason").GetString());
+        Assert.Contains("550,000 approved against a limit of 500,000", decision.GetProperty("overriddenRules").GetString(), StringComparison.Ordinal);
+    }
+
+    [Fact]
     public async Task The_selected_portfolio_is_listed_then_approved_only_as_confirmed()
     {
         var (cycle, press) = await factory.CycleWithSubmittedProposalAsync("Portfolio approval API 2027", 0.08, ApiFactory.Draft("Press", 6, 300_000, 90_000));

@@ -85,8 +85,10 @@ public sealed partial class DocumentedWalkthrough(ApiFactory factory) : IClassFi
         Assert.Equal(
         [
             "marr.version-added", "marr.version-added", "marr.version-retired", "cycle.created", "cycle.corrected", "proposal.created", "proposal.edited", "proposal.submitted", "decision.recorded",
-            // A revision started while the board has version 2; version 2 approved with the selected portfolio, changed to a rejection, approved again.
-            "proposal.edited", "proposal.submitted", "proposal.revision-started", "decision.recorded", "decision.recorded", "decision.recorded", "cycle.signed-off", "cycle.signed-off",
+            // A revision started while the board has version 2; version 2 approved with the selected portfolio, changed to a rejection, then to a
+            // return for changes; the waiting revision resubmitted as version 3 and approved.
+            "proposal.edited", "proposal.submitted", "proposal.revision-started", "decision.recorded", "decision.recorded", "decision.recorded", "proposal.submitted",
+            "decision.recorded", "cycle.signed-off", "cycle.signed-off",
             "packet.stored", "packet.stored",
             "packet.downloaded", "packet.downloaded",
         ], acts);
