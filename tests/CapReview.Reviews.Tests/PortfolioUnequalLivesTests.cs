@@ -101,4 +101,26 @@ public sealed class PortfolioUnequalLivesTests(ReviewsDatabase db) : IClassFixtu
         Assert.Equal(new[] { a, l }.Order(StringComparer.Ordinal), result.Optimal.Chosen.Order(StringComparer.Ordinal));
         Assert.Equal("present worth over the cycle's study period of 6 years, for every proposal", result.WorthBasis);
     }
+
+    [Fact]
+    public async Task A_group_whose_lives_have_no_common_multiple_in_range_keeps_its_own_lives_worths_and_the_basis_says_so()
+    {
+        var cycle = await db.OpenCycleAsync("No common horizon 2027", 1_000_000m);
+        async Task<ProposalView> SubmitAsync(ProposalDraft draft)
+        {
+            var created = await db.Proposals.CreateDraftAsync(Lead, draft, None);
+            return await db.Proposals.SubmitAsync(Lead, created.Id, cycle.Id, created.Revision, None);
+        }
+        // 37 and 41 years: their least common multiple, 1,517 years, is past the 1,200 periods the analysis covers.
+        var first = await SubmitAsync(Way("Culvert, concrete", 90_000, 9_000, CashFlowCategory.Revenue, 37));
+        var second = await SubmitAsync(Way("Culvert, steel", 80_000, 8_500, CashFlowCategory.Revenue, 41));
+        await db.PortfolioRules.SaveGroupAsync(Reviewer, cycle.Id, new GroupDraft("Culvert", false, [first.Id, second.Id]), None);
+        var result = await db.Portfolio.SelectAsync(Reviewer, cycle.Id, new PortfolioQuery(), None);
+        foreach (var row in result.Ranking.Rows)
+        {
+            Assert.Equal(row.Ranked.PresentWorth, result.Problem.Candidates.Single(c => c.Id == row.Proposal.Reference).Worth);
+        }
+        Assert.EndsWith("; the proposals of Culvert keep their worth over their own lives (the lives have no common multiple within 1,200 periods: compare over a study period instead)",
+            result.WorthBasis, StringComparison.Ordinal);
+    }
 }

@@ -41,7 +41,7 @@ public sealed record SelectionWorths(IReadOnlyDictionary<string, double> Worth, 
             {
                 if (analysis.Refusal is { } reason && analysis.Marr is not null)
                 {
-                    refused.Add($"the proposals of {analysis.Group.Name} keep their worth over their own lives ({reason.TrimEnd('.')})");
+                    refused.Add($"the proposals of {analysis.Group.Name} keep their worth over their own lives ({char.ToLowerInvariant(reason[0])}{reason[1..].TrimEnd('.')})");
                 }
                 continue;
             }
