@@ -6,8 +6,9 @@ namespace CapReview.Reviews.Portfolio;
 
 /// <summary>
 /// Selects the cycle's funded portfolio: every ranked proposal a candidate with its first cost, later capital and
-/// worth on one fair basis for unequal lives (<see cref="SelectionWorths"/>); at most one per exclusive group (exactly one for a mandatory group); dependents only
-/// with their prerequisites; within the capital limit now and the limits of later budget years.
+/// worth on one fair basis for unequal lives (<see cref="SelectionWorths"/>); at most one per exclusive group (exactly
+/// one for a mandatory group); dependents only with their prerequisites; within the capital limit now and the limits of
+/// later budget years.
 /// </summary>
 public sealed class PortfolioService(CycleRankingService rankings, RunLimiter limiter)
 {

@@ -39,7 +39,7 @@ public sealed record SelectionWorths(IReadOnlyDictionary<string, double> Worth, 
         {
             if (analysis.Decision is not { } decision)
             {
-                if (analysis.Refusal is { } reason && analysis.Marr is not null)
+                if (analysis.Refusal is { Length: > 0 } reason && analysis.Marr is not null)
                 {
                     refused.Add($"the proposals of {analysis.Group.Name} keep their worth over their own lives ({char.ToLowerInvariant(reason[0])}{reason[1..].TrimEnd('.')})");
                 }
