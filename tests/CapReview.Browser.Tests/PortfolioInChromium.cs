@@ -79,6 +79,8 @@ public sealed partial class PortfolioInChromium(BrowserFixture browser) : IClass
         Assert.Equal(1, funded.Count(f => f.Contains("Paint shop", StringComparison.Ordinal)));
         Assert.True(!funded.Any(f => f.Contains("Battery", StringComparison.Ordinal)) || funded.Any(f => f.Contains("solar array, dispatch", StringComparison.Ordinal)));
         Assert.True(funded.Count(f => f.Contains("CNC line 3", StringComparison.Ordinal)) <= 1);
+        // The basis unequal lives are compared on, as the group's incremental analysis compares them.
+        await Assertions.Expect(page.GetByTestId("portfolio-basis")).ToContainTextAsync("the alternatives of a group over the least common multiple of their lives");
         await Assertions.Expect(page.Locator("#frontier .main-svg").First).ToBeVisibleAsync();
         await BrowserFixture.ScreenshotAsync(page, "portfolio");
 

@@ -56,7 +56,12 @@ public sealed class PacketFlowTests(PacketDatabase db) : IClassFixture<PacketDat
         {
             Assert.True(pdf.TryGetBookmarks(out var bookmarks));
             Assert.Equal(["Cycle summary", .. proposals.Select(p => $"{p.Reference} {p.Title}")], bookmarks.Roots.Select(b => b.Title));
-            Assert.Contains("Rejected", string.Join("\n", pdf.GetPages().Take(2).Select(p => ContentOrderTextExtractor.GetText(p))));
+            string summary = string.Join("\n", pdf.GetPages().Take(2).Select(p => ContentOrderTextExtractor.GetText(p)));
+            Assert.Contains("Rejected", summary);
+            // The basis the selection compared unequal lives on, in the words of the portfolio page.
+            static string Packed(string s) => string.Concat(s.Where(c => !char.IsWhiteSpace(c)));
+            Assert.Contains(Packed("Basis of the selection"), Packed(summary), StringComparison.Ordinal);
+            Assert.Contains(Packed("present worth of each proposal renewed like for like: the alternatives of a group over the least common multiple"), Packed(summary), StringComparison.Ordinal);
         }
 
         await using var context = db.NewContext();

@@ -176,5 +176,10 @@ public sealed class PortfolioTests(ReviewsDatabase db) : IClassFixture<ReviewsDa
         Assert.Equal(-150_000 - Financial.PV(0.12, 10, 30_000), decision.PresentWorths[bold.Reference], 6);
         Assert.Equal(-60_000 - Financial.PV(0.12, 10, 13_000), decision.PresentWorths[safe.Reference], 6);
         Assert.Equal(2, decision.Steps.Count);
+
+        // The selection weighs the group's members as its analysis does, at 12% (not the rebuild's own 8%).
+        var portfolio = await db.Portfolio.SelectAsync(Reviewer, cycle.Id, new PortfolioQuery(), None);
+        Assert.Equal(-60_000 - Financial.PV(0.12, 10, 13_000), portfolio.Problem.Candidates.Single(c => c.Id == safe.Reference).Worth, 6);
+        Assert.Equal([bold.Reference], portfolio.Optimal.Chosen);
     }
 }

@@ -49,6 +49,21 @@ public static class CommonHorizon
         return repeated;
     }
 
+    /// <summary>
+    /// What one life's present worth becomes when the life is renewed like for like up to <paramref name="horizon"/>
+    /// periods (a multiple of the life): Σ over renewals j of (1 + i)^(−jn) = (1 + i_n)(P/A, i_n, horizon / n), with
+    /// i_n = (1 + i)^n − 1 the rate per life. The present worth of the repeated chain is one life's present worth times this.
+    /// </summary>
+    public static double Renewals(double ratePerPeriod, int life, int horizon)
+    {
+        if (life < 1 || horizon < life || horizon % life != 0)
+        {
+            throw new ArgumentOutOfRangeException(nameof(horizon), horizon, "The horizon must be a whole number of lives.");
+        }
+        double perLife = Numerics.StableMath.Expm1(life * Numerics.StableMath.Log1p(ratePerPeriod));
+        return CompoundInterest.UniformSeriesPresentWorth(perLife, horizon / life) * (1.0 + perLife);
+    }
+
     private static long Gcd(long a, long b)
     {
         while (b != 0)

@@ -1,5 +1,4 @@
 using CapReview.Engine.Evaluation;
-using CapReview.Engine.Factors;
 using CapReview.Engine.Measures;
 using CapReview.Engine.Rates;
 
@@ -143,11 +142,8 @@ public static class ExclusiveChoice
         {
             double[] flows = CommonHorizon.Repeat(a.Model.NetFlows, horizon);
             var ratio = BenefitCostRatio.Compute(a.Model, i);
-            // One life's worths, carried to the common horizon's present: Σ over renewals j of (1 + i)^(−jn),
-            // that is (1 + i_n)(P/A, i_n, renewals) with i_n the rate per life.
-            int n = a.Model.Horizon;
-            double perLife = Numerics.StableMath.Expm1(n * Numerics.StableMath.Log1p(i));
-            double renewals = CompoundInterest.UniformSeriesPresentWorth(perLife, horizon / n) * (1.0 + perLife);
+            // One life's worths, carried to the common horizon's present.
+            double renewals = CommonHorizon.Renewals(i, a.Model.Horizon, horizon);
             double costs = ratio.CapitalCosts - ratio.Salvage + ratio.OperatingCosts;
             return new Candidate(a.Name, a.FirstCost, flows, ratio.Benefits * renewals, costs * renewals);
         }

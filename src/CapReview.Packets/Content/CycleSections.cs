@@ -37,15 +37,18 @@ internal static class CycleSections
         var approved = data.Decided.Where(d => d.Decision.Outcome == DecisionOutcome.Approve).Select(d => d.Proposal.Reference).ToHashSet();
         var funded = ranking.Rows.Where(r => approved.Contains(r.Proposal.Reference)).ToList();
         double cost = funded.Sum(r => r.Ranked.FirstCost);
+        // The alternatives of a group on their chain over the common horizon, as the selection and the incremental analysis compare them.
+        SelectionWorths fair = SelectionWorths.Of(ranking, SelectionObjective.PresentWorth);
         flow.Heading("The funded portfolio", PacketStyle.Heading1, keepWith: 80);
         flow.Pairs(
         [
             ("Approved", $"{funded.Count} proposals, first cost {f.Money(cost)} {f.CurrencyCode} of the capital limit of {f.Money(data.Cycle.CapitalLimit)} {f.CurrencyCode}" +
                 (cost > (double)data.Cycle.CapitalLimit ? " (above the limit)" : "")),
-            ("Total present worth", $"{f.Money(funded.Sum(r => r.Ranked.PresentWorth))} {f.CurrencyCode}"),
+            ("Total present worth", $"{f.Money(funded.Sum(r => fair.Worth[r.Proposal.Reference]))} {f.CurrencyCode}"),
             ("Optimal selection", portfolio.Optimal.Feasible
                 ? $"{string.Join(", ", portfolio.Optimal.Chosen)}: total {(portfolio.Objective == SelectionObjective.AnnualWorth ? "annual" : "present")} worth {f.Money(portfolio.Optimal.TotalWorth)} {f.CurrencyCode}, first cost {f.Money(portfolio.Optimal.TotalCost)}{(portfolio.Optimal.ProvenOptimal ? ", proven optimal" : ", not proven optimal")}"
                 : "no set of the approved proposals meets the cycle's rules"),
+            ("Basis of the selection", portfolio.WorthBasis),
             ("Greedy fill by ranking", $"{string.Join(", ", portfolio.Greedy.Chosen)}: {f.Money(portfolio.Greedy.TotalWorth)} {f.CurrencyCode}, " +
                 (Math.Abs(portfolio.Advantage) < 0.5 ? "the same as the optimal selection" : $"{f.Money(portfolio.Advantage)} less than the optimal selection")),
         ]);

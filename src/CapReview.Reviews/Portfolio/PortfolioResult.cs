@@ -20,6 +20,9 @@ public sealed record PortfolioResult(CycleRanking Ranking, SelectionProblem Prob
     public IReadOnlyList<UnrankedProposal> LeftOut =>
         [.. Ranking.Unranked, .. Excluded.Select(e => new UnrankedProposal(Ranking.Rows.First(r => r.Proposal.Reference == e.Reference).Proposal, e.Reason))];
 
+    /// <summary>The basis every candidate's worth is on, in words (<see cref="SelectionWorths"/>).</summary>
+    public string WorthBasis { get; init; } = "";
+
     /// <summary>How much more the optimal set is worth than the greedy fill.</summary>
     public double Advantage => Optimal.TotalWorth - Greedy.TotalWorth;
 }

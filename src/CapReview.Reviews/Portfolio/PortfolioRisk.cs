@@ -12,7 +12,8 @@ public sealed record PortfolioRiskResult(int Trials, IReadOnlyDictionary<string,
 
 /// <summary>
 /// The cycle's risk as a whole: each proposal with a risk analysis is simulated with its own parameters, correlations
-/// and seed (before tax, on its life's basis), trial by trial; in each trial the proposals are ranked by annual worth
+/// and seed (before tax, on its life's basis; a group's alternatives carried over their chain as the selection carries
+/// them), trial by trial; in each trial the proposals are ranked by annual worth
 /// and the portfolio selected again under the cycle's rules. Proposals are drawn independently of each other.
 /// </summary>
 public static class PortfolioRisk
@@ -57,11 +58,13 @@ public static class PortfolioRisk
         var funded = rows.ToDictionary(r => r.Proposal.Reference, _ => 0);
         int topChanges = 0;
         bool annual = portfolio.Objective == SelectionObjective.AnnualWorth;
+        // A trial draws one life's worth; a group's alternatives are put on their chain's horizon as the selection is.
+        var renewals = SelectionWorths.Of(portfolio.Ranking, portfolio.Objective).Renewals;
         for (int t = 0; t < trials; t++)
         {
             cancellationToken.ThrowIfCancellationRequested();
             var candidates = portfolio.Problem.Candidates.Select(c => samples.TryGetValue(c.Id, out var s)
-                ? c with { Worth = annual ? Finite(s.Aw[t]) : Finite(s.Pw[t]) }
+                ? c with { Worth = annual ? Finite(s.Aw[t]) : Finite(s.Pw[t]) * renewals[c.Id] }
                 : c).ToList();
             string top = rows.OrderByDescending(r => samples.TryGetValue(r.Proposal.Reference, out var s) ? Finite(s.Aw[t]) : r.Ranked.AnnualWorth)
                 .Select(r => r.Proposal.Reference).First();

@@ -6,8 +6,9 @@ namespace CapReview.Reviews.Portfolio;
 
 /// <summary>
 /// Selects the cycle's funded portfolio: every ranked proposal a candidate with its first cost, later capital and
-/// worth on the cycle's basis; at most one per exclusive group (exactly one for a mandatory group); dependents only
-/// with their prerequisites; within the capital limit now and the limits of later budget years.
+/// worth on one fair basis for unequal lives (<see cref="SelectionWorths"/>); at most one per exclusive group (exactly
+/// one for a mandatory group); dependents only with their prerequisites; within the capital limit now and the limits of
+/// later budget years.
 /// </summary>
 public sealed class PortfolioService(CycleRankingService rankings, RunLimiter limiter)
 {
@@ -51,7 +52,7 @@ public sealed class PortfolioService(CycleRankingService rankings, RunLimiter li
         CheckQuery(query);
         CycleRanking ranking = CycleRankingService.Rank(inputs, query.MarrShift, query.AfterTax);
         SelectionObjective objective = query.Objective ?? ranking.Cycle.Objective;
-        var (problem, excluded) = ProblemOf(ranking, (double)(query.CapitalLimit ?? ranking.Cycle.CapitalLimit), objective);
+        var (problem, excluded, basis) = ProblemOf(ranking, (double)(query.CapitalLimit ?? ranking.Cycle.CapitalLimit), objective);
         Selection optimal = CapitalSelection.Optimal(problem, SolverTimeLimit, cancellationToken);
         Selection greedy = CapitalSelection.Greedy(problem);
         // Up to what every worthwhile proposal and the dearest way of meeting each mandatory group would need together.
@@ -60,7 +61,7 @@ public sealed class PortfolioService(CycleRankingService rankings, RunLimiter li
         var limits = Enumerable.Range(0, FrontierSteps + 1).Select(k => Math.Round(top * k / FrontierSteps, 2))
             .Append(problem.CapitalLimit).Distinct().Order();
         var frontier = CapitalSelection.Frontier(problem, limits, FrontierTimeLimit, cancellationToken).Select(f => new FrontierPoint(f.Limit, f.Selection)).ToList();
-        return new PortfolioResult(ranking, problem, objective, optimal, greedy, frontier, excluded);
+        return new PortfolioResult(ranking, problem, objective, optimal, greedy, frontier, excluded) { WorthBasis = basis };
     }
 
     private static void CheckQuery(PortfolioQuery query)
@@ -72,10 +73,15 @@ public sealed class PortfolioService(CycleRankingService rankings, RunLimiter li
         }
     }
 
-    /// <summary>The cycle's rules as a selection problem over the ranked proposals.</summary>
-    public static (SelectionProblem Problem, IReadOnlyList<(string Reference, string Reason)> Excluded) ProblemOf(CycleRanking ranking, double capitalLimit, SelectionObjective objective)
+    /// <summary>
+    /// The cycle's rules as a selection problem over the ranked proposals, each worth what <see cref="SelectionWorths"/>
+    /// gives it on the one fair basis for unequal lives, and that basis in words.
+    /// </summary>
+    public static (SelectionProblem Problem, IReadOnlyList<(string Reference, string Reason)> Excluded, string Basis) ProblemOf(CycleRanking ranking, double capitalLimit,
+        SelectionObjective objective)
     {
         ArgumentNullException.ThrowIfNull(ranking);
+        SelectionWorths worths = SelectionWorths.Of(ranking, objective);
         var rows = ranking.Rows.ToDictionary(r => r.Proposal.Id);
         var excluded = new List<(string, string)>();
         // A dependent whose prerequisite is not ranked (withdrawn, rejected, not complete) cannot be funded.
@@ -99,7 +105,7 @@ public sealed class PortfolioService(CycleRankingService rankings, RunLimiter li
         var candidates = rows.Values.OrderBy(r => r.Ranked.Rank).Select(r => new SelectionCandidate(
             r.Proposal.Reference,
             r.Ranked.FirstCost,
-            objective == SelectionObjective.AnnualWorth ? r.Ranked.AnnualWorth : r.Ranked.PresentWorth,
+            worths.Worth[r.Proposal.Reference],
             [.. r.Ranked.LaterCapital.Take(laterYears)])).ToList();
         string Reference(int id) => rows[id].Proposal.Reference;
         IReadOnlyList<string> Members(ExclusiveGroup g) => [.. g.ProposalIds.Where(rows.ContainsKey).Select(Reference)];
@@ -110,6 +116,6 @@ public sealed class PortfolioService(CycleRankingService rankings, RunLimiter li
             .Select(c => (Reference(c.DependentProposalId), Reference(c.PrerequisiteProposalId))).ToList();
         var problem = new SelectionProblem(candidates, capitalLimit, optional, contingencies,
             [.. ranking.Cycle.LaterYearLimits.Select(l => (double)l)], mandatory);
-        return (problem, excluded);
+        return (problem, excluded, worths.Basis);
     }
 }

@@ -2,8 +2,11 @@ using CapReview.Reviews.Portfolio;
 
 namespace CapReview.Web.Api;
 
-/// <summary>A cycle's funded portfolio for one what-if: the optimal set, the greedy fill by ranking, their difference and the frontier.</summary>
-public sealed record PortfolioResponse(int CycleId, string Objective, string Basis, bool AfterTax, double MarrShift, double CapitalLimit, IReadOnlyList<double> LaterYearLimits,
+/// <summary>
+/// A cycle's funded portfolio for one what-if: the optimal set, the greedy fill by ranking, their difference and the
+/// frontier; <c>Basis</c> is the ranking's, <c>WorthBasis</c> the one the candidates' worths are compared on.
+/// </summary>
+public sealed record PortfolioResponse(int CycleId, string Objective, string Basis, string WorthBasis, bool AfterTax, double MarrShift, double CapitalLimit, IReadOnlyList<double> LaterYearLimits,
     SelectionResponse Optimal, SelectionResponse Greedy, PortfolioDifferenceResponse Difference, IReadOnlyList<PortfolioCandidateResponse> Candidates,
     IReadOnlyList<FrontierPointResponse> Frontier, IReadOnlyList<UnrankedResponse> Excluded)
 {
@@ -16,7 +19,7 @@ public sealed record PortfolioResponse(int CycleId, string Objective, string Bas
         var difference = new PortfolioDifferenceResponse(r.Advantage, r.Optimal.TotalCost - r.Greedy.TotalCost,
             [.. optimal.Except(greedy).Order(StringComparer.Ordinal)], [.. greedy.Except(optimal).Order(StringComparer.Ordinal)]);
         int laterYears = r.Problem.LaterYearLimits?.Count ?? 0;
-        return new(r.Ranking.Cycle.Id, r.Objective == SelectionObjective.AnnualWorth ? "annualWorth" : "presentWorth", r.Ranking.Basis, r.Ranking.AfterTax,
+        return new(r.Ranking.Cycle.Id, r.Objective == SelectionObjective.AnnualWorth ? "annualWorth" : "presentWorth", r.Ranking.Basis, r.WorthBasis, r.Ranking.AfterTax,
             r.Ranking.MarrShift, r.Problem.CapitalLimit, [.. r.Problem.LaterYearLimits ?? []],
             SelectionResponse.From(r.Optimal), SelectionResponse.From(r.Greedy), difference,
             [.. r.Problem.Candidates.Select(c => new PortfolioCandidateResponse(rows[c.Id].Ranked.Rank, rows[c.Id].Proposal.Id, c.Id, rows[c.Id].Proposal.Title, c.Worth, c.FirstCost,

@@ -45,6 +45,7 @@ public static class PortfolioExport
         {
             string.Create(CultureInfo.InvariantCulture, $"Maximising total {worth.ToLowerInvariant()} within a capital limit of {result.Problem.CapitalLimit:0.00} {currency} now") +
                 (laterYears == 0 ? "." : ", and in later budget years " + string.Join(", ", result.Problem.LaterYearLimits!.Select(l => l.ToString("0.00", CultureInfo.InvariantCulture))) + "."),
+            $"Worth compared on one basis for unequal lives: {result.WorthBasis}.",
             string.Create(CultureInfo.InvariantCulture,
                 $"Optimal selection: total worth {result.Optimal.TotalWorth:0.00}, first cost {result.Optimal.TotalCost:0.00}, {(result.Optimal.ProvenOptimal ? "proven optimal" : "best found within the time limit, not proven optimal")}."),
             string.Create(CultureInfo.InvariantCulture, $"Greedy fill by ranking: total worth {result.Greedy.TotalWorth:0.00}; the optimal selection is worth {result.Advantage:0.00} more."),

@@ -1,5 +1,6 @@
 using CapReview.Engine.CashFlows;
 using CapReview.Engine.Comparison;
+using CapReview.Engine.Rates;
 using CapReview.Engine.Tests.Support;
 using CsCheck;
 using Microsoft.VisualBasic;
@@ -155,5 +156,53 @@ public class ReplacementStudyTests
         var cheap = ReplacementStudy.Advise(8_000, [new(7_500, 1_000), new(7_000, 1_000)], 40_000, New, 0.10);
         Assert.Equal(2, cheap.YearsToKeep);
         Assert.StartsWith("Keep for at least 2 more years", cheap.Recommendation);
+    }
+}
+
+public class StudyPeriodAtALifeTests
+{
+    private static readonly AnnualRate EightPercent = AnnualRate.Effective(0.08);
+
+    private static readonly CashFlowModel Pump = Models.Valid(6, 1,
+        new SingleAmount("Pump", Capital, 0, -30_000),
+        new UniformSeries("Energy saved", Revenue, 1, 6, 8_000),
+        new SingleAmount("Resale", Salvage, 6, 3_000));
+
+    [Theory]
+    [InlineData(6)]
+    [InlineData(12)]
+    public void A_study_period_ending_exactly_at_a_life_takes_the_lives_own_resale_and_ranks_as_repeatability(int years)
+    {
+        // Hand-computed from the 8 % table of an engineering-economy handbook (from memory; A/P and A/F five decimals):
+        // AW = −30,000 (A/P, 8%, 6) + 8,000 + 3,000 (A/F, 8%, 6) = −30,000 × 0.21632 + 8,000 + 3,000 × 0.13632 = 1,919.36.
+        // Whole lives end at T with their own resale: a stated value is not added, and none missing is noted.
+        double expected = -30_000 * 0.21632 + 8_000 + 3_000 * 0.13632;
+        var stated = ProposalRanking.Rank([new("Pump", Pump, EightPercent, ValueAtStudyEnd: 50_000)], studyPeriodYears: years).Single();
+        var unstated = ProposalRanking.Rank([new("Pump", Pump, EightPercent)], studyPeriodYears: years).Single();
+        Assert.Equal(expected, stated.AnnualWorth, 0.5);
+        Assert.Equal(stated.AnnualWorth, unstated.AnnualWorth, 1e-9);
+        Assert.Equal(ProposalRanking.Rank([new("Pump", Pump, EightPercent)]).Single().AnnualWorth, stated.AnnualWorth, 1e-9);
+        Assert.DoesNotContain("no value stated", unstated.Basis, StringComparison.Ordinal);
+        Assert.Equal(years == 6 ? "study period of 6 years: the life itself" : "study period of 12 years: 2 lives of 6 periods, renewed on the same terms", unstated.Basis);
+    }
+
+    [Theory]
+    [InlineData(5, "cut at period 5")]
+    [InlineData(7, "renewed to cover 7 periods")]
+    public void A_period_either_side_of_a_life_needs_the_stated_value_and_says_when_none_was_given(int years, string basis)
+    {
+        var unstated = ProposalRanking.Rank([new("Pump", Pump, EightPercent)], studyPeriodYears: years).Single();
+        Assert.Contains(basis, unstated.Basis, StringComparison.Ordinal);
+        Assert.EndsWith("no value stated, taken as zero", unstated.Basis, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void A_monthly_life_that_divides_the_study_period_needs_no_value()
+    {
+        // Eighteen months, a study period of three years: two whole lives of 18 periods (common practice, no source).
+        var tooling = Models.Valid(18, 12, new SingleAmount("Tooling", Capital, 0, -9_000), new UniformSeries("Output", Revenue, 1, 18, 600));
+        var ranked = ProposalRanking.Rank([new("Tooling", tooling, EightPercent)], studyPeriodYears: 3).Single();
+        Assert.Equal("study period of 3 years: 2 lives of 18 periods, renewed on the same terms", ranked.Basis);
+        Assert.Equal(ProposalRanking.Rank([new("Tooling", tooling, EightPercent)]).Single().AnnualWorth, ranked.AnnualWorth, 1e-9);
     }
 }

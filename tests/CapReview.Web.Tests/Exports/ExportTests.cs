@@ -147,6 +147,7 @@ public sealed class ExportTests(ApiFactory factory) : IClassFixture<ApiFactory>
         var table = PortfolioExport.Table(portfolio, "EUR");
         Assert.Contains(table.Notes, n => n.StartsWith("Estimates, not advice", StringComparison.Ordinal));
         Assert.Contains(table.Notes, n => n.Contains("proven optimal", StringComparison.Ordinal));
+        Assert.Contains(table.Notes, n => n.StartsWith("Worth compared on one basis for unequal lives: present worth of each proposal renewed like for like", StringComparison.Ordinal));
         var exported = ReadCsv(CsvExport.Write(table));
         // Hand-checked: within 100,000 the press alone (PW 27,361) or the dryer with the hoist (10,391 + 20,391 = 30,782);
         // the greedy fill down the ranking takes the press and then nothing else fits.
