@@ -104,5 +104,19 @@ public sealed class DecisionPanelInChromium(BrowserFixture browser) : IClassFixt
         await Assertions.Expect(conveyor.GetByTestId("with-lead")).ToHaveTextAsync("With its lead for changes: the board decides it again once it is resubmitted.");
         await Assertions.Expect(board.GetByTestId("budget-year")).ToContainTextAsync("220,000");
         await BrowserFixture.ScreenshotAsync(board, "decision-returned");
+
+        // The lead finds what the board asks for on the proposal itself.
+        int conveyorId;
+        using (var scope = browser.App.Services.CreateScope())
+        {
+            var decisions = await scope.ServiceProvider.GetRequiredService<DecisionService>()
+                .DecisionsAsync(Actor.Of("board-setup", "Setup Board", Role.Reviewer), cycleId, CancellationToken.None);
+            conveyorId = decisions.First(d => d.Outcome == DecisionOutcome.ReturnForChanges).ProposalId;
+        }
+        IPage lead = await browser.SignedInPageAsync(LeadEmail, "Dana Lead", RoleNames.ProjectLead);
+        await lead.GotoAsync(browser.App.BaseAddress + $"proposals/{conveyorId}");
+        await Assertions.Expect(lead.GetByTestId("board-return")).ToContainTextAsync("The board returned version 1 for changes on");
+        await Assertions.Expect(lead.GetByTestId("board-return").Locator("q")).ToHaveTextAsync("Quote a shorter conveyor");
+        await BrowserFixture.ScreenshotAsync(lead.GetByTestId("board-return"), "returned-to-lead");
     }
 }

@@ -190,6 +190,9 @@ public sealed class DecisionRuleTests(ReviewsDatabase db) : IClassFixture<Review
         // The lead reads the board's comment with the decision, as after a first return.
         var listed = await db.Decisions.DecisionsAsync(Lead, cycle.Id, None);
         Assert.Equal([(approval.Id, (int?)returned.Id, ""), (returned.Id, null, "Quote the spare impeller too")], listed.Select(d => (d.Id, d.SupersededBy, d.Conditions)));
+        // And on the proposal itself: the return that sent it back, while it is back.
+        Assert.Equal((returned.Id, "Quote the spare impeller too"), (await db.Decisions.ReturnOfAsync(Lead, pump.Id, None)) is { } back ? (back.Id, back.Conditions) : default);
+        Assert.Null(await db.Decisions.ReturnOfAsync(Lead, fan.Id, None));
         await using (var context = db.NewContext())
         {
             var audited = await context.AuditEvents.Where(e => e.Action == "decision.recorded" && e.EntityId == pump.Reference).OrderBy(e => e.Id).ToListAsync();
@@ -214,6 +217,7 @@ public sealed class DecisionRuleTests(ReviewsDatabase db) : IClassFixture<Review
         var revised = await db.Proposals.ReviseAsync(Lead, pump.Id, lead.Revision, Draft(title: "Feed pump", firstCost: -15_000).Assumptions, "Spare impeller quoted", None);
         var resubmitted = await db.Proposals.SubmitAsync(Lead, pump.Id, cycle.Id, revised.Revision, None);
         Assert.Equal(ProposalStatus.Submitted, resubmitted.Status);
+        Assert.Null(await db.Decisions.ReturnOfAsync(Lead, pump.Id, None));
         await Assert.ThrowsAsync<ConcurrencyConflictException>(() => DecideAsync(pump, DecisionOutcome.Approve));
         var decidedAgain = await db.Decisions.DecideAsync(Reviewer, new DecisionRequest(pump.Id, DecisionOutcome.Approve, "", cycle.Id, 2, null), None);
         Assert.Equal((2, ProposalStatus.Approved), (decidedAgain.VersionNumber, (await db.Proposals.GetAsync(Reviewer, pump.Id, None)).Status));

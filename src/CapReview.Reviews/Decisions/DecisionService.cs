@@ -237,6 +237,33 @@ public sealed class DecisionService(ReviewWork work, AuditTrail audit, TimeProvi
         return result;
     }
 
+    /// <summary>
+    /// The decision that sent the proposal back to its lead, while it is back with them: what the lead reads to know
+    /// what the board asks for. Null when the proposal is not returned, or was returned without a decision record.
+    /// </summary>
+    public Task<DecisionView?> ReturnOfAsync(Actor actor, int proposalId, CancellationToken cancellationToken)
+    {
+        ArgumentNullException.ThrowIfNull(actor);
+        return work.ReadAsync(async db =>
+        {
+            Proposal proposal = await db.Proposals.SingleOrDefaultAsync(p => p.Id == proposalId, cancellationToken).ConfigureAwait(false)
+                ?? throw new NotFoundException("There is no such proposal.");
+            CycleStatus? cycleStatus = proposal.BudgetCycleId is int cycleId
+                ? await db.BudgetCycles.Where(c => c.Id == cycleId).Select(c => (CycleStatus?)c.Status).SingleOrDefaultAsync(cancellationToken).ConfigureAwait(false)
+                : null;
+            if (!ProposalAccess.CanSee(actor, proposal, cycleStatus))
+            {
+                throw new NotFoundException("There is no such proposal.");
+            }
+            if (proposal.Status != ProposalStatus.ReturnedForChanges)
+            {
+                return null;
+            }
+            Decision? last = await db.Decisions.Where(d => d.ProposalId == proposalId).OrderByDescending(d => d.Id).FirstOrDefaultAsync(cancellationToken).ConfigureAwait(false);
+            return last is { Outcome: DecisionOutcome.ReturnForChanges } ? DecisionView.Of(last, proposal.Reference) : null;
+        }, cancellationToken);
+    }
+
     /// <summary>The decisions of a cycle in the order they were made, on the proposals the actor may see.</summary>
     public Task<IReadOnlyList<DecisionView>> DecisionsAsync(Actor actor, int cycleId, CancellationToken cancellationToken)
     {
