@@ -12,6 +12,11 @@ namespace CapReview.Engine.Measures;
 /// grid in ln(1 + i), and every bracket and every turning point of the worth (where two close roots can hide) is
 /// refined by Brent's method.
 /// </para>
+/// <para>
+/// <see cref="FindUnique"/> answers only whether there is exactly one root, and which: the scan stops once two roots
+/// are found that the merging of near-duplicates could not join (<see cref="RootTally"/>), with the answer the full
+/// scan gives.
+/// </para>
 /// </summary>
 public static class RateOfReturnSearch
 {
@@ -50,9 +55,32 @@ public static class RateOfReturnSearch
         {
             0 => [],
             1 => SingleRoot(flows, lowest, highest, signs),
-            _ => EveryRoot(flows, lowest, highest, signs),
+            _ => EveryRoot(flows, lowest, highest, signs, new RootTally(lowest, highest, stopAtSecond: false)) ?? [],
         };
         return new RateOfReturnResult(roots, signs.FlowChanges, signs.ForwardCumulativeChanges, signs.CumulativeTestPassed);
+    }
+
+    /// <summary>
+    /// The rate of return when there is exactly one in the range, else null: always <see cref="Find"/>'s
+    /// <see cref="RateOfReturnResult.UniqueRoot"/>, but the scan of flows with several sign changes stops as soon as
+    /// two roots are found that no later root could merge into one (see <see cref="RootTally"/>). For a simulation,
+    /// which keeps only a unique rate.
+    /// </summary>
+    public static double? FindUnique(double[] netFlows, double lowest, double highest)
+    {
+        ArgumentNullException.ThrowIfNull(netFlows);
+        if (!(lowest > -1.0) || !(highest > lowest) || !double.IsFinite(highest))
+        {
+            throw new ArgumentOutOfRangeException(nameof(lowest), "The search range must lie above -100% and be non-empty.");
+        }
+        FlowSigns signs = FlowSigns.Of(netFlows);
+        double[]? roots = signs.FlowChanges switch
+        {
+            0 => [],
+            1 => SingleRoot(netFlows, lowest, highest, signs),
+            _ => EveryRoot(netFlows, lowest, highest, signs, new RootTally(lowest, highest, stopAtSecond: true)),
+        };
+        return roots is [double root] ? root : null;
     }
 
     /// <summary>
@@ -76,10 +104,12 @@ public static class RateOfReturnSearch
         return TryOneSide(flows, from, to, zeroIsRoot: false, signs, out double root) ? [root] : [];
     }
 
-    private static double[] EveryRoot(double[] flows, double lowest, double highest, FlowSigns signs)
+    /// <summary>Every root, ascending; null when the tally stopped the scan at a second root.</summary>
+    private static double[]? EveryRoot(double[] flows, double lowest, double highest, FlowSigns signs, RootTally roots)
     {
-        var roots = new List<double>(4);
         bool zeroIsRoot = Math.Abs(signs.Total) <= ZeroTolerance * signs.Gross;
+        // Zero is the lowest rate of the side above it, which is scanned first.
+        roots.BeginSide(rootsAbove: false, descending: false);
         if (zeroIsRoot && lowest <= 0.0 && highest >= 0.0)
         {
             roots.Add(0.0);
@@ -90,13 +120,21 @@ public static class RateOfReturnSearch
         {
             SearchSide(flows, Math.Max(lowest, 0.0), highest, signs.ForwardCumulativeChanges, zeroIsRoot, signs, roots);
         }
-        if (lowest < 0.0 && signs.BackwardCumulativeChanges > 0)
+        if (lowest < 0.0 && signs.BackwardCumulativeChanges > 0 && !roots.Settled)
         {
+            // When only a unique root matters the side below zero is scanned downwards: rates just below zero are
+            // far likelier roots than rates near −100%, and a root found above zero then settles the answer at once.
+            roots.BeginSide(rootsAbove: roots.Found.Count > 0, descending: roots.StopAtSecond);
             SearchSide(flows, lowest, Math.Min(highest, 0.0), signs.BackwardCumulativeChanges, zeroIsRoot, signs, roots);
         }
-        roots.Sort();
-        RemoveNearDuplicates(roots);
-        return [.. roots];
+        if (roots.Settled)
+        {
+            return null;
+        }
+        List<double> found = roots.Found;
+        found.Sort();
+        RemoveNearDuplicates(found);
+        return [.. found];
     }
 
     /// <summary>
@@ -117,7 +155,7 @@ public static class RateOfReturnSearch
             && SafeguardedNewton.TryFindRoot(flows, zeroEnd, worthAtZero, farEnd, limitSign, guess, out root);
     }
 
-    private static void SearchSide(double[] flows, double from, double to, int bound, bool zeroIsRoot, FlowSigns signs, List<double> roots)
+    private static void SearchSide(double[] flows, double from, double to, int bound, bool zeroIsRoot, FlowSigns signs, RootTally roots)
     {
         if (bound == 1)
         {
@@ -128,19 +166,41 @@ public static class RateOfReturnSearch
             return;
         }
 
-        double Worth(double i) => FlowWorth.NormalizedWorth(flows, i);
-
         double[] grid = Grid(from, to);
-        var previous = new Sample(grid[0], Worth(grid[0]), FlowWorth.NormalizedSlope(flows, grid[0]));
-        if (previous.Worth == 0.0)
+        Sample At(int k) => new(grid[k], FlowWorth.NormalizedWorth(flows, grid[k]), FlowWorth.NormalizedSlope(flows, grid[k]));
+        void Interval(Sample lower, Sample upper)
         {
-            roots.Add(previous.Rate);
+            int before = roots.Found.Count;
+            ScanInterval(flows, lower, upper, Subdivisions, roots.Found);
+            roots.Scanned(lower.Rate, upper.Rate, roots.Found.Count - before);
         }
-        for (int k = 1; k < grid.Length; k++)
+
+        if (!roots.Descending)
         {
-            var next = new Sample(grid[k], Worth(grid[k]), FlowWorth.NormalizedSlope(flows, grid[k]));
-            ScanInterval(flows, previous, next, Subdivisions, roots);
-            previous = next;
+            Sample previous = At(0);
+            if (previous.Worth == 0.0)
+            {
+                roots.Add(previous.Rate);
+            }
+            for (int k = 1; k < grid.Length && !roots.Settled; k++)
+            {
+                Sample next = At(k);
+                Interval(previous, next);
+                previous = next;
+            }
+            return;
+        }
+        // The same intervals from the top down: each gives the roots it gives in the upward scan.
+        Sample upper = At(grid.Length - 1);
+        for (int k = grid.Length - 1; k >= 1 && !roots.Settled; k--)
+        {
+            Sample lower = At(k - 1);
+            Interval(lower, upper);
+            upper = lower;
+        }
+        if (!roots.Settled && upper.Worth == 0.0)
+        {
+            roots.Add(upper.Rate);
         }
     }
 
