@@ -13,9 +13,10 @@ namespace CapReview.Engine.Measures;
 /// refined by Brent's method.
 /// </para>
 /// <para>
-/// <see cref="FindUnique"/> answers only whether there is exactly one root, and which: the scan stops once two roots
-/// are found that the merging of near-duplicates could not join (<see cref="RootTally"/>), with the answer the full
-/// scan gives.
+/// <see cref="FindUnique"/> answers only whether there is exactly one root, and which, for a simulation: it scans the
+/// same grid intervals outwards from zero on both sides at once (roots near zero are the likely ones) and stops once
+/// two roots are found that the merging of near-duplicates could not join (<see cref="RootTally"/>), with the answer
+/// the full scan gives.
 /// </para>
 /// </summary>
 public static class RateOfReturnSearch
@@ -55,16 +56,15 @@ public static class RateOfReturnSearch
         {
             0 => [],
             1 => SingleRoot(flows, lowest, highest, signs),
-            _ => EveryRoot(flows, lowest, highest, signs, new RootTally(lowest, highest, stopAtSecond: false)) ?? [],
+            _ => EveryRoot(flows, lowest, highest, signs),
         };
         return new RateOfReturnResult(roots, signs.FlowChanges, signs.ForwardCumulativeChanges, signs.CumulativeTestPassed);
     }
 
     /// <summary>
-    /// The rate of return when there is exactly one in the range, else null: always <see cref="Find"/>'s
-    /// <see cref="RateOfReturnResult.UniqueRoot"/>, but the scan of flows with several sign changes stops as soon as
-    /// two roots are found that no later root could merge into one (see <see cref="RootTally"/>). For a simulation,
-    /// which keeps only a unique rate.
+    /// The rate of return per period when there is exactly one in the range, else null: always
+    /// <see cref="Find"/>'s <see cref="RateOfReturnResult.UniqueRoot"/>, found with less work when the flows change
+    /// sign several times and have several roots.
     /// </summary>
     public static double? FindUnique(double[] netFlows, double lowest, double highest)
     {
@@ -74,13 +74,105 @@ public static class RateOfReturnSearch
             throw new ArgumentOutOfRangeException(nameof(lowest), "The search range must lie above -100% and be non-empty.");
         }
         FlowSigns signs = FlowSigns.Of(netFlows);
-        double[]? roots = signs.FlowChanges switch
+        if (signs.FlowChanges < 2)
         {
-            0 => [],
-            1 => SingleRoot(netFlows, lowest, highest, signs),
-            _ => EveryRoot(netFlows, lowest, highest, signs, new RootTally(lowest, highest, stopAtSecond: true)),
-        };
+            return signs.FlowChanges == 0 ? null : SingleRoot(netFlows, lowest, highest, signs) is [double single] ? single : null;
+        }
+        // The roots EveryRoot finds, from the same pieces: the zero root, a side's one root, every grid interval's roots.
+        var tally = new RootTally(lowest, highest);
+        bool zeroIsRoot = Math.Abs(signs.Total) <= ZeroTolerance * signs.Gross;
+        if (zeroIsRoot && lowest <= 0.0 && highest >= 0.0)
+        {
+            tally.Add(0.0);
+        }
+        SideScan? above = null, below = null;
+        if (highest > 0.0 && signs.ForwardCumulativeChanges > 0)
+        {
+            above = SideScan.Start(netFlows, Math.Max(lowest, 0.0), highest, signs.ForwardCumulativeChanges, zeroIsRoot, signs, tally, downwards: false);
+        }
+        if (lowest < 0.0 && signs.BackwardCumulativeChanges > 0)
+        {
+            below = SideScan.Start(netFlows, lowest, Math.Min(highest, 0.0), signs.BackwardCumulativeChanges, zeroIsRoot, signs, tally, downwards: true);
+        }
+        while (!tally.Settled && (above is { Done: false } || below is { Done: false }))
+        {
+            SideScan next = below is not { Done: false } || (above is { Done: false } && above.Distance <= below.Distance) ? above! : below;
+            next.Step();
+        }
+        if (tally.Settled)
+        {
+            return null;
+        }
+        List<double> roots = tally.Found;
+        roots.Sort();
+        RemoveNearDuplicates(roots);
         return roots is [double root] ? root : null;
+    }
+
+    /// <summary>
+    /// One side of zero scanned interval by interval from zero outwards, for <see cref="FindUnique"/>: the intervals,
+    /// and what each gives, are those of <see cref="SearchSide"/>; only their order differs.
+    /// </summary>
+    private sealed class SideScan
+    {
+        private readonly double[] _flows;
+        private readonly double[] _grid;
+        private readonly bool _downwards;
+        private readonly RootTally _tally;
+        private Sample _front;
+        private int _next;
+
+        private SideScan(double[] flows, double[] grid, bool downwards, RootTally tally)
+        {
+            _flows = flows;
+            _grid = grid;
+            _downwards = downwards;
+            _tally = tally;
+            int start = downwards ? grid.Length - 1 : 0;
+            _front = At(start);
+            _next = downwards ? start - 1 : 1;
+            if (!downwards && _front.Worth == 0.0)
+            {
+                tally.Add(_front.Rate);
+            }
+        }
+
+        /// <summary>The side's scan, or null when the side holds at most one root, which is then found at once.</summary>
+        public static SideScan? Start(double[] flows, double from, double to, int bound, bool zeroIsRoot, FlowSigns signs, RootTally tally, bool downwards)
+        {
+            if (bound > 1)
+            {
+                return new SideScan(flows, Grid(from, to), downwards, tally);
+            }
+            if (TryOneSide(flows, from, to, zeroIsRoot, signs, out double root))
+            {
+                tally.Add(root);
+            }
+            return null;
+        }
+
+        public bool Done => _downwards ? _next < 0 : _next >= _grid.Length;
+
+        /// <summary>How far the scan has gone from zero, in ln(1 + i).</summary>
+        public double Distance => Math.Abs(Math.Log(1.0 + _front.Rate));
+
+        public void Step()
+        {
+            Sample reached = At(_next);
+            var (lower, upper) = _downwards ? (reached, _front) : (_front, reached);
+            int before = _tally.Found.Count;
+            ScanInterval(_flows, lower, upper, Subdivisions, _tally.Found);
+            _tally.Scanned(lower.Rate, upper.Rate, before);
+            _front = reached;
+            _next += _downwards ? -1 : 1;
+            // The lowest grid point's own root, which the upward scan takes first.
+            if (_downwards && _next < 0 && reached.Worth == 0.0)
+            {
+                _tally.Add(reached.Rate);
+            }
+        }
+
+        private Sample At(int k) => new(_grid[k], FlowWorth.NormalizedWorth(_flows, _grid[k]), FlowWorth.NormalizedSlope(_flows, _grid[k]));
     }
 
     /// <summary>
@@ -104,12 +196,10 @@ public static class RateOfReturnSearch
         return TryOneSide(flows, from, to, zeroIsRoot: false, signs, out double root) ? [root] : [];
     }
 
-    /// <summary>Every root, ascending; null when the tally stopped the scan at a second root.</summary>
-    private static double[]? EveryRoot(double[] flows, double lowest, double highest, FlowSigns signs, RootTally roots)
+    private static double[] EveryRoot(double[] flows, double lowest, double highest, FlowSigns signs)
     {
+        var roots = new List<double>(4);
         bool zeroIsRoot = Math.Abs(signs.Total) <= ZeroTolerance * signs.Gross;
-        // Zero is the lowest rate of the side above it, which is scanned first.
-        roots.BeginSide(rootsAbove: false, descending: false);
         if (zeroIsRoot && lowest <= 0.0 && highest >= 0.0)
         {
             roots.Add(0.0);
@@ -120,21 +210,13 @@ public static class RateOfReturnSearch
         {
             SearchSide(flows, Math.Max(lowest, 0.0), highest, signs.ForwardCumulativeChanges, zeroIsRoot, signs, roots);
         }
-        if (lowest < 0.0 && signs.BackwardCumulativeChanges > 0 && !roots.Settled)
+        if (lowest < 0.0 && signs.BackwardCumulativeChanges > 0)
         {
-            // When only a unique root matters the side below zero is scanned downwards: rates just below zero are
-            // far likelier roots than rates near −100%, and a root found above zero then settles the answer at once.
-            roots.BeginSide(rootsAbove: roots.Found.Count > 0, descending: roots.StopAtSecond);
             SearchSide(flows, lowest, Math.Min(highest, 0.0), signs.BackwardCumulativeChanges, zeroIsRoot, signs, roots);
         }
-        if (roots.Settled)
-        {
-            return null;
-        }
-        List<double> found = roots.Found;
-        found.Sort();
-        RemoveNearDuplicates(found);
-        return [.. found];
+        roots.Sort();
+        RemoveNearDuplicates(roots);
+        return [.. roots];
     }
 
     /// <summary>
@@ -155,7 +237,7 @@ public static class RateOfReturnSearch
             && SafeguardedNewton.TryFindRoot(flows, zeroEnd, worthAtZero, farEnd, limitSign, guess, out root);
     }
 
-    private static void SearchSide(double[] flows, double from, double to, int bound, bool zeroIsRoot, FlowSigns signs, RootTally roots)
+    private static void SearchSide(double[] flows, double from, double to, int bound, bool zeroIsRoot, FlowSigns signs, List<double> roots)
     {
         if (bound == 1)
         {
@@ -166,41 +248,19 @@ public static class RateOfReturnSearch
             return;
         }
 
-        double[] grid = Grid(from, to);
-        Sample At(int k) => new(grid[k], FlowWorth.NormalizedWorth(flows, grid[k]), FlowWorth.NormalizedSlope(flows, grid[k]));
-        void Interval(Sample lower, Sample upper)
-        {
-            int before = roots.Found.Count;
-            ScanInterval(flows, lower, upper, Subdivisions, roots.Found);
-            roots.Scanned(lower.Rate, upper.Rate, roots.Found.Count - before);
-        }
+        double Worth(double i) => FlowWorth.NormalizedWorth(flows, i);
 
-        if (!roots.Descending)
+        double[] grid = Grid(from, to);
+        var previous = new Sample(grid[0], Worth(grid[0]), FlowWorth.NormalizedSlope(flows, grid[0]));
+        if (previous.Worth == 0.0)
         {
-            Sample previous = At(0);
-            if (previous.Worth == 0.0)
-            {
-                roots.Add(previous.Rate);
-            }
-            for (int k = 1; k < grid.Length && !roots.Settled; k++)
-            {
-                Sample next = At(k);
-                Interval(previous, next);
-                previous = next;
-            }
-            return;
+            roots.Add(previous.Rate);
         }
-        // The same intervals from the top down: each gives the roots it gives in the upward scan.
-        Sample upper = At(grid.Length - 1);
-        for (int k = grid.Length - 1; k >= 1 && !roots.Settled; k--)
+        for (int k = 1; k < grid.Length; k++)
         {
-            Sample lower = At(k - 1);
-            Interval(lower, upper);
-            upper = lower;
-        }
-        if (!roots.Settled && upper.Worth == 0.0)
-        {
-            roots.Add(upper.Rate);
+            var next = new Sample(grid[k], Worth(grid[k]), FlowWorth.NormalizedSlope(flows, grid[k]));
+            ScanInterval(flows, previous, next, Subdivisions, roots);
+            previous = next;
         }
     }
 
