@@ -1,3 +1,4 @@
+using System.Collections.Concurrent;
 using MathNet.Numerics.RootFinding;
 
 namespace CapReview.Engine.Measures;
@@ -361,8 +362,31 @@ public static class RateOfReturnSearch
         return 0.5 * (a + b);
     }
 
-    /// <summary>Grid points from <paramref name="from"/> to <paramref name="to"/>, evenly spaced in ln(1 + i), finer near zero.</summary>
+    /// <summary>
+    /// Grid points from <paramref name="from"/> to <paramref name="to"/>: made once for each range and shared, never
+    /// written after it is made. Every search of a model's flows, and every trial of a simulation, searches the same
+    /// sides of zero (the range at its period length), and making the grid, an exponential a point, costs more than
+    /// the scan that stops early. The cache holds a few dozen ranges at most, so unusual ones cannot grow it.
+    /// </summary>
     private static double[] Grid(double from, double to)
+    {
+        if (Grids.TryGetValue((from, to), out double[]? cached))
+        {
+            return cached;
+        }
+        double[] grid = MakeGrid(from, to);
+        if (Grids.Count < MaxCachedGrids)
+        {
+            Grids.TryAdd((from, to), grid);
+        }
+        return grid;
+    }
+
+    private static readonly ConcurrentDictionary<(double From, double To), double[]> Grids = new();
+    private const int MaxCachedGrids = 64;
+
+    /// <summary>Grid points from <paramref name="from"/> to <paramref name="to"/>, evenly spaced in ln(1 + i), finer near zero.</summary>
+    private static double[] MakeGrid(double from, double to)
     {
         double u0 = Math.Log(1.0 + from);
         double u1 = Math.Log(1.0 + to);
