@@ -7,6 +7,9 @@ namespace CapReview.Engine.Measures;
 /// </summary>
 public static class Payback
 {
+    // The unit roundoff with a little room, as in FlowSigns.
+    private const double Epsilon = 2.3e-16;
+
     /// <summary>Periods until the undiscounted cumulative flow is recovered; null when never, and when there is no flow at all (nothing to recover, nothing recovered).</summary>
     public static double? Simple(IReadOnlyList<double> netFlows) => Recovery(netFlows, 0.0);
 
@@ -18,6 +21,11 @@ public static class Payback
     /// shrink) and as C_t (1 + i)^t where i &lt; 0 (the same sign, and the factors that would grow past every double never
     /// form); the fraction of period t needed, −C_(t−1) / (F_t (1 + i)^−t), is the same ratio in either form.
     /// </summary>
+    /// <remarks>
+    /// A cumulative worth within its own rounding error of zero, (t + 1) ε Σ|F_s (1 + i)^−s| over its t + 1 terms (the
+    /// rule the sign evidence of the rate of return uses), is zero: flows that recover the investment exactly at the
+    /// end of period t pay back at t, not a rounding error before it, after it, or never when t is the last period.
+    /// </remarks>
     private static double? Recovery(IReadOnlyList<double> netFlows, double ratePerPeriod)
     {
         ArgumentNullException.ThrowIfNull(netFlows);
@@ -25,22 +33,25 @@ public static class Payback
         double v = 1.0 / (1.0 + ratePerPeriod);
         double growth = 1.0 + ratePerPeriod;
         double discount = 1.0;
-        double cumulative = 0.0;
+        double cumulative = 0.0, gross = 0.0;
         bool invested = false;
         for (int t = 0; t < netFlows.Count; t++)
         {
             double flow = atPeriod ? netFlows[t] : netFlows[t] * discount;
             double before = atPeriod ? cumulative * growth : cumulative;
             cumulative = before + flow;
+            gross = (atPeriod ? gross * growth : gross) + Math.Abs(flow);
+            double negligible = (t + 1) * Epsilon * gross;
             discount *= v;
-            if (cumulative < 0.0)
+            if (cumulative < -negligible)
             {
                 invested = true;
             }
             else if (invested && flow > 0.0)
             {
-                // Recovered within period t: the fraction of its flow needed to lift the balance to zero.
-                return t - 1 + (-before / flow);
+                // Recovered within period t: the fraction of its flow needed to lift the balance to zero; all of it
+                // when the balance is zero at the period's end.
+                return cumulative <= negligible ? t : t - 1 + (-before / flow);
             }
         }
         // Flows that never dip below zero pay back at once; a model with no flow at all has no payback to speak of.

@@ -1,3 +1,4 @@
+using System.Collections.Concurrent;
 using MathNet.Numerics.RootFinding;
 
 namespace CapReview.Engine.Measures;
@@ -11,6 +12,12 @@ namespace CapReview.Engine.Measures;
 /// differs in sign at its ends, found by a safeguarded Halley iteration; a side with a larger bound is scanned on a fine
 /// grid in ln(1 + i), and every bracket and every turning point of the worth (where two close roots can hide) is
 /// refined by Brent's method.
+/// </para>
+/// <para>
+/// <see cref="FindUnique"/> answers only whether there is exactly one root, and which, for a simulation: it scans the
+/// same grid intervals outwards from zero on both sides at once (roots near zero are the likely ones) and stops once
+/// two roots are found that the merging of near-duplicates could not join (<see cref="RootTally"/>), with the answer
+/// the full scan gives.
 /// </para>
 /// </summary>
 public static class RateOfReturnSearch
@@ -53,6 +60,120 @@ public static class RateOfReturnSearch
             _ => EveryRoot(flows, lowest, highest, signs),
         };
         return new RateOfReturnResult(roots, signs.FlowChanges, signs.ForwardCumulativeChanges, signs.CumulativeTestPassed);
+    }
+
+    /// <summary>
+    /// The rate of return per period when there is exactly one in the range, else null: always
+    /// <see cref="Find"/>'s <see cref="RateOfReturnResult.UniqueRoot"/>, found with less work when the flows change
+    /// sign several times and have several roots.
+    /// </summary>
+    public static double? FindUnique(double[] netFlows, double lowest, double highest)
+    {
+        ArgumentNullException.ThrowIfNull(netFlows);
+        if (!(lowest > -1.0) || !(highest > lowest) || !double.IsFinite(highest))
+        {
+            throw new ArgumentOutOfRangeException(nameof(lowest), "The search range must lie above -100% and be non-empty.");
+        }
+        FlowSigns signs = FlowSigns.Of(netFlows);
+        if (signs.FlowChanges < 2)
+        {
+            return signs.FlowChanges == 0 ? null : SingleRoot(netFlows, lowest, highest, signs) is [double single] ? single : null;
+        }
+        // The roots EveryRoot finds, from the same pieces: the zero root, a side's one root, every grid interval's roots.
+        var tally = new RootTally(lowest, highest);
+        bool zeroIsRoot = Math.Abs(signs.Total) <= ZeroTolerance * signs.Gross;
+        if (zeroIsRoot && lowest <= 0.0 && highest >= 0.0)
+        {
+            tally.Add(0.0);
+        }
+        SideScan? above = null, below = null;
+        if (highest > 0.0 && signs.ForwardCumulativeChanges > 0)
+        {
+            above = SideScan.Start(netFlows, Math.Max(lowest, 0.0), highest, signs.ForwardCumulativeChanges, zeroIsRoot, signs, tally, downwards: false);
+        }
+        if (lowest < 0.0 && signs.BackwardCumulativeChanges > 0)
+        {
+            below = SideScan.Start(netFlows, lowest, Math.Min(highest, 0.0), signs.BackwardCumulativeChanges, zeroIsRoot, signs, tally, downwards: true);
+        }
+        while (!tally.Settled && (above is { Done: false } || below is { Done: false }))
+        {
+            SideScan next = below is not { Done: false } || (above is { Done: false } && above.Distance <= below.Distance) ? above! : below;
+            next.Step();
+        }
+        if (tally.Settled)
+        {
+            return null;
+        }
+        List<double> roots = tally.Found;
+        roots.Sort();
+        RemoveNearDuplicates(roots);
+        return roots is [double root] ? root : null;
+    }
+
+    /// <summary>
+    /// One side of zero scanned interval by interval from zero outwards, for <see cref="FindUnique"/>: the intervals,
+    /// and what each gives, are those of <see cref="SearchSide"/>; only their order differs.
+    /// </summary>
+    private sealed class SideScan
+    {
+        private readonly double[] _flows;
+        private readonly double[] _grid;
+        private readonly bool _downwards;
+        private readonly RootTally _tally;
+        private Sample _front;
+        private int _next;
+
+        private SideScan(double[] flows, double[] grid, bool downwards, RootTally tally)
+        {
+            _flows = flows;
+            _grid = grid;
+            _downwards = downwards;
+            _tally = tally;
+            int start = downwards ? grid.Length - 1 : 0;
+            _front = At(start);
+            _next = downwards ? start - 1 : 1;
+            if (!downwards && _front.Worth == 0.0)
+            {
+                tally.Add(_front.Rate);
+            }
+        }
+
+        /// <summary>The side's scan, or null when the side holds at most one root, which is then found at once.</summary>
+        public static SideScan? Start(double[] flows, double from, double to, int bound, bool zeroIsRoot, FlowSigns signs, RootTally tally, bool downwards)
+        {
+            if (bound > 1)
+            {
+                return new SideScan(flows, Grid(from, to), downwards, tally);
+            }
+            if (TryOneSide(flows, from, to, zeroIsRoot, signs, out double root))
+            {
+                tally.Add(root);
+            }
+            return null;
+        }
+
+        public bool Done => _downwards ? _next < 0 : _next >= _grid.Length;
+
+        /// <summary>How far the scan has gone from zero, in ln(1 + i).</summary>
+        public double Distance => Math.Abs(Math.Log(1.0 + _front.Rate));
+
+        public void Step()
+        {
+            Sample reached = At(_next);
+            var (lower, upper) = _downwards ? (reached, _front) : (_front, reached);
+            int before = _tally.Found.Count;
+            ScanInterval(_flows, lower, upper, Subdivisions, _tally.Found);
+            _tally.Scanned(lower.Rate, upper.Rate, before);
+            _front = reached;
+            _next += _downwards ? -1 : 1;
+            // The lowest grid point's own root, which the upward scan takes first.
+            if (_downwards && _next < 0 && reached.Worth == 0.0)
+            {
+                _tally.Add(reached.Rate);
+            }
+        }
+
+        private Sample At(int k) => new(_grid[k], FlowWorth.NormalizedWorth(_flows, _grid[k]), FlowWorth.NormalizedSlope(_flows, _grid[k]));
     }
 
     /// <summary>
@@ -241,8 +362,31 @@ public static class RateOfReturnSearch
         return 0.5 * (a + b);
     }
 
-    /// <summary>Grid points from <paramref name="from"/> to <paramref name="to"/>, evenly spaced in ln(1 + i), finer near zero.</summary>
+    /// <summary>
+    /// Grid points from <paramref name="from"/> to <paramref name="to"/>: made once for each range and shared, never
+    /// written after it is made. Every search of a model's flows, and every trial of a simulation, searches the same
+    /// sides of zero (the range at its period length), and making the grid, an exponential a point, costs more than
+    /// the scan that stops early. The cache holds a few dozen ranges at most, so unusual ones cannot grow it.
+    /// </summary>
     private static double[] Grid(double from, double to)
+    {
+        if (Grids.TryGetValue((from, to), out double[]? cached))
+        {
+            return cached;
+        }
+        double[] grid = MakeGrid(from, to);
+        if (Grids.Count < MaxCachedGrids)
+        {
+            Grids.TryAdd((from, to), grid);
+        }
+        return grid;
+    }
+
+    private static readonly ConcurrentDictionary<(double From, double To), double[]> Grids = new();
+    private const int MaxCachedGrids = 64;
+
+    /// <summary>Grid points from <paramref name="from"/> to <paramref name="to"/>, evenly spaced in ln(1 + i), finer near zero.</summary>
+    private static double[] MakeGrid(double from, double to)
     {
         double u0 = Math.Log(1.0 + from);
         double u1 = Math.Log(1.0 + to);

@@ -106,10 +106,11 @@ internal sealed class CompiledTrials
             // Past every double: the full path refuses such a trial's model too.
             return (double.NaN, double.NaN, double.NaN);
         }
-        var roots = RateOfReturnSearch.Find(space.Flows,
+        // A trial keeps only a unique rate: the scan of flows with several sign changes stops at a second root.
+        double? unique = RateOfReturnSearch.FindUnique(space.Flows,
             AnnualRate.PeriodFromAnnualEffective(RateOfReturnSearch.LowestAnnual, _periodsPerYear),
             AnnualRate.PeriodFromAnnualEffective(RateOfReturnSearch.HighestAnnual, _periodsPerYear));
-        double ror = roots.UniqueRoot is double r ? AnnualRate.AnnualEffectiveFromPeriod(r, _periodsPerYear) : double.NaN;
+        double ror = unique is double r ? AnnualRate.AnnualEffectiveFromPeriod(r, _periodsPerYear) : double.NaN;
         return (pw, aw, ror);
     }
 

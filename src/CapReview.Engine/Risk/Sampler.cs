@@ -5,7 +5,8 @@ namespace CapReview.Engine.Risk;
 /// <summary>Draws values of one uncertain parameter from its distribution (MathNet.Numerics), with a given source of randomness.</summary>
 internal sealed class Sampler
 {
-    // The standard normal's 95th percentile: low and high are taken as the 5th and 95th percentiles of the normal and lognormal.
+    // The standard normal's 95th percentile: low and high are the lognormal's 5th and 95th percentiles, and would be the
+    // normal's were it not cut at them with the most likely value midway.
     private const double Z95 = 1.6448536269514722;
     private readonly UncertainParameter _p;
 
@@ -48,9 +49,19 @@ internal sealed class Sampler
     {
         // Costs are negative: the magnitudes are lognormal, the sign kept.
         double sign = _p.MostLikely < 0 ? -1 : 1;
-        double low = Math.Abs(_p.Low), high = Math.Abs(_p.High), median = Math.Abs(_p.MostLikely);
-        double sigma = Math.Abs(Math.Log(Math.Max(low, high)) - Math.Log(Math.Min(low, high))) / (2 * Z95);
-        return sign * LogNormal.Sample(random, Math.Log(median), sigma);
+        var (mu, sigma) = LognormalFit(_p.Low, _p.High);
+        return sigma == 0 ? _p.Low : sign * LogNormal.Sample(random, mu, sigma);
+    }
+
+    /// <summary>
+    /// μ and σ of ln|X| such that the smaller magnitude of low and high is the 5th percentile of |X| and the larger its
+    /// 95th: ln a = μ − z σ and ln b = μ + z σ, z the standard normal's 95th percentile. Two percentiles fix a
+    /// lognormal, so the most likely value does not enter: the median is √(a b) and the mode e^(μ − σ²).
+    /// </summary>
+    internal static (double Mu, double Sigma) LognormalFit(double low, double high)
+    {
+        double a = Math.Log(Math.Min(Math.Abs(low), Math.Abs(high))), b = Math.Log(Math.Max(Math.Abs(low), Math.Abs(high)));
+        return (0.5 * (a + b), (b - a) / (2 * Z95));
     }
 
     private double DiscreteDraw(Random random)

@@ -12,10 +12,17 @@ public enum DistributionKind
     /// <summary>The beta (PERT) distribution on low … high with its mode at the most likely value.</summary>
     Pert,
 
-    /// <summary>Normal about the most likely value, low and high its 5th and 95th percentiles, cut at low and high.</summary>
+    /// <summary>
+    /// Normal about the most likely value with σ = (high − low)/3.29, cut at low and high (a draw outside is drawn
+    /// again): low and high are bounds. Were it not cut, and the most likely value midway, they would be its 5th and
+    /// 95th percentiles.
+    /// </summary>
     Normal,
 
-    /// <summary>Lognormal with its median at the most likely value and low and high its 5th and 95th percentiles.</summary>
+    /// <summary>
+    /// Lognormal with low and high its 5th and 95th percentiles (for costs, of the magnitudes). Its median is then
+    /// √(low × high); the most likely value is the base of the sensitivity and scenarios but does not shape the draws.
+    /// </summary>
     Lognormal,
 
     /// <summary>Given values with given probabilities.</summary>

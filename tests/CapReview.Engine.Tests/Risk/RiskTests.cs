@@ -114,8 +114,9 @@ public class RiskTests
     }
 
     [Fact]
-    public void Every_distribution_stays_within_its_range_and_a_discrete_one_takes_only_its_values()
+    public void A_simulation_with_every_kind_of_distribution_gives_valid_trials_and_refuses_bad_parameters()
     {
+        // Each distribution's bounds and percentiles are checked on its draws in DistributionDrawTests.
         UncertainParameter[] parameters =
         [
             Saving with { Distribution = DistributionKind.Uniform },
