@@ -16,13 +16,14 @@ public sealed class PortfolioUnequalLivesTests(ReviewsDatabase db) : IClassFixtu
 {
     private static readonly CancellationToken None = CancellationToken.None;
 
-    private static ProposalDraft Way(string title, double firstCost, double yearly, CashFlowCategory category, int life) => new(
+    private static ProposalDraft Way(string title, double firstCost, double yearly, CashFlowCategory category, int life, double? valueAtStudyEnd = null) => new(
         title,
         "One way of meeting the need.",
         ProposalCategory.Replacement,
         RiskClass.Standard,
         new ProposalAssumptions
         {
+            ValueAtStudyEnd = valueAtStudyEnd,
             Model = new ModelSpec
             {
                 Horizon = life,
@@ -99,7 +100,60 @@ public sealed class PortfolioUnequalLivesTests(ReviewsDatabase db) : IClassFixtu
         var result = await db.Portfolio.SelectAsync(Reviewer, cycle.Id, new PortfolioQuery(), None);
         Assert.Equal((-30_000 - 5_000 * 2.5771) * (1 + 0.7938), result.Problem.Candidates.Single(c => c.Id == s).Worth, 3.0);
         Assert.Equal(new[] { a, l }.Order(StringComparer.Ordinal), result.Optimal.Chosen.Order(StringComparer.Ordinal));
-        Assert.Equal("present worth over the cycle's study period of 6 years, for every proposal", result.WorthBasis);
+        Assert.Equal("present worth over the cycle's study period of 6 years, for every proposal; the alternatives of a group at the group's MARR, as its incremental analysis compares them", result.WorthBasis);
+    }
+
+    [Fact]
+    public async Task With_a_study_period_that_cuts_a_life_the_group_analysis_compares_over_it_and_agrees_with_the_selection()
+    {
+        // A four-year study period: the three-year way is bought again at year 3 and valued at 20,000 a year later;
+        // the six-year way is cut at year 4 at its stated market value of 30,000. Over the lives' common multiple the
+        // three-year way is the better (annual worth 2,478.8 against 1,857.6), over the four years the six-year way.
+        var cycle = await db.OpenCycleAsync("Study period cuts a life 2027", 1_000_000m);
+        async Task<ProposalView> SubmitAsync(ProposalDraft draft)
+        {
+            var created = await db.Proposals.CreateDraftAsync(Lead, draft, None);
+            return await db.Proposals.SubmitAsync(Lead, created.Id, cycle.Id, created.Revision, None);
+        }
+        var leased = await SubmitAsync(Way("Labeller, leased model", 40_000, 18_000, CashFlowCategory.Revenue, 3, valueAtStudyEnd: 20_000));
+        var heavy = await SubmitAsync(Way("Labeller, heavy model", 70_000, 17_000, CashFlowCategory.Revenue, 6, valueAtStudyEnd: 30_000));
+        await db.PortfolioRules.SaveGroupAsync(Reviewer, cycle.Id, new GroupDraft("Labelling", false, [leased.Id, heavy.Id]), None);
+        string a = leased.Reference, b = heavy.Reference;
+        var (current, _) = await db.Cycles.GetAsync(cycle.Id, None);
+        await db.PortfolioRules.SetPlanAsync(Admin, cycle.Id, new CyclePlan(4, [], SelectionObjective.PresentWorth), current.Revision, None);
+
+        var result = await db.Portfolio.SelectAsync(Reviewer, cycle.Id, new PortfolioQuery(), None);
+        var analysis = Assert.Single(GroupAnalyses.Of(result.Ranking));
+        var decision = analysis.Decision!;
+        // The selection funds the six-year way, and the group's incremental analysis picks it too.
+        Assert.Equal([b], result.Optimal.Chosen);
+        Assert.Equal(b, decision.BestByIncrementalAnalysis);
+
+        // Hand-computed from the 8 % table of an engineering-economy handbook (from memory, four decimals):
+        // (P/A, 8%, 4) = 3.3121, (P/F, 8%, 3) = 0.7938, (P/F, 8%, 4) = 0.7350. Tolerances: half a unit of the
+        // printed place times the amounts.
+        double pwA = -40_000 + 18_000 * 3.3121 - 40_000 * 0.7938 + 20_000 * 0.7350;   // 2,565.8
+        double pwB = -70_000 + 17_000 * 3.3121 + 30_000 * 0.7350;                     // 8,355.7
+        Assert.Equal(4, decision.CommonHorizon);
+        Assert.Equal(pwA, decision.PresentWorths[a], 4.0);
+        Assert.Equal(pwB, decision.PresentWorths[b], 2.5);
+        var step = decision.Steps.Single(s => s.Challenger == b);
+        Assert.Equal(a, step.Defender);
+        Assert.Equal(pwB - pwA, step.IncrementalPresentWorth, 6.5);                    // 5,789.9
+        Assert.True(step.ChallengerWins);
+        Assert.Equal(b, decision.BestByAnnualWorth);
+        Assert.Contains("study period of 4 years", decision.Basis, StringComparison.Ordinal);
+
+        // Exactly the ranking's figures over the study period (one MARR here), and the selection's.
+        foreach (var row in result.Ranking.Rows)
+        {
+            string reference = row.Proposal.Reference;
+            Assert.Equal(row.Ranked.PresentWorth, decision.PresentWorths[reference], 1e-6);
+            Assert.Equal(row.Ranked.AnnualWorth, decision.AnnualWorths[reference], 1e-6);
+            Assert.Equal(row.Ranked.PresentWorth, result.Problem.Candidates.Single(c => c.Id == reference).Worth, 1e-6);
+        }
+        var annual = await db.Portfolio.SelectAsync(Reviewer, cycle.Id, new PortfolioQuery(Objective: SelectionObjective.AnnualWorth), None);
+        Assert.Equal([b], annual.Optimal.Chosen);
     }
 
     [Fact]

@@ -31,25 +31,34 @@ public static class StudyPeriodWorth
         {
             throw new ArgumentOutOfRangeException(nameof(valueAtEnd), valueAtEnd, "The value at the end of the study period must be a finite number.");
         }
-        // The renewals may run past period 1,200 (at most a life less one period); only the window up to T is discounted.
+        double[] window = Window(model, studyPeriod, valueAtEnd);
+        string basis = studyPeriod % life == 0
+            ? studyPeriod == life ? "the life itself" : $"{studyPeriod / life} lives of {life} periods, renewed on the same terms"
+            : studyPeriod < life
+                ? $"cut at period {studyPeriod} of a {life}-period life, with its market value then"
+                : $"the {life}-period life renewed to cover {studyPeriod} periods, the last renewal valued at its end";
+        double pw = FlowWorth.PresentWorth(window, ratePerPeriod);
+        return new StudyPeriodResult(pw, pw * CompoundInterest.CapitalRecovery(ratePerPeriod, studyPeriod), basis);
+    }
+
+    /// <summary>
+    /// The net flows of periods 0 … T on the study period's terms: the life renewed as often as needed and cut at T,
+    /// with the value at the end added at T unless T is a whole number of lives (each then ends with its own resale).
+    /// The ranking's worth over T and the incremental analysis over T both discount these flows.
+    /// </summary>
+    public static double[] Window(CashFlowModel model, int studyPeriod, double valueAtEnd)
+    {
+        ArgumentNullException.ThrowIfNull(model);
+        int life = model.Horizon;
+        // The renewals may run past period 1,200 (at most a life less one period); only the window up to T is kept.
         int covered = (studyPeriod + life - 1) / life * life;
         double[] flows = CommonHorizon.Repeat(model.NetFlows, covered);
         double[] window = new double[studyPeriod + 1];
         Array.Copy(flows, window, studyPeriod + 1);
-        string basis;
-        if (studyPeriod % life == 0)
-        {
-            // Whole lives end at T with their own salvage: no value needs stating.
-            basis = studyPeriod == life ? "the life itself" : $"{studyPeriod / life} lives of {life} periods, renewed on the same terms";
-        }
-        else
+        if (studyPeriod % life != 0)
         {
             window[studyPeriod] += valueAtEnd;
-            basis = studyPeriod < life
-                ? $"cut at period {studyPeriod} of a {life}-period life, with its market value then"
-                : $"the {life}-period life renewed to cover {studyPeriod} periods, the last renewal valued at its end";
         }
-        double pw = FlowWorth.PresentWorth(window, ratePerPeriod);
-        return new StudyPeriodResult(pw, pw * CompoundInterest.CapitalRecovery(ratePerPeriod, studyPeriod), basis);
+        return window;
     }
 }

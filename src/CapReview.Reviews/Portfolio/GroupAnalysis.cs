@@ -12,7 +12,8 @@ namespace CapReview.Reviews.Portfolio;
 public sealed record GroupAnalysis(ExclusiveGroup Group, AnnualRate? Marr, string MarrNote, ExclusiveDecision? Decision, string? Refusal);
 
 /// <summary>
-/// Analyses each exclusive group of a ranked cycle. Alternatives are compared at one MARR: when their risk classes or
+/// Analyses each exclusive group of a ranked cycle on the ranking's basis: over the cycle's study period when it has
+/// one, else over the common multiple of the lives. Alternatives are compared at one MARR: when their risk classes or
 /// overrides give them different MARRs, the highest, so that no alternative is favoured by a lower hurdle.
 /// </summary>
 public static class GroupAnalyses
@@ -37,8 +38,10 @@ public static class GroupAnalyses
                 : $"the highest MARR of its proposals ({hurdle.Proposal.Reference}'s), so that no alternative is favoured by a lower hurdle";
             try
             {
+                // Over the cycle's study period when it has one, each on the flows and stated value the ranking uses.
                 var decision = ExclusiveChoice.Decide(
-                    [.. members.Select(m => new Alternative(m.Proposal.Reference, m.Ranked.Evaluation.Model))], marr, group.Mandatory);
+                    [.. members.Select(m => new Alternative(m.Proposal.Reference, m.Ranked.Evaluation.Model, m.Version.Assumptions.ValueAtStudyEnd))],
+                    marr, group.Mandatory, ranking.Cycle.StudyPeriodYears);
                 analyses.Add(new(group, marr, note, decision, null));
             }
             catch (ArgumentException ex)

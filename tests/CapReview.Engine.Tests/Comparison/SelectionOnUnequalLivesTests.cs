@@ -80,15 +80,45 @@ public class SelectionOnUnequalLivesTests
     }
 
     [Fact]
+    public void Over_a_study_period_that_cuts_a_life_the_analysis_compares_the_flows_within_it_with_the_stated_values()
+    {
+        // Four years at 8 %: the three-year way A is bought again at year 3 and valued at 20,000 at year 4; the six-year
+        // way B is cut at year 4 at 30,000. Handbook 8 % table (from memory, four decimals): (P/A, 8%, 4) = 3.3121,
+        // (P/F, 8%, 3) = 0.7938, (P/F, 8%, 4) = 0.7350, (A/P, 8%, 4) = 0.30192.
+        var a = Quick with { ValueAtStudyEnd = 20_000 };
+        var b = Lasting with { ValueAtStudyEnd = 30_000 };
+        var overLives = ExclusiveChoice.Decide([a, b], EightPercent, mandatory: false);
+        var overFour = ExclusiveChoice.Decide([a, b], EightPercent, mandatory: false, studyPeriodYears: 4);
+        Assert.Equal("A", overLives.BestByIncrementalAnalysis);
+        Assert.Equal(4, overFour.CommonHorizon);
+        double pwA = -40_000 + 18_000 * 3.3121 - 40_000 * 0.7938 + 20_000 * 0.7350;  // 2,565.8
+        double pwB = -70_000 + 17_000 * 3.3121 + 30_000 * 0.7350;                    // 8,355.7
+        Assert.Equal(pwA, overFour.PresentWorths["A"], 4.0);
+        Assert.Equal(pwB, overFour.PresentWorths["B"], 2.5);
+        Assert.Equal(pwB * 0.30192, overFour.AnnualWorths["B"], 1.5);                 // 2,522.8
+        Assert.Equal(pwB - pwA, overFour.Steps[^1].IncrementalPresentWorth, 6.5);
+        Assert.Equal("B", overFour.BestByIncrementalAnalysis);
+        Assert.Equal("B", overFour.BestByAnnualWorth);
+        // ΔB/ΔC over the four years, the value at the end counted as salvage against the costs. A against nothing:
+        // B = 18,000 (P/A, 8%, 4), C = 40,000 + 40,000 (P/F, 8%, 3) − 20,000 (P/F, 8%, 4). B against A: ΔC =
+        // 30,000 − 40,000 (P/F, 8%, 3) − (30,000 − 20,000)(P/F, 8%, 4) = −9,102 is not positive, so no ratio.
+        Assert.Equal(18_000 * 3.3121 / (40_000 + 40_000 * 0.7938 - 20_000 * 0.7350), overFour.Steps[0].IncrementalBenefitCost!.Value, 0.0001);  // 1.0450
+        Assert.Null(overFour.Steps[^1].IncrementalBenefitCost);
+    }
+
+    [Fact]
     public void On_the_incremental_analysis_figures_the_selection_agrees_with_it_for_every_generated_group()
     {
         // Common practice, no source: with capital to spare and no contingencies, the set of greatest total worth takes
         // from each group its member of greatest worth (none from an optional group where none is worth more than
-        // nothing), which the analysis picks when both compare the same chains at the same MARR.
-        var alternative = Gen.Select(Gen.Double[1_000, 80_000], Gen.Double[-8_000, 25_000], Gen.Int[1, 6], Gen.Double[0, 10_000])
-            .Select((cost, yearly, life, salvage) => (cost, yearly, life, salvage));
+        // nothing), which the analysis picks when both compare the same chains at the same MARR. With a study period
+        // (one in three cycles, 1 to 8 years, cutting lives as often as not) both compare each alternative's flows
+        // within it with its stated value at the end, the ranking's worth over the study period.
+        var alternative = Gen.Select(Gen.Double[1_000, 80_000], Gen.Double[-8_000, 25_000], Gen.Int[1, 6], Gen.Double[0, 10_000], Gen.Double[-5_000, 60_000])
+            .Select((cost, yearly, life, salvage, atEnd) => (cost, yearly, life, salvage, atEnd));
         var group = Gen.Select(alternative.Array[1, 4], Gen.Bool);
-        Gen.Select(group.Array[1, 3], Gen.Double[0.0, 0.30], Gen.Bool).Sample((groups, marr, annual) =>
+        var study = Gen.Int[0, 2].SelectMany(k => k == 0 ? Gen.Int[1, 8].Select(y => (int?)y) : Gen.Const((int?)null));
+        Gen.Select(group.Array[1, 3], Gen.Double[0.0, 0.30], Gen.Bool, study).Sample((groups, marr, annual, years) =>
         {
             var decisions = new List<ExclusiveDecision>();
             var candidates = new List<SelectionCandidate>();
@@ -99,8 +129,18 @@ public class SelectionOnUnequalLivesTests
                 var members = groups[g].Item1.Select((m, k) => new Alternative($"g{g}-{k}", Models.Valid(m.life, 1,
                     new SingleAmount("First cost", Capital, 0, -m.cost),
                     new UniformSeries("Yearly", m.yearly >= 0 ? Revenue : Operating, 1, m.life, m.yearly),
-                    new SingleAmount("Resale", Salvage, m.life, m.salvage)))).ToList();
-                var decision = ExclusiveChoice.Decide(members, AnnualRate.Effective(marr), groups[g].Item2);
+                    new SingleAmount("Resale", Salvage, m.life, m.salvage)), m.atEnd)).ToList();
+                var decision = ExclusiveChoice.Decide(members, AnnualRate.Effective(marr), groups[g].Item2, years);
+                if (years is int t)
+                {
+                    // The analysis's figures are the ranking's over the study period.
+                    var ranked = ProposalRanking.Rank([.. members.Select(m => new RankingEntry(m.Name, m.Model, AnnualRate.Effective(marr), m.ValueAtStudyEnd))], t);
+                    if (ranked.Any(r => Math.Abs(r.PresentWorth - decision.PresentWorths[r.Id]) > 1e-6 * (1 + Math.Abs(r.PresentWorth))
+                        || Math.Abs(r.AnnualWorth - decision.AnnualWorths[r.Id]) > 1e-6 * (1 + Math.Abs(r.AnnualWorth))))
+                    {
+                        return false;
+                    }
+                }
                 decisions.Add(decision);
                 var worths = annual ? decision.AnnualWorths : decision.PresentWorths;
                 candidates.AddRange(members.Select(m => new SelectionCandidate(m.Name, m.FirstCost, worths[m.Name])));

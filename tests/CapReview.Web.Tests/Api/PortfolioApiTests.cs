@@ -141,6 +141,7 @@ public sealed class PortfolioApiTests(ApiFactory factory) : IClassFixture<ApiFac
             Assert.Equal(p[1].Reference, root.GetProperty("bestByIncrementalAnalysis").GetString());
             Assert.Equal(p[1].Reference, root.GetProperty("bestByAnnualWorth").GetString());
             Assert.Equal(PresentWorth(260_000, 50_000), root.GetProperty("presentWorths").GetProperty(p[1].Reference).GetDouble(), 6);
+            Assert.Equal("each alternative renewed like for like over the least common multiple of the lives (10 periods)", root.GetProperty("basis").GetString());
 
             // Not in a group: 404; a version that does not exist: 404; both with problem details.
             using var alone = await boardClient.GetAsync($"/api/v1/proposals/{p[2].Id}/versions/1/incremental");
