@@ -18,48 +18,48 @@ public static class AdministrationEndpoints
             .WithName("ListMarrPolicies").WithSummary("The MARR policy versions, oldest first")
             .Produces<IReadOnlyList<MarrPolicyResponse>>()
             .RequireAuthorization(IdentityRegistration.Api);
-        Writes(routes.MapPost("/api/v1/marr-policies", AddPolicyAsync)
+        routes.MapPost("/api/v1/marr-policies", AddPolicyAsync)
             .WithName("AddMarrPolicy").WithSummary("Add a MARR policy version (administrators); versions are never changed")
-            .Accepts<NewMarrPolicyRequest>("application/json").Produces<MarrPolicyResponse>(StatusCodes.Status201Created));
-        Writes(routes.MapPost("/api/v1/cycles", CreateCycleAsync)
+            .Accepts<NewMarrPolicyRequest>("application/json").Produces<MarrPolicyResponse>(StatusCodes.Status201Created)
+            .ChangesState();
+        routes.MapPost("/api/v1/cycles", CreateCycleAsync)
             .WithName("CreateCycle").WithSummary("Open a budget cycle pinned to a MARR policy version (administrators)")
-            .Accepts<NewCycleRequest>("application/json").Produces<CycleResponse>(StatusCodes.Status201Created));
+            .Accepts<NewCycleRequest>("application/json").Produces<CycleResponse>(StatusCodes.Status201Created)
+            .ChangesState();
         routes.MapGet("/api/v1/cycles/{id:int}", CycleAsync)
             .WithName("GetCycle").WithSummary("One budget cycle, with its revision")
             .Produces<CycleResponse>().ProducesProblem(StatusCodes.Status404NotFound)
             .RequireAuthorization(IdentityRegistration.Api);
-        Writes(routes.MapPut("/api/v1/cycles/{id:int}/status", MoveCycleAsync)
+        routes.MapPut("/api/v1/cycles/{id:int}/status", MoveCycleAsync)
             .WithName("MoveCycle").WithSummary("Start a cycle's review (inReview) or close a decided cycle (closed) (administrators)")
-            .Accepts<CycleStatusRequest>("application/json").Produces<CycleResponse>());
+            .Accepts<CycleStatusRequest>("application/json").Produces<CycleResponse>()
+            .ChangesState();
         routes.MapGet("/api/v1/cycles/{id:int}/portfolio-rules", RulesAsync)
             .WithName("GetPortfolioRules").WithSummary("A cycle's plan, exclusive groups and contingencies (board, finance, administrators)")
             .Produces<PortfolioRulesResponse>().ProducesProblem(StatusCodes.Status403Forbidden).ProducesProblem(StatusCodes.Status404NotFound)
             .RequireAuthorization(IdentityRegistration.Api);
-        Writes(routes.MapPut("/api/v1/cycles/{id:int}/plan", SetPlanAsync)
+        routes.MapPut("/api/v1/cycles/{id:int}/plan", SetPlanAsync)
             .WithName("SetCyclePlan").WithSummary("Set the cycle's study period, later budget years' limits and objective (board, administrators)")
-            .Accepts<CyclePlanRequest>("application/json").Produces<PortfolioRulesResponse>());
-        Writes(routes.MapPost("/api/v1/cycles/{id:int}/groups", SaveGroupAsync)
+            .Accepts<CyclePlanRequest>("application/json").Produces<PortfolioRulesResponse>()
+            .ChangesState();
+        routes.MapPost("/api/v1/cycles/{id:int}/groups", SaveGroupAsync)
             .WithName("SaveExclusiveGroup").WithSummary("Add an exclusive group, or replace the one of the same name (board, administrators)")
-            .Accepts<GroupRequest>("application/json").Produces<PortfolioRulesResponse>());
-        Writes(routes.MapDelete("/api/v1/cycles/{id:int}/groups/{groupId:int}", RemoveGroupAsync)
+            .Accepts<GroupRequest>("application/json").Produces<PortfolioRulesResponse>()
+            .ChangesState();
+        routes.MapDelete("/api/v1/cycles/{id:int}/groups/{groupId:int}", RemoveGroupAsync)
             .WithName("RemoveExclusiveGroup").WithSummary("Remove an exclusive group (board, administrators)")
-            .Produces<PortfolioRulesResponse>());
-        Writes(routes.MapPost("/api/v1/cycles/{id:int}/contingencies", AddContingencyAsync)
+            .Produces<PortfolioRulesResponse>()
+            .ChangesState();
+        routes.MapPost("/api/v1/cycles/{id:int}/contingencies", AddContingencyAsync)
             .WithName("AddContingency").WithSummary("Fund a proposal only with its prerequisite (board, administrators)")
-            .Accepts<ContingencyRequest>("application/json").Produces<PortfolioRulesResponse>());
-        Writes(routes.MapDelete("/api/v1/cycles/{id:int}/contingencies/{contingencyId:int}", RemoveContingencyAsync)
+            .Accepts<ContingencyRequest>("application/json").Produces<PortfolioRulesResponse>()
+            .ChangesState();
+        routes.MapDelete("/api/v1/cycles/{id:int}/contingencies/{contingencyId:int}", RemoveContingencyAsync)
             .WithName("RemoveContingency").WithSummary("Remove a contingency (board, administrators)")
-            .Produces<PortfolioRulesResponse>());
+            .Produces<PortfolioRulesResponse>()
+            .ChangesState();
         return routes;
     }
-
-    private static void Writes(RouteHandlerBuilder route) => route
-        .ProducesValidationProblem()
-        .ProducesProblem(StatusCodes.Status403Forbidden)
-        .ProducesProblem(StatusCodes.Status404NotFound)
-        .ProducesProblem(StatusCodes.Status409Conflict)
-        .RequireAuthorization(IdentityRegistration.Api)
-        .DisableAntiforgery();
 
     private static Actor Caller(HttpContext context) => ActorFactory.From(context.User)!;
 

@@ -27,12 +27,7 @@ public static class BoardEndpoints
                 "an exclusive or mandatory group, a prerequisite) answers 400 naming the rule, unless override is true with an overrideReason.")
             .Accepts<DecisionApiRequest>("application/json")
             .Produces<DecisionResponse>(StatusCodes.Status201Created)
-            .ProducesValidationProblem()
-            .ProducesProblem(StatusCodes.Status403Forbidden)
-            .ProducesProblem(StatusCodes.Status404NotFound)
-            .ProducesProblem(StatusCodes.Status409Conflict)
-            .RequireAuthorization(IdentityRegistration.Api)
-            .DisableAntiforgery();
+            .ChangesState();
         routes.MapGet("/api/v1/cycles/{id:int}/decisions/portfolio", PortfolioPlanAsync)
             .WithName("ListPortfolioApprovals")
             .WithSummary("The approvals the selected portfolio still needs, for a board member to confirm")
@@ -48,12 +43,7 @@ public static class BoardEndpoints
                 "approvals that break the board's rules beside the decisions already recorded answer 400 naming the rule, unless override is true with an overrideReason.")
             .Accepts<PortfolioApprovalRequest>("application/json")
             .Produces<IReadOnlyList<DecisionResponse>>(StatusCodes.Status201Created)
-            .ProducesValidationProblem()
-            .ProducesProblem(StatusCodes.Status403Forbidden)
-            .ProducesProblem(StatusCodes.Status404NotFound)
-            .ProducesProblem(StatusCodes.Status409Conflict)
-            .RequireAuthorization(IdentityRegistration.Api)
-            .DisableAntiforgery();
+            .ChangesState();
         routes.MapGet("/api/v1/cycles/{id:int}/sign-offs", SignOffsAsync)
             .WithName("ListSignOffs")
             .WithSummary("The cycle's sign-offs and the decisions each covered (board, finance, administrators)")
