@@ -35,10 +35,14 @@ public sealed class EditorInputsInChromium(BrowserFixture browser) : IClassFixtu
         int k = await page.GetByTestId("risk-parameters").Locator("tbody tr").CountAsync();
         await page.GetByTestId("add-parameter").ClickAsync();
         await page.Locator($"#risk-target-{k}").SelectOptionAsync(target);
+        // Choosing the input fills in a first guess from the server; typed before it lands, a value would be typed into
+        // the guess ("8" becoming "88") on a busy machine, which no person is quick enough to do.
+        await Assertions.Expect(page.Locator($"#risk-likely-{k}")).Not.ToHaveValueAsync("");
         foreach (var (field, value) in new[] { ("low", low), ("likely", likely), ("high", high) })
         {
             await page.Locator($"#risk-{field}-{k}").FillAsync(value);
             await page.Locator($"#risk-{field}-{k}").BlurAsync();
+            await Assertions.Expect(page.Locator($"#risk-{field}-{k}")).ToHaveValueAsync(value);
         }
         return k;
     }

@@ -21,8 +21,13 @@ public sealed class RememberedViewsInChromium(BrowserFixture browser) : IClassFi
 
         await page.GotoAsync(browser.App.BaseAddress + $"cycles/{open}/portfolio");
         await page.Locator("[data-testid=interactive]").WaitForAsync(new() { State = WaitForSelectorState.Attached });
+        // The page's own first solve done (the what-if unlocked), the what-if is typed and solved: the selection
+        // within 900,000 on the page is the sign that it was solved, and so remembered.
+        await Assertions.Expect(page.GetByTestId("portfolio-verdict")).ToContainTextAsync("within 1,500,000");
+        await Assertions.Expect(page.GetByTestId("recalculate")).ToBeEnabledAsync();
         await page.Locator("#capital-limit").FillAsync("900000");
         await page.GetByTestId("recalculate").ClickAsync();
+        await Assertions.Expect(page.GetByTestId("portfolio-verdict")).ToContainTextAsync("within 900,000");
         await Assertions.Expect(page.Locator("#capital-limit")).ToHaveValueAsync("900000");
 
         // The next visit: a new page, the cycles list first.
