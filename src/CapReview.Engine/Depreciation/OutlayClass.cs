@@ -13,6 +13,6 @@ public sealed record OutlayClass
     /// <summary>Under the book methods: the outlay's life in years, 1 to 100.</summary>
     public int? Life { get; init; }
 
-    /// <summary>Whether neither is given: the outlay then takes the first cost's class or life.</summary>
-    public bool IsEmpty => PropertyClass is null && Life is null;
+    /// <summary>Whether neither is given: the outlay then takes the first cost's class or life. A method, not a property, so that it is never stored.</summary>
+    public bool IsEmpty() => PropertyClass is null && Life is null;
 }

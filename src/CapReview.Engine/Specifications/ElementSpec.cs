@@ -67,7 +67,7 @@ public sealed record ElementSpec
     public Depreciation.OutlayClass? DepreciatedAs
     {
         get => depreciatedAs;
-        init => depreciatedAs = value is { IsEmpty: false } ? value : null;
+        init => depreciatedAs = value is not null && !value.IsEmpty() ? value : null;
     }
 
     private readonly bool? expensed;
