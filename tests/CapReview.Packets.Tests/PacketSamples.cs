@@ -33,7 +33,7 @@ internal static class PacketSamples
         new(1, "board-2", "Aino Salo", Now.AddHours(-1), "[]"),
     ];
 
-    public static ModelSpec Model(double saving, int life = 12) => new()
+    public static ModelSpec Model(double saving, int life = 12, Engine.Depreciation.OutlayClass? spindle = null) => new()
     {
         PeriodsPerYear = 1,
         Horizon = life,
@@ -42,7 +42,7 @@ internal static class PacketSamples
             new ElementSpec { Type = ElementKind.Single, Label = "Five-axis centre", Category = CashFlowCategory.Capital, Period = 0, Amount = -640_000 },
             new ElementSpec { Type = ElementKind.Geometric, Label = "Labour and scrap saved", Category = CashFlowCategory.Revenue, First = 1, Last = life, Amount = saving, Growth = 0.02 },
             new ElementSpec { Type = ElementKind.Arithmetic, Label = "Service contract", Category = CashFlowCategory.Operating, First = 1, Last = life, Amount = -9_000, Step = -600 },
-            new ElementSpec { Type = ElementKind.Recurring, Label = "Spindle rebuild", Category = CashFlowCategory.Capital, First = 5, Last = 10, Every = 5, Amount = -45_000 },
+            new ElementSpec { Type = ElementKind.Recurring, Label = "Spindle rebuild", Category = CashFlowCategory.Capital, First = 5, Last = 10, Every = 5, Amount = -45_000, DepreciatedAs = spindle },
             new ElementSpec { Type = ElementKind.Single, Label = "Resale of the centre", Category = CashFlowCategory.Salvage, Period = life, Amount = 60_000 },
         ],
     };
@@ -55,10 +55,10 @@ internal static class PacketSamples
             AssumptionsDocument.Hash(json), assumptions);
     }
 
-    public static (ProposalView Proposal, Decision Decision) Decided(int id, DecisionOutcome outcome = DecisionOutcome.Approve, double saving = 137_000, TaxSpec? tax = null, RiskSpec? risk = null)
+    public static (ProposalView Proposal, Decision Decision) Decided(int id, DecisionOutcome outcome = DecisionOutcome.Approve, double saving = 137_000, TaxSpec? tax = null, RiskSpec? risk = null, Engine.Depreciation.OutlayClass? spindle = null)
     {
         var v1 = Version(1, Model(saving - 10_000), "First draft", frozen: true);
-        var v2 = Version(2, Model(saving), "Savings re-estimated after the supplier's trial run", frozen: true, tax, risk);
+        var v2 = Version(2, Model(saving, spindle: spindle), "Savings re-estimated after the supplier's trial run", frozen: true, tax, risk);
         var proposal = new ProposalView(id, $"P-{id:D4}", "lead-1", id == 2 ? "CNC line 3 replacement" : $"Machining cell {id}", "Replace two machining centres.",
             ProposalCategory.Replacement, RiskClass.Standard, ProposalStatus.Approved, 1, 3, [v1, v2]);
         var decision = new Decision(id, 1, 2, v2.AssumptionsHash, 1, outcome,
@@ -66,9 +66,9 @@ internal static class PacketSamples
         return (proposal, decision);
     }
 
-    public static ProposalPacketData ProposalData(PaperSize paper = PaperSize.A4, TaxSpec? tax = null, RiskSpec? risk = null)
+    public static ProposalPacketData ProposalData(PaperSize paper = PaperSize.A4, TaxSpec? tax = null, RiskSpec? risk = null, Engine.Depreciation.OutlayClass? spindle = null)
     {
-        var (proposal, decision) = Decided(2, tax: tax, risk: risk);
+        var (proposal, decision) = Decided(2, tax: tax, risk: risk, spindle: spindle);
         return new ProposalPacketData(Organisation, Cycle, Marr, proposal, decision, Figures(proposal, decision), SignOffs, Now, new SigningNotice("", "", true), paper);
     }
 

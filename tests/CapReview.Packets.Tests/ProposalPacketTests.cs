@@ -124,6 +124,24 @@ public sealed class ProposalPacketTests
         // with half a year; IRS Publication 946, Table A-1, 14.29 %).
         Assert.Contains($"5 {f.Money(45_000.0)} {f.Money(45_000 / 7.0)}", text);
         Assert.DoesNotContain("Later capital outlays", Text(Packet));
+        Assert.Contains("Every outlay is depreciated by the first cost's class or life.", text);
+    }
+
+    [Fact]
+    public void A_later_capital_outlay_of_its_own_class_is_named_with_it()
+    {
+        var tax = new Engine.Specifications.TaxSpec
+        {
+            IncomeTaxRate = 0.25,
+            Depreciation = new Engine.Specifications.DepreciationSpec { Method = Engine.Specifications.DepreciationMethod.Macrs, PropertyClass = Engine.Depreciation.MacrsClass.SevenYear },
+        };
+        var data = PacketSamples.ProposalData(tax: tax, spindle: new Engine.Depreciation.OutlayClass { PropertyClass = Engine.Depreciation.MacrsClass.ThreeYear });
+        var f = new PacketFormat(PacketSamples.Organisation.Culture, "EUR");
+        string text = Text(PacketRenderer.Proposal(data, PacketSamples.Certificate)).Replace("\n", " ", StringComparison.Ordinal);
+        Assert.Contains("Spindle rebuild: MACRS 3-year property", text);
+        // The spindle rebuild of 45,000 at year 5 as 3-year property: its first year is 45,000 / 3 (200 % declining
+        // balance with half a year; IRS Publication 946, Table A-1, 33.33 %).
+        Assert.Contains($"5 {f.Money(45_000.0)} {f.Money(45_000 / 3.0)}", text);
     }
 
     [Fact]

@@ -25,6 +25,9 @@ public abstract record CashFlowElement(string Label, CashFlowCategory Category)
     /// </summary>
     public bool Expensed { get; init; }
 
+    /// <summary>For a capital element after period 0: its own class or life as an asset; null for the first cost's.</summary>
+    public Depreciation.OutlayClass? DepreciatedAs { get; init; }
+
     /// <summary>First period with a flow.</summary>
     public abstract int FirstPeriod { get; }
 

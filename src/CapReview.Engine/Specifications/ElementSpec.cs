@@ -59,5 +59,18 @@ public sealed record ElementSpec
         init => expensed = value is true ? true : null;
     }
 
+    /// <summary>
+    /// For a capital outlay after period 0: its own MACRS class or life, when it is not depreciated as the first cost
+    /// is; null for the first cost's. An empty choice is stored as null, so documents written before it keep their
+    /// text and their hash.
+    /// </summary>
+    public Depreciation.OutlayClass? DepreciatedAs
+    {
+        get => depreciatedAs;
+        init => depreciatedAs = value is not null && !value.IsEmpty() ? value : null;
+    }
+
     private readonly bool? expensed;
+
+    private readonly Depreciation.OutlayClass? depreciatedAs;
 }

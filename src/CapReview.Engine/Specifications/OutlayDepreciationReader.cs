@@ -6,7 +6,8 @@ namespace CapReview.Engine.Specifications;
 /// <summary>
 /// The first cost's depreciation applied to a later capital outlay: the same method, life, factor or MACRS class and
 /// convention (with the first cost's quarter or month), to no salvage, since the salvage entered belongs to the first
-/// cost. Under units of production an outlay is spread over the units still to come from its year.
+/// cost. Under units of production an outlay is spread over the units still to come from its year. An outlay with a
+/// class or life of its own keeps the first cost's method and takes that class or life instead.
 /// </summary>
 internal static class OutlayDepreciationReader
 {
@@ -19,7 +20,33 @@ internal static class OutlayDepreciationReader
             DepreciationMethod.StraightLine => (cost, _) => BookDepreciation.StraightLine(cost, 0, spec.Life!.Value),
             DepreciationMethod.SumOfYearsDigits => (cost, _) => BookDepreciation.SumOfYearsDigits(cost, 0, spec.Life!.Value),
             _ => (cost, _) => BookDepreciation.DecliningBalance(cost, 0, spec.Life!.Value, spec.Factor ?? 2.0, spec.SwitchToStraightLine ?? true),
-        }, disposalYearShare);
+        }, disposalYearShare, own => Own(spec, own, disposalYearShare));
+
+    /// <summary>
+    /// The rule for an outlay's own class or life, which <see cref="TaxSpecReader"/> has checked fits the method.
+    /// Under MACRS the convention is the first cost's, except that real property takes the mid-month convention and
+    /// other property cannot: a real-property outlay is placed in service in the first cost's month when the first
+    /// cost is real property too, else in January (the default month of the first cost's own schedule), and disposed
+    /// of in the first cost's month of disposal, else at the end of December, as the first cost is by default.
+    /// Personal property under a real-property first cost takes the half-year convention.
+    /// </summary>
+    private static OutlayDepreciation Own(DepreciationSpec spec, OutlayClass own, double disposalYearShare)
+    {
+        if (spec.Method != DepreciationMethod.Macrs)
+        {
+            var firstCost = spec with { Life = own.Life };
+            return Read(firstCost, disposalYearShare);
+        }
+        MacrsClass propertyClass = own.PropertyClass!.Value;
+        MacrsConvention first = Convention(spec);
+        bool real = propertyClass is MacrsClass.ResidentialRental or MacrsClass.Nonresidential;
+        MacrsConvention convention = real ? MacrsConvention.MidMonth : first == MacrsConvention.MidMonth ? MacrsConvention.HalfYear : first;
+        bool sameConvention = convention == first;
+        int placed = sameConvention ? spec.PlacedInPeriod ?? 1 : 1;
+        int periods = convention == MacrsConvention.MidMonth ? 12 : 4;
+        int disposal = sameConvention ? spec.DisposalPeriod ?? periods : periods;
+        return new((cost, _) => Macrs.Schedule(cost, propertyClass, convention, placed), Macrs.DisposalYearShare(convention, disposal));
+    }
 
     private static MacrsConvention Convention(DepreciationSpec spec) =>
         spec.Convention ?? (spec.PropertyClass is MacrsClass.ResidentialRental or MacrsClass.Nonresidential ? MacrsConvention.MidMonth : MacrsConvention.HalfYear);

@@ -1,4 +1,5 @@
 using CapReview.Engine.CashFlows;
+using CapReview.Engine.Depreciation;
 using CapReview.Engine.Evaluation;
 using CapReview.Engine.Inflation;
 using CapReview.Engine.Rates;
@@ -37,7 +38,8 @@ public static class SpecificationReader
                 }
                 if (element is not null)
                 {
-                    elements.Add(ExpensedIfAsked(element, spec.Elements[e]!, $"elements[{e}]", errors));
+                    element = ExpensedIfAsked(element, spec.Elements[e]!, $"elements[{e}]", errors);
+                    elements.Add(DepreciatedAsIfAsked(element, spec.Elements[e]!, $"elements[{e}]", errors));
                 }
             }
         }
@@ -187,6 +189,40 @@ public static class SpecificationReader
             errors.Add(new($"{path}.expensed", "Only a capital cost after period 0 can be deducted as a repair in its year."));
         }
         return element with { Expensed = true };
+    }
+
+    /// <summary>
+    /// Only a capital outlay after the first cost, not a repair, can have its own class or life; whether a class or a
+    /// life fits is for the tax reader, which knows the first cost's method.
+    /// </summary>
+    private static CashFlowElement DepreciatedAsIfAsked(CashFlowElement element, ElementSpec spec, string path, List<InputError> errors)
+    {
+        if (spec.DepreciatedAs is not { } own)
+        {
+            return element;
+        }
+        string field = $"{path}.depreciatedAs";
+        if (!ElementFields.MayBeExpensed(element.Category, element.FirstPeriod))
+        {
+            errors.Add(new(field, "Only a capital cost after period 0 can be depreciated by a class or life of its own."));
+        }
+        else if (element.Expensed)
+        {
+            errors.Add(new(field, "A repair is deducted in its year: untick the repair to depreciate it by a class or life of its own."));
+        }
+        else if (own.PropertyClass is not null && own.Life is not null)
+        {
+            errors.Add(new(field, "Give either a MACRS property class or a life, not both."));
+        }
+        else if (own.PropertyClass is MacrsClass c && !Enum.IsDefined(c))
+        {
+            errors.Add(new(field, "Choose one of the MACRS property classes."));
+        }
+        else if (own.Life is int life && life is < 1 or > 100)
+        {
+            errors.Add(new(field, "Give a life of 1 to 100 years."));
+        }
+        return element with { DepreciatedAs = own };
     }
 
     private static CashFlowElement? Unknown(string path, List<InputError> errors)

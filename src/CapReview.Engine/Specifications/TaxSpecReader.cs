@@ -64,6 +64,10 @@ public static class TaxSpecReader
         {
             errors.Add(new("tax.losses", "Choose offset or carryForward."));
         }
+        if (schedule is not null)
+        {
+            OutlayClassCheck.Check(spec.Depreciation!, model, errors);
+        }
         if (errors.Count > 0 || schedule is null)
         {
             return Outcome.Failure<TaxSettings>(errors);

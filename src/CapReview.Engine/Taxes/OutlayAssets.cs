@@ -28,17 +28,39 @@ public sealed record OutlayAssets(IReadOnlyList<double> Cost, IReadOnlyList<doub
         {
             return new(cost, depreciation, 0);
         }
-        for (int e = 0; e < model.Elements.Count; e++)
+        double bookValue = 0;
+        // The outlays of one year and one class form one asset: those with the first cost's class (null) apart from
+        // each class or life of their own.
+        var classes = model.Elements.Where(IsCapitalised).Select(element => element.DepreciatedAs).Distinct();
+        foreach (var depreciatedAs in classes)
         {
-            if (model.Elements[e] is { Category: CashFlowCategory.Capital, Expensed: false })
+            var own = new double[n + 1];
+            for (int e = 0; e < model.Elements.Count; e++)
             {
-                double[] flows = model.FlowsOf(e);
-                for (int t = 1; t <= n; t++)
+                if (IsCapitalised(model.Elements[e]) && Equals(model.Elements[e].DepreciatedAs, depreciatedAs))
                 {
-                    cost[t] += Math.Max(0, -flows[t]);
+                    double[] flows = model.FlowsOf(e);
+                    for (int t = 1; t <= n; t++)
+                    {
+                        own[t] += Math.Max(0, -flows[t]);
+                    }
                 }
             }
+            bookValue += Depreciate(own, rule.For(depreciatedAs), depreciation);
+            for (int t = 1; t <= n; t++)
+            {
+                cost[t] += own[t];
+            }
         }
+        return new(cost, depreciation, bookValue);
+    }
+
+    private static bool IsCapitalised(CashFlowElement element) => element is { Category: CashFlowCategory.Capital, Expensed: false };
+
+    /// <summary>Adds the depreciation of the assets bought by <paramref name="cost"/> to <paramref name="depreciation"/>; returns their book value at the horizon.</summary>
+    private static double Depreciate(double[] cost, OutlayDepreciation rule, double[] depreciation)
+    {
+        int n = cost.Length - 1;
         double bookValue = 0;
         for (int t = 1; t <= n; t++)
         {
@@ -60,6 +82,6 @@ public sealed record OutlayAssets(IReadOnlyList<double> Cost, IReadOnlyList<doub
             }
             bookValue += schedule.BookValueAfter(yearsHeld);
         }
-        return new(cost, depreciation, bookValue);
+        return bookValue;
     }
 }

@@ -210,11 +210,15 @@ internal static class ProposalSections
         if (outlays is { } o && o.Cost.Any(c => c > 0))
         {
             flow.Heading("Later capital outlays", PacketStyle.Heading2);
-            flow.Text("Each capital cost after year 0 that is not marked as a repair is depreciated by the same method as an asset of its own from the "
+            flow.Text("Each capital cost after year 0 that is not marked as a repair is depreciated as an asset of its own (by the first cost's method unless a class or life of its own is named below) from the "
                 + $"year it is spent; its book value, {f.Money(o.BookValueAtDisposal)} in all, is recovered with the first cost at disposal (in the book value above).", PacketStyle.Body);
             TableWriter.Draw(flow, [new("Year", 1, true), new("Cost capitalised", 2, true), new("Its depreciation", 2, true)],
                 Enumerable.Range(1, o.Cost.Count - 1).Where(t => o.Cost[t] > 0 || o.Depreciation[t] > 0)
                     .Select(t => new TableRow([t.ToString(f.Culture), f.Money(o.Cost[t]), f.Money(o.Depreciation[t])])));
+            var own = r.BeforeTax.Model.Elements.Where(e => e is { Category: Engine.CashFlows.CashFlowCategory.Capital, Expensed: false, DepreciatedAs: not null })
+                .Select(e => $"{e.Label}: {OwnClass(e.DepreciatedAs!)}").ToList();
+            flow.Text(own.Count == 0 ? "Every outlay is depreciated by the first cost's class or life."
+                : "Depreciated by a class or life of its own (the others by the first cost's): " + string.Join("; ", own) + ".", PacketStyle.Body);
         }
         flow.Heading("After-tax cash flows", PacketStyle.Heading2);
         bool equityColumn = r.Equity is not null;
@@ -234,6 +238,15 @@ internal static class ProposalSections
         ])));
         flow.Text($"Amounts in {f.CurrencyCode}. A negative tax is a saving against the organisation's other income.", PacketStyle.Small, PacketStyle.SoftBrush);
     }
+
+    /// <summary>An outlay's own class or life in words.</summary>
+    private static string OwnClass(Engine.Depreciation.OutlayClass own) => own.PropertyClass switch
+    {
+        Engine.Depreciation.MacrsClass.ResidentialRental => "MACRS 27.5-year residential rental property",
+        Engine.Depreciation.MacrsClass.Nonresidential => "MACRS 39-year nonresidential real property",
+        Engine.Depreciation.MacrsClass c => $"MACRS {(int)c}-year property",
+        null => $"a life of {own.Life} years",
+    };
 
     /// <summary>A payback in years; "—" for a model with no flows (nothing to recover, as on the pages), else "not within the life".</summary>
     private static string PaybackText(Evaluation e, double? years, string name, PacketFormat f) => years is double y ? $"{f.Number(y, 2)} years"

@@ -154,6 +154,7 @@ public static partial class FieldWording
         "money" => "money basis",
         "escalation" => "own escalation a year",
         "expensed" => "deducted as a repair",
+        "depreciatedAs" => "depreciated as",
         "id" => "identity",
         "mostLikely" => "most likely",
         "target" => "input varied",

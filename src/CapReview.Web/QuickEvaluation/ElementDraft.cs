@@ -46,6 +46,12 @@ public sealed class ElementDraft
     /// <summary>For a capital cost after period 0: a repair deducted in its year rather than an asset depreciated from it.</summary>
     public bool Expensed { get; set; }
 
+    /// <summary>For a capital cost after period 0 under MACRS: its own property class; null for the first cost's.</summary>
+    public Engine.Depreciation.MacrsClass? OwnClass { get; set; }
+
+    /// <summary>For a capital cost after period 0 under a book method: its own life in years as typed; blank for the first cost's.</summary>
+    public string OwnLife { get; set; } = "";
+
     /// <summary>The row of a stored or imported element, its numbers written in <paramref name="culture"/> as a person would type them.</summary>
     public static ElementDraft FromSpec(ElementSpec e, System.Globalization.CultureInfo culture)
     {
@@ -67,6 +73,8 @@ public sealed class ElementDraft
             Money = e.Money ?? Engine.Inflation.MoneyBasis.Actual,
             EscalationPercent = e.Escalation is double escalation ? Number(escalation * 100, culture) : "",
             Expensed = e.Expensed == true,
+            OwnClass = e.DepreciatedAs?.PropertyClass,
+            OwnLife = Whole(e.DepreciatedAs?.Life),
         };
     }
 

@@ -93,6 +93,8 @@ public sealed class ModelDraft
                 Escalation = row.Uses("escalation") && row.EscalationPercent.Trim().Length > 0
                     ? Real(row.EscalationPercent, $"{path}.escalation", culture, errors) / 100.0 : null,
                 Expensed = row.Expensed ? true : null,
+                DepreciatedAs = row.OwnClass is Engine.Depreciation.MacrsClass own ? new Engine.Depreciation.OutlayClass { PropertyClass = own }
+                    : row.OwnLife.Trim().Length > 0 ? new Engine.Depreciation.OutlayClass { Life = Whole(row.OwnLife, $"{path}.depreciatedAs", culture, errors) } : null,
             });
         }
         var spec = new ModelSpec

@@ -27,6 +27,7 @@ public sealed class FieldWordingTests
     [Theory]
     [InlineData("elements[3].amount", "Element 4, amount")]
     [InlineData("elements[2].expensed", "Element 3, deducted as a repair")]
+    [InlineData("elements[2].depreciatedAs", "Element 3, depreciated as")]
     [InlineData("model.elements[0].last", "Element 1, last period")]
     [InlineData("risk.parameters[0].low", "Risk parameter 1, low")]
     [InlineData("risk.parameters[2].mostLikely", "Risk parameter 3, most likely")]

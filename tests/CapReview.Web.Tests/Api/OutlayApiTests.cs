@@ -58,11 +58,30 @@ public sealed class OutlayApiTests(ApiFactory factory) : IClassFixture<ApiFactor
     }
 
     [Fact]
+    public async Task An_overhaul_of_its_own_class_is_depreciated_by_it_and_a_class_that_does_not_fit_is_named()
+    {
+        var (status, body) = await PostAsync(Press(overhaulFlag: ", \"depreciatedAs\": {\"propertyClass\": \"threeYear\"}"));
+        Assert.Equal(HttpStatusCode.OK, status);
+        // IRS Publication 946, Table A-1: the press as 5-year property, 20, 32, 19.2, 11.52, 11.52, 5.76 %; the overhaul
+        // of 40,000 as 3-year property from year 3, 33.33, 44.45, 14.81, 7.41 % (the table's rounding of 1/3, 4/9, 4/27,
+        // 2/27), all four years before the horizon at year 7, so none is cut.
+        double[] hand = [0, 20_000, 32_000, 19_200 + 13_333.33, 11_520 + 17_777.78, 11_520 + 5_925.93, 5_760 + 2_962.96, 0];
+        Assert.Equal(hand, Depreciation(body).Select(d => Math.Round(d, 2)));
+
+        (status, body) = await PostAsync(Press(overhaulFlag: ", \"depreciatedAs\": {\"life\": 10}"));
+        Assert.Equal(HttpStatusCode.BadRequest, status);
+        JsonElement errors = body.GetProperty("errors");
+        Assert.Equal(["elements[2].depreciatedAs"], errors.EnumerateObject().Select(p => p.Name));
+        Assert.Equal("The first cost is depreciated by MACRS: choose a MACRS property class.", errors.GetProperty("elements[2].depreciatedAs")[0].GetString());
+    }
+
+    [Fact]
     public async Task The_OpenAPI_document_describes_the_flag()
     {
         using HttpClient client = await factory.CreateAuthenticatedClientAsync();
         var document = JsonDocument.Parse(await client.GetStringAsync(new Uri("/openapi/v1.json", UriKind.Relative))).RootElement;
         JsonElement element = document.GetProperty("components").GetProperty("schemas").GetProperty("ElementSpec").GetProperty("properties");
         Assert.True(element.TryGetProperty("expensed", out _));
+        Assert.True(element.TryGetProperty("depreciatedAs", out _));
     }
 }

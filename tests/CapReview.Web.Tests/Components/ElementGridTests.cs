@@ -122,4 +122,25 @@ public sealed class ElementGridTests : IDisposable
         grid.Find("#el-3-expensed").Change(false);
         Assert.Empty(grid.FindAll("#el-3-expensed"));
     }
+
+    [Fact]
+    public void Under_MACRS_a_capital_cost_after_period_0_takes_a_class_of_its_own_that_the_model_carries()
+    {
+        var grid = _context.Render<ElementGrid>(p => p
+            .Add(c => c.State, _state)
+            .Add(c => c.AfterTax, true)
+            .Add(c => c.OutlayMethod, DepreciationMethod.Macrs)
+            .Add(c => c.Changed, () => { _changes++; _state.Recalculate(); }));
+        // Only the exchanger overhaul; it starts at the first cost's method.
+        Assert.Equal(["el-3-depreciatedAs"], grid.FindAll("select[id$='-depreciatedAs']").Select(b => b.Id));
+        Assert.Equal("the first cost's method", grid.Find("#el-3-depreciatedAs option[selected]").TextContent);
+        Assert.Null(_state.Draft.Read(System.Globalization.CultureInfo.GetCultureInfo("en-IE")).Spec.Elements![3]!.DepreciatedAs);
+        grid.Find("#el-3-depreciatedAs").Change(Engine.Depreciation.MacrsClass.Nonresidential.ToString());
+        Assert.Equal(Engine.Depreciation.MacrsClass.Nonresidential, _state.Draft.Read(System.Globalization.CultureInfo.GetCultureInfo("en-IE")).Spec.Elements![3]!.DepreciatedAs!.PropertyClass);
+        Assert.Equal("39-year nonresidential real property", grid.Find("#el-3-depreciatedAs option[selected]").TextContent);
+        // A repair takes no class: the choice goes with the tick.
+        grid.Find("#el-3-depreciatedAs").Change("");
+        grid.Find("#el-3-expensed").Change(true);
+        Assert.Empty(grid.FindAll("#el-3-depreciatedAs"));
+    }
 }
