@@ -28,23 +28,10 @@ public class LaterOutlayTests
         Depreciation = new DepreciationSpec { Method = DepreciationMethod.Macrs, PropertyClass = MacrsClass.FiveYear },
     };
 
-    private static readonly TaxSpec StraightLine = new()
-    {
-        IncomeTaxRate = 0.25,
-        Depreciation = new DepreciationSpec { Method = DepreciationMethod.StraightLine, Life = 5, Salvage = 10_000 },
-    };
-
-    private static AfterTaxEvaluation Evaluate(ModelSpec model, TaxSpec tax)
-    {
-        var outcome = AfterTaxEvaluator.Evaluate(model, tax);
-        Assert.True(outcome.IsValid, string.Join("; ", outcome.Errors.Select(e => e.Field + ": " + e.Message)));
-        return outcome.Value!;
-    }
-
     [Fact]
     public void An_overhaul_is_MACRS_property_placed_in_service_in_its_year_and_its_book_value_meets_the_resale()
     {
-        var result = Evaluate(Press(7, 3, 40_000, 10_000), FiveYearMacrs);
+        var result = OutlayCases.Evaluate(Press(7, 3, 40_000, 10_000), FiveYearMacrs);
         // IRS Publication 946, Table A-1 (5-year property, half-year convention): 20.00, 32.00, 19.20, 11.52, 11.52, 5.76 %.
         // The press from year 1: 20,000, 32,000, 19,200, 11,520, 11,520, 5,760 (years 1 to 6).
         // The overhaul of 40,000 from year 3: 8,000, 12,800, 7,680, 4,608, then in year 7, its fifth tax year and
@@ -62,7 +49,7 @@ public class LaterOutlayTests
     [Fact]
     public void An_outlay_marked_as_a_repair_is_deducted_in_its_year()
     {
-        var result = Evaluate(Press(7, 3, 40_000, 10_000, expensed: true), FiveYearMacrs);
+        var result = OutlayCases.Evaluate(Press(7, 3, 40_000, 10_000, expensed: true), FiveYearMacrs);
         // Publication 946, Table A-1 for the press alone; the repair of 40,000 deducted in year 3.
         double[] hand = [0, 20_000, 32_000, 19_200, 11_520, 11_520, 5_760, 0];
         Assert.Equal(hand, result.Table.Rows.Select(r => Math.Round(r.Depreciation, 6)));
@@ -74,7 +61,7 @@ public class LaterOutlayTests
     [Fact]
     public void Under_a_book_method_an_outlay_is_depreciated_over_the_same_life_to_no_salvage()
     {
-        var result = Evaluate(Press(5, 2, 20_000, 10_000), StraightLine);
+        var result = OutlayCases.Evaluate(Press(5, 2, 20_000, 10_000), OutlayCases.StraightLine);
         // Hand computation (straight line, common practice, no source): the press (100,000 − 10,000) / 5 = 18,000 a
         // year; the outlay 20,000 / 5 = 4,000 a year from year 2, four years held: book value 4,000 at year 5.
         double[] hand = [0, 18_000, 22_000, 22_000, 22_000, 22_000];
@@ -86,7 +73,7 @@ public class LaterOutlayTests
     [Fact]
     public void The_depreciation_taken_on_an_outlay_is_recaptured_with_the_first_costs_and_only_the_excess_over_both_bases_is_at_the_gain_rate()
     {
-        var result = Evaluate(Press(5, 2, 20_000, 125_000), StraightLine with { GainTaxRate = 0.15 });
+        var result = OutlayCases.Evaluate(Press(5, 2, 20_000, 125_000), OutlayCases.StraightLine with { GainTaxRate = 0.15 });
         // Hand computation (IRC §1245 recapture as IRS Publication 544 summarises it, from memory): bases 100,000 +
         // 20,000; depreciation taken 5 × 18,000 + 4 × 4,000 = 106,000; book value 14,000; gain 111,000, of which
         // 106,000 recaptured as ordinary income and 125,000 − 120,000 = 5,000 at the gain rate.
@@ -97,7 +84,7 @@ public class LaterOutlayTests
     [Fact]
     public void An_outlay_in_the_year_of_disposal_takes_no_depreciation_and_its_cost_is_book_value()
     {
-        var result = Evaluate(Press(5, 5, 6_000, 10_000), StraightLine);
+        var result = OutlayCases.Evaluate(Press(5, 5, 6_000, 10_000), OutlayCases.StraightLine);
         // Property placed in service and disposed of in the same year takes no depreciation (IRS Publication 946, from memory).
         Assert.Equal(18_000, result.Table.Rows[5].Depreciation, 6);
         Assert.Equal(10_000 + 6_000, result.Table.BookValueAtDisposal, 6);
@@ -116,7 +103,7 @@ public class LaterOutlayTests
             ],
         };
         var tax = FiveYearMacrs with { Depreciation = FiveYearMacrs.Depreciation! with { PropertyClass = MacrsClass.ThreeYear } };
-        var result = Evaluate(model, tax);
+        var result = OutlayCases.Evaluate(model, tax);
         // IRS Publication 946, Table A-1 (3-year property, half-year convention): 33.33, 44.45, 14.81, 7.41 %, the
         // table's rounding of 1/3, 4/9, 4/27 and 2/27 (200 % declining balance, half a year first, then straight line).
         // The relining of year 2: 9,000 × those shares = 3,000, 4,000, 1,333.33, 666.67 in years 2 to 5; the one of

@@ -28,25 +28,12 @@ public class OutlayClassTests
         Depreciation = new DepreciationSpec { Method = DepreciationMethod.Macrs, PropertyClass = MacrsClass.SevenYear },
     };
 
-    private static readonly TaxSpec StraightLine = new()
-    {
-        IncomeTaxRate = 0.25,
-        Depreciation = new DepreciationSpec { Method = DepreciationMethod.StraightLine, Life = 5, Salvage = 10_000 },
-    };
-
-    private static AfterTaxEvaluation Evaluate(ModelSpec model, TaxSpec tax)
-    {
-        var outcome = AfterTaxEvaluator.Evaluate(model, tax);
-        Assert.True(outcome.IsValid, string.Join("; ", outcome.Errors.Select(e => e.Field + ": " + e.Message)));
-        return outcome.Value!;
-    }
-
     private static IEnumerable<string> Fields(ModelSpec model, TaxSpec tax) => AfterTaxEvaluator.Evaluate(model, tax).Errors.Select(e => e.Field + ": " + e.Message);
 
     [Fact]
     public void An_addition_of_nonresidential_real_property_under_a_seven_year_first_cost_is_depreciated_over_39_years_mid_month()
     {
-        var result = Evaluate(Plant(10, 3, 100_000, 60_000, new OutlayClass { PropertyClass = MacrsClass.Nonresidential }), SevenYearMacrs);
+        var result = OutlayCases.Evaluate(Plant(10, 3, 100_000, 60_000, new OutlayClass { PropertyClass = MacrsClass.Nonresidential }), SevenYearMacrs);
         // IRS Publication 946, Table A-1 (7-year property, half-year convention): 14.29, 24.49, 17.49, 12.49, 8.93,
         // 8.92, 8.93, 4.46 % of the equipment's 100,000 in years 1 to 8.
         // Table A-7a (39-year nonresidential real property, mid-month), the addition placed in service in January of
@@ -72,7 +59,7 @@ public class OutlayClassTests
     [Fact]
     public void Under_straight_line_an_outlay_with_its_own_life_is_depreciated_over_it_to_no_salvage()
     {
-        var result = Evaluate(Plant(5, 2, 20_000, 10_000, new OutlayClass { Life = 10 }), StraightLine);
+        var result = OutlayCases.Evaluate(Plant(5, 2, 20_000, 10_000, new OutlayClass { Life = 10 }), OutlayCases.StraightLine);
         // Hand computation (straight line, common practice, no source): the equipment (100,000 − 10,000) / 5 = 18,000
         // a year; the addition 20,000 / 10 = 2,000 a year from year 2, four years held: book value 12,000 at year 5.
         double[] hand = [0, 18_000, 20_000, 20_000, 20_000, 20_000];
@@ -84,8 +71,8 @@ public class OutlayClassTests
     [Fact]
     public void With_no_class_of_its_own_an_outlay_takes_the_first_costs_as_before()
     {
-        var own = Evaluate(Plant(10, 3, 100_000, 60_000, new OutlayClass { PropertyClass = MacrsClass.SevenYear }), SevenYearMacrs);
-        var first = Evaluate(Plant(10, 3, 100_000, 60_000, null), SevenYearMacrs);
+        var own = OutlayCases.Evaluate(Plant(10, 3, 100_000, 60_000, new OutlayClass { PropertyClass = MacrsClass.SevenYear }), SevenYearMacrs);
+        var first = OutlayCases.Evaluate(Plant(10, 3, 100_000, 60_000, null), SevenYearMacrs);
         Assert.Equal(first.Table.Rows.Select(r => r.Depreciation), own.Table.Rows.Select(r => r.Depreciation));
         // An empty choice is no choice: nothing is stored for it.
         Assert.Null(new ElementSpec { DepreciatedAs = new OutlayClass() }.DepreciatedAs);
@@ -94,15 +81,15 @@ public class OutlayClassTests
     [Fact]
     public void A_life_out_of_range_is_named_at_the_elements_field()
     {
-        Assert.Equal(["elements[2].depreciatedAs: Give a life of 1 to 100 years."], Fields(Plant(5, 2, 20_000, 0, new OutlayClass { Life = 0 }), StraightLine));
-        Assert.Equal(["elements[2].depreciatedAs: Give a life of 1 to 100 years."], Fields(Plant(5, 2, 20_000, 0, new OutlayClass { Life = 101 }), StraightLine));
+        Assert.Equal(["elements[2].depreciatedAs: Give a life of 1 to 100 years."], Fields(Plant(5, 2, 20_000, 0, new OutlayClass { Life = 0 }), OutlayCases.StraightLine));
+        Assert.Equal(["elements[2].depreciatedAs: Give a life of 1 to 100 years."], Fields(Plant(5, 2, 20_000, 0, new OutlayClass { Life = 101 }), OutlayCases.StraightLine));
     }
 
     [Fact]
     public void A_class_or_life_that_does_not_fit_the_first_costs_method_is_refused()
     {
         Assert.Equal(["elements[2].depreciatedAs: The first cost is depreciated over a life: give a life of 1 to 100 years."],
-            Fields(Plant(5, 2, 20_000, 0, new OutlayClass { PropertyClass = MacrsClass.FiveYear }), StraightLine));
+            Fields(Plant(5, 2, 20_000, 0, new OutlayClass { PropertyClass = MacrsClass.FiveYear }), OutlayCases.StraightLine));
         Assert.Equal(["elements[2].depreciatedAs: The first cost is depreciated by MACRS: choose a MACRS property class."],
             Fields(Plant(5, 2, 20_000, 0, new OutlayClass { Life = 10 }), SevenYearMacrs));
         var decliningBalance = new TaxSpec { IncomeTaxRate = 0.25, Depreciation = new DepreciationSpec { Method = DepreciationMethod.DecliningBalance, Life = 8, Factor = 2 } };
@@ -117,11 +104,11 @@ public class OutlayClassTests
         var plant = Plant(5, 2, 20_000, 0, null);
         var onRevenue = plant with { Elements = [.. plant.Elements!.Select((e, k) => k == 1 ? e! with { DepreciatedAs = own } : e)] };
         var onFirstCost = plant with { Elements = [.. plant.Elements!.Select((e, k) => k == 0 ? e! with { DepreciatedAs = own } : e)] };
-        Assert.Equal(["elements[1].depreciatedAs: Only a capital cost after period 0 can be depreciated by a class or life of its own."], Fields(onRevenue, StraightLine));
-        Assert.Equal(["elements[0].depreciatedAs: Only a capital cost after period 0 can be depreciated by a class or life of its own."], Fields(onFirstCost, StraightLine));
+        Assert.Equal(["elements[1].depreciatedAs: Only a capital cost after period 0 can be depreciated by a class or life of its own."], Fields(onRevenue, OutlayCases.StraightLine));
+        Assert.Equal(["elements[0].depreciatedAs: Only a capital cost after period 0 can be depreciated by a class or life of its own."], Fields(onFirstCost, OutlayCases.StraightLine));
         Assert.Equal(["elements[2].depreciatedAs: A repair is deducted in its year: untick the repair to depreciate it by a class or life of its own."],
-            Fields(Plant(5, 2, 20_000, 0, own, expensed: true), StraightLine));
+            Fields(Plant(5, 2, 20_000, 0, own, expensed: true), OutlayCases.StraightLine));
         Assert.Equal(["elements[2].depreciatedAs: Give either a MACRS property class or a life, not both."],
-            Fields(Plant(5, 2, 20_000, 0, new OutlayClass { Life = 10, PropertyClass = MacrsClass.FiveYear }), StraightLine));
+            Fields(Plant(5, 2, 20_000, 0, new OutlayClass { Life = 10, PropertyClass = MacrsClass.FiveYear }), OutlayCases.StraightLine));
     }
 }
